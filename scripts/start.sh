@@ -1,0 +1,63 @@
+#!/usr/bin/env bash
+# npm start: set everything up on a fresh machine, then run Headroom with its demo data.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+PGPORT="${PGPORT:-54329}"
+PORT="${PORT:-3000}"
+DATA_DIR="$ROOT/.data/postgres"
+
+ensure_postgres
+ensure_node_modules
+
+SERVER_PID=""
+cleanup() {
+  trap - INT TERM EXIT
+  if [ -n "$SERVER_PID" ] && kill -0 "$SERVER_PID" 2>/dev/null; then
+    say "stopping the server"
+    kill -TERM "$SERVER_PID" 2>/dev/null || true
+    wait "$SERVER_PID" 2>/dev/null || true
+  fi
+  say "stopping PostgreSQL"
+  pg_down "$DATA_DIR"
+}
+trap cleanup EXIT
+trap 'exit 130' INT
+trap 'exit 143' TERM
+
+mkdir -p "$ROOT/.data"
+pg_up "$DATA_DIR" "$PGPORT"
+createdb_if_missing "$PGPORT" headroom
+export DATABASE_URL="postgres://headroom@127.0.0.1:$PGPORT/headroom"
+
+say "migrating the database"
+node --import tsx scripts/migrate.ts
+say "checking demo data"
+node --import tsx scripts/seed.ts
+say "building the client"
+npx vite build --logLevel warn
+
+export PORT NODE_ENV="${NODE_ENV:-production}"
+node --import tsx server/index.ts &
+SERVER_PID=$!
+
+for _ in $(seq 1 100); do
+  if node -e "fetch('http://127.0.0.1:$PORT/api/health').then(r=>process.exit(r.ok?0:1),()=>process.exit(1))"; then break; fi
+  kill -0 "$SERVER_PID" 2>/dev/null || die "the server stopped while starting (see the log above)"
+  sleep 0.2
+done
+cat <<MSG
+
+  Headroom is running at http://127.0.0.1:$PORT
+
+  Demo sign-ins (password for all: headroom-demo)
+    owner   owner@example.test    Marisol Okafor, owns "Gravel Hauler"
+    crew    crew@example.test     Teddy Brandt, wrenches on it
+    shop    shop@example.test     Ridgeback Fuel Lab, rebuilds its injectors
+    viewer  viewer@example.test   Jo Whitlock, follows the build
+
+  Ctrl-C stops the server and PostgreSQL. Data stays in .data/ (delete it to reset).
+
+MSG
+wait "$SERVER_PID"

@@ -1,0 +1,62 @@
+import express from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { AppConfig } from './config';
+import { createSessions, type Sessions } from './lib/auth';
+import type { Database } from './lib/database';
+import { createLogger, type Logger } from './lib/logger';
+import './lib/request';
+import { errorHandler, notFoundApi } from './middleware/error-handler';
+import { moneyFilter } from './middleware/money-filter';
+import { originCheck } from './middleware/origin-check';
+import { loadSession } from './middleware/require-auth';
+import { authRouter, meRouter } from './features/auth/auth.router';
+import { buildsRouter } from './features/builds/builds.router';
+import { healthRouter } from './features/health/health.router';
+
+export type AppDeps = { db: Database; config: AppConfig; logger: Logger; sessions: Sessions };
+
+const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
+
+/** Builds the Express app. Never listens: server/index.ts and the tests do that. */
+export function createApp(opts: { db: Database; config: AppConfig; logger?: Logger }) {
+  const logger = opts.logger ?? createLogger(opts.config.logLevel);
+  const deps: AppDeps = { ...opts, logger, sessions: createSessions(opts.db.pool) };
+  const app = express();
+
+  app.disable('x-powered-by');
+  app.set('trust proxy', opts.config.trustProxy ? 1 : false);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null },
+      },
+      strictTransportSecurity: opts.config.trustProxy,
+    }),
+  );
+  app.use(pinoHttp({ logger, autoLogging: opts.config.env !== 'test' }));
+
+  const api = express.Router();
+  api.use(express.json({ limit: '2mb' }));
+  api.use(originCheck(opts.config.allowedOrigins));
+  api.use(loadSession(deps.sessions));
+  api.use(moneyFilter);
+  api.use('/health', healthRouter(deps));
+  api.use('/auth', authRouter(deps));
+  api.use('/me', meRouter());
+  api.use('/builds', buildsRouter(deps));
+  api.use(notFoundApi);
+  api.use(errorHandler(logger));
+  app.use('/api', api);
+
+  if (opts.config.serveClient && fs.existsSync(path.join(distDir, 'index.html'))) {
+    app.use(express.static(distDir, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app shell.
+    app.get(/.*/, (_req, res) => res.sendFile(path.join(distDir, 'index.html')));
+  }
+  app.use(errorHandler(logger));
+  return app;
+}

@@ -1,0 +1,26 @@
+import type { Knex } from 'knex';
+import type { SignInInput, SignUpInput } from '../../../shared/schemas/auth';
+import { hashPassword, verifyPassword, type SessionUser } from '../../lib/auth';
+import { ConflictError, UnauthorizedError } from '../../lib/errors';
+import { findUserByEmail, insertUser } from './auth.repository';
+
+export async function signUp(knex: Knex, input: SignUpInput): Promise<SessionUser> {
+  const passwordHash = await hashPassword(input.password);
+  const user = await insertUser(knex, { ...input, passwordHash });
+  if (!user) {
+    throw new ConflictError('email_taken', 'An account with this e-mail already exists', {
+      email: 'An account with this e-mail already exists — sign in instead',
+    });
+  }
+  return user;
+}
+
+/** Same answer for an unknown e-mail and a wrong password, in about the same time. */
+export async function signIn(knex: Knex, input: SignInInput): Promise<SessionUser> {
+  const row = await findUserByEmail(knex, input.email);
+  const ok = await verifyPassword(row?.password_hash ?? null, input.password);
+  if (!row || !ok) {
+    throw new UnauthorizedError('That e-mail and password do not match an account', 'invalid_credentials');
+  }
+  return { id: row.id, email: row.email, displayName: row.display_name };
+}

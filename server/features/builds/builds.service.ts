@@ -1,0 +1,38 @@
+import type { Knex } from 'knex';
+import { can } from '../../../shared/permissions';
+import type { CreateBuildInput, UpdateBuildInput } from '../../../shared/schemas/builds';
+import { stripMoney } from '../../lib/money-filter';
+import { NotFoundError } from '../../lib/errors';
+import { insertMember } from '../members/members.repository';
+import * as repo from './builds.repository';
+
+/** My builds, each shown as my role on it allows (money only where I own it). */
+export async function listMine(knex: Knex, userId: string) {
+  const builds = await repo.listBuildsForUser(knex, userId);
+  return builds.map((b) => (can(b.myRole, 'money:read') ? b : stripMoney(b)));
+}
+
+export async function get(knex: Knex, buildId: string, userId: string) {
+  const build = await repo.findBuildForUser(knex, buildId, userId);
+  if (!build) throw new NotFoundError('Build not found');
+  return build;
+}
+
+/** The build and its first owner are written together or not at all. */
+export async function create(knex: Knex, userId: string, input: CreateBuildInput) {
+  const id = await knex.transaction(async (trx) => {
+    const buildId = await repo.insertBuild(trx, input);
+    await insertMember(trx, buildId, userId, 'owner');
+    return buildId;
+  });
+  return get(knex, id, userId);
+}
+
+export async function update(knex: Knex, buildId: string, userId: string, input: UpdateBuildInput) {
+  await repo.updateBuild(knex, buildId, input);
+  return get(knex, buildId, userId);
+}
+
+export async function remove(knex: Knex, buildId: string) {
+  await repo.deleteBuild(knex, buildId);
+}

@@ -1,0 +1,15 @@
+import { Router } from 'express';
+import type { AppDeps } from '../../app';
+
+export function healthRouter({ db }: AppDeps) {
+  const router = Router();
+  router.get('/', async (_req, res) => {
+    try {
+      await db.knex.raw('select 1');
+      res.json({ ok: true });
+    } catch {
+      res.status(503).json({ ok: false, error: { code: 'database_unavailable', message: 'The database is not answering' } });
+    }
+  });
+  return router;
+}

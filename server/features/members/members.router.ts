@@ -1,0 +1,28 @@
+import { Router } from 'express';
+import { addMemberInputSchema, updateMemberInputSchema } from '../../../shared/schemas/builds';
+import type { AppDeps } from '../../app';
+import { buildAccess } from '../../middleware/build-access';
+import { validate } from '../../middleware/validate';
+import * as service from './members.service';
+
+/** Mounted at /api/builds/:buildId/members. */
+export function membersRouter({ db }: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const knex = db.knex;
+
+  router.get('/', buildAccess(knex, 'members:read'), async (req, res) => {
+    res.json({ members: await service.list(knex, req.membership!.buildId, req.membership!.role) });
+  });
+  router.post('/', buildAccess(knex, 'members:manage'), validate({ body: addMemberInputSchema }), async (req, res) => {
+    res.status(201).json({ member: await service.add(knex, req.membership!.buildId, req.body) });
+  });
+  router.patch('/:userId', buildAccess(knex, 'members:manage'), validate({ body: updateMemberInputSchema }), async (req, res) => {
+    res.json({ member: await service.changeRole(knex, req.membership!.buildId, String(req.params.userId), req.body) });
+  });
+  router.delete('/:userId', buildAccess(knex, 'members:manage'), async (req, res) => {
+    await service.remove(knex, req.membership!.buildId, String(req.params.userId));
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,68 @@
+import type { Knex } from 'knex';
+import { can, type Role } from '../../../shared/permissions';
+import type { AddMemberInput, UpdateMemberInput } from '../../../shared/schemas/builds';
+import { idSchema } from '../../../shared/schemas/common';
+import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
+import { findUserByEmail } from '../auth/auth.repository';
+import * as repo from './members.repository';
+
+function present(member: repo.MemberRecord, viewerRole: Role) {
+  // E-mail addresses are for the owner, who manages access; others see names and roles.
+  if (can(viewerRole, 'members:manage')) return member;
+  const { email: _email, ...rest } = member;
+  return rest;
+}
+
+export async function list(knex: Knex, buildId: string, viewerRole: Role) {
+  const members = await repo.listMembers(knex, buildId);
+  return members.map((m) => present(m, viewerRole));
+}
+
+export async function add(knex: Knex, buildId: string, input: AddMemberInput) {
+  const user = await findUserByEmail(knex, input.email);
+  if (!user) {
+    throw new ValidationError('No Headroom account uses that e-mail', {
+      email: 'No Headroom account uses this e-mail yet — ask them to create one first',
+    });
+  }
+  const added = await repo.insertMember(knex, buildId, user.id, input.role);
+  if (!added) {
+    throw new ConflictError('already_member', 'That person is already on this build', {
+      email: 'Already on this build — change their role in the list instead',
+    });
+  }
+  return (await repo.findMember(knex, buildId, user.id))!;
+}
+
+function memberId(raw: string) {
+  const parsed = idSchema.safeParse(raw);
+  if (!parsed.success) throw new NotFoundError('Member not found');
+  return parsed.data;
+}
+
+const lastOwner = () =>
+  new ConflictError('last_owner', 'A build needs at least one owner. Make someone else owner first.');
+
+/** Role changes and removals run in a transaction that locks the owners, so a build never loses its last one. */
+export async function changeRole(knex: Knex, buildId: string, rawUserId: string, input: UpdateMemberInput) {
+  const userId = memberId(rawUserId);
+  return knex.transaction(async (trx) => {
+    const member = await repo.findMember(trx, buildId, userId);
+    if (!member) throw new NotFoundError('Member not found');
+    const owners = await repo.lockOwners(trx, buildId);
+    if (member.role === 'owner' && input.role !== 'owner' && owners.length <= 1) throw lastOwner();
+    await repo.updateMemberRole(trx, buildId, userId, input.role);
+    return (await repo.findMember(trx, buildId, userId))!;
+  });
+}
+
+export async function remove(knex: Knex, buildId: string, rawUserId: string) {
+  const userId = memberId(rawUserId);
+  await knex.transaction(async (trx) => {
+    const member = await repo.findMember(trx, buildId, userId);
+    if (!member) throw new NotFoundError('Member not found');
+    const owners = await repo.lockOwners(trx, buildId);
+    if (member.role === 'owner' && owners.length <= 1) throw lastOwner();
+    await repo.deleteMember(trx, buildId, userId);
+  });
+}

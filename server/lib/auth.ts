@@ -1,0 +1,94 @@
+/**
+ * Sessions and password hashing — the only module that knows lucia exists, so
+ * sessions can move to another library without touching routes or services.
+ */
+import { hash, verify } from '@node-rs/argon2';
+import { NodePostgresAdapter } from '@lucia-auth/adapter-postgresql';
+import { Lucia, TimeSpan } from 'lucia';
+import type { Request, Response } from 'express';
+import type pg from 'pg';
+
+export const SESSION_COOKIE = 'headroom_session';
+
+declare module 'lucia' {
+  interface Register {
+    Lucia: Lucia<Record<never, never>, { email: string; displayName: string }>;
+    DatabaseUserAttributes: { email: string; display_name: string };
+  }
+}
+
+export type SessionUser = { id: string; email: string; displayName: string };
+
+// OWASP's argon2id baseline (19 MiB, 2 passes, 1 lane); @node-rs/argon2 defaults to argon2id.
+const hashOptions = { memoryCost: 19456, timeCost: 2, parallelism: 1 };
+
+export async function hashPassword(password: string): Promise<string> {
+  return hash(password, hashOptions);
+}
+
+// Checked when no account matches, so a wrong e-mail costs as long as a wrong password.
+let dummyHash: Promise<string> | undefined;
+
+export async function verifyPassword(storedHash: string | null, password: string): Promise<boolean> {
+  if (!storedHash) {
+    dummyHash ??= hashPassword('not-a-real-password-for-timing');
+    await verify(await dummyHash, password).catch(() => false);
+    return false;
+  }
+  return verify(storedHash, password).catch(() => false);
+}
+
+export function createSessions(pool: pg.Pool) {
+  const adapter = new NodePostgresAdapter(pool, { user: 'users', session: 'user_sessions' });
+  const lucia = new Lucia(adapter, {
+    // Sessions last 30 days and lucia extends them when used in their second half.
+    sessionExpiresIn: new TimeSpan(30, 'd'),
+    sessionCookie: { name: SESSION_COOKIE, attributes: { sameSite: 'lax' } },
+    getUserAttributes: (a) => ({ email: a.email, displayName: a.display_name }),
+  });
+
+  function writeCookie(req: Request, res: Response, cookie: ReturnType<Lucia['createSessionCookie']>) {
+    res.cookie(cookie.name, cookie.value, {
+      httpOnly: true,
+      sameSite: 'lax',
+      path: '/',
+      secure: req.secure,
+      maxAge: (cookie.attributes.maxAge ?? 0) * 1000,
+    });
+  }
+
+  return {
+    async start(req: Request, res: Response, userId: string) {
+      const session = await lucia.createSession(userId, {});
+      writeCookie(req, res, lucia.createSessionCookie(session.id));
+      return session;
+    },
+
+    /** Reads the cookie, validates it and refreshes or clears it as lucia says. */
+    async resume(req: Request, res: Response): Promise<{ user: SessionUser; sessionId: string } | null> {
+      const id = lucia.readSessionCookie(req.headers.cookie ?? '');
+      if (!id) return null;
+      const { session, user } = await lucia.validateSession(id);
+      if (!session) {
+        writeCookie(req, res, lucia.createBlankSessionCookie());
+        return null;
+      }
+      if (session.fresh) writeCookie(req, res, lucia.createSessionCookie(session.id));
+      return { user: { id: user.id, email: user.email, displayName: user.displayName }, sessionId: session.id };
+    },
+
+    async end(req: Request, res: Response, sessionId: string) {
+      await lucia.invalidateSession(sessionId);
+      writeCookie(req, res, lucia.createBlankSessionCookie());
+    },
+
+    async endAllFor(userId: string) {
+      await lucia.invalidateUserSessions(userId);
+    },
+
+    async deleteExpired() {
+      await lucia.deleteExpiredSessions();
+    },
+  };
+}
+export type Sessions = ReturnType<typeof createSessions>;

@@ -1,0 +1,26 @@
+import type { RequestHandler } from 'express';
+import type { Knex } from 'knex';
+import { can, type Action } from '../../shared/permissions';
+import { idSchema } from '../../shared/schemas/common';
+import { ForbiddenError, NotFoundError, UnauthorizedError } from '../lib/errors';
+import { findRole } from '../features/members/members.repository';
+
+/**
+ * The one access check for everything under /api/builds/:buildId.
+ * Signed out → 401; not a member (or no such build) → 404, so a build's
+ * existence is never disclosed; a member whose role may not → 403.
+ * It also marks the response money-free for roles that may not see money.
+ */
+export function buildAccess(knex: Knex, action: Action): RequestHandler {
+  return async (req, res, next) => {
+    if (!req.user) throw new UnauthorizedError();
+    const parsed = idSchema.safeParse(req.params.buildId);
+    if (!parsed.success) throw new NotFoundError('Build not found');
+    const role = await findRole(knex, parsed.data, req.user.id);
+    if (!role) throw new NotFoundError('Build not found');
+    req.membership = { buildId: parsed.data, role };
+    res.locals.hideMoney = !can(role, 'money:read');
+    if (!can(role, action)) throw new ForbiddenError();
+    next();
+  };
+}

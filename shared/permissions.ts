@@ -1,0 +1,39 @@
+/**
+ * Who may do what on a build. One table, read by the server's access middleware
+ * (the authority) and by the client only to hide controls a role cannot use.
+ * Roles are per build: the same person can own one build and crew on another.
+ */
+export const roles = ['owner', 'crew', 'shop', 'viewer'] as const;
+export type Role = (typeof roles)[number];
+
+export const roleLabels: Record<Role, string> = {
+  owner: 'Owner',
+  crew: 'Crew',
+  shop: 'Shop',
+  viewer: 'Viewer',
+};
+
+export const roleDescriptions: Record<Role, string> = {
+  owner: 'Everything, including money, members and deleting the build',
+  crew: 'Works on the truck: parts without money, install steps, torque, photos',
+  shop: 'A specialist shop: only the parts sent to it and its own quote',
+  viewer: 'Follows along: reads everything except money, changes nothing',
+};
+
+const everyone: readonly Role[] = roles;
+const ownerOnly: readonly Role[] = ['owner'];
+
+export const permissions = {
+  'build:read': everyone,
+  'build:update': ownerOnly,
+  'build:delete': ownerOnly,
+  'members:read': everyone,
+  'members:manage': ownerOnly,
+  'money:read': ownerOnly,
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof permissions;
+
+export function can(role: Role, action: Action): boolean {
+  return (permissions[action] as readonly Role[]).includes(role);
+}

@@ -1,0 +1,130 @@
+import { z } from 'zod';
+import { roles } from '../permissions';
+import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
+import { emailSchema } from './auth';
+
+export const aspirations = [
+  'naturally-aspirated',
+  'single-turbo',
+  'twin-turbo',
+  'compound-turbo',
+  'supercharged',
+] as const;
+export const aspirationLabels: Record<(typeof aspirations)[number], string> = {
+  'naturally-aspirated': 'Naturally aspirated',
+  'single-turbo': 'Single turbo',
+  'twin-turbo': 'Twin turbo (parallel)',
+  'compound-turbo': 'Compound turbos',
+  supercharged: 'Supercharged',
+};
+
+export const powerBases = ['crank', 'wheel'] as const;
+export const powerBasisLabels: Record<(typeof powerBases)[number], string> = {
+  crank: 'crank hp',
+  wheel: 'wheel hp',
+};
+
+const optionalNumber = (schema: z.ZodNumber) => schema.nullable().optional();
+
+/** The fields an owner types in; used by the create and edit forms and by the server. */
+export const buildFieldsSchema = z.object({
+  name: trimmed(120, 'Name').min(1, { message: 'Give the build a name' }),
+  vehicleYear: optionalNumber(
+    z
+      .number({ message: 'Enter a year' })
+      .int({ message: 'Enter a whole year' })
+      .min(1950, { message: 'Year must be 1950 or later' })
+      .max(2100, { message: 'Year must be 2100 or earlier' }),
+  ),
+  vehicleDescription: trimmed(200, 'Vehicle').optional(),
+  engineDescription: trimmed(200, 'Engine').optional(),
+  displacementLiters: optionalNumber(
+    z
+      .number({ message: 'Enter litres, e.g. 6.7' })
+      .min(0.5, { message: 'At least 0.5 L' })
+      .max(20, { message: 'At most 20 L' }),
+  ),
+  cylinders: z
+    .number({ message: 'Enter the number of cylinders' })
+    .int({ message: 'Cylinders is a whole number' })
+    .min(1, { message: 'At least 1 cylinder' })
+    .max(16, { message: 'At most 16 cylinders' }),
+  aspiration: z.enum(aspirations, { message: 'Choose an aspiration from the list' }),
+  transmission: trimmed(200, 'Transmission').optional(),
+  stockPowerHp: optionalNumber(
+    z
+      .number({ message: 'Enter horsepower' })
+      .positive({ message: 'Power must be above zero' })
+      .max(5000, { message: 'At most 5000 hp' }),
+  ),
+  stockPowerBasis: z.enum(powerBases, { message: 'Choose crank or wheel' }).optional(),
+  targetPowerHp: z
+    .number({ message: 'Enter the target horsepower' })
+    .positive({ message: 'Power must be above zero' })
+    .max(5000, { message: 'At most 5000 hp' }),
+  targetPowerBasis: z.enum(powerBases, { message: 'Choose crank or wheel' }),
+  targetTorqueLbft: optionalNumber(
+    z
+      .number({ message: 'Enter torque in lbf·ft' })
+      .positive({ message: 'Torque must be above zero' })
+      .max(10000, { message: 'At most 10000 lbf·ft' }),
+  ),
+  targetDate: isoDateSchema.nullable().optional(),
+  targetEvent: trimmed(200, 'Event').optional(),
+  budgetCents: centsSchema.optional(),
+  currency: currencySchema.optional(),
+});
+
+export const createBuildInputSchema = buildFieldsSchema.strict();
+export type CreateBuildInput = z.infer<typeof createBuildInputSchema>;
+
+export const updateBuildInputSchema = buildFieldsSchema
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' });
+export type UpdateBuildInput = z.infer<typeof updateBuildInputSchema>;
+
+export const roleSchema = z.enum(roles, { message: 'Choose owner, crew, shop or viewer' });
+
+/** A build as the API returns it. budgetCents is absent for roles that may not see money. */
+export type Build = {
+  name: string;
+  vehicleYear: number | null;
+  vehicleDescription: string;
+  engineDescription: string;
+  displacementLiters: number | null;
+  cylinders: number;
+  aspiration: (typeof aspirations)[number];
+  transmission: string;
+  stockPowerHp: number | null;
+  stockPowerBasis: (typeof powerBases)[number];
+  targetPowerHp: number;
+  targetPowerBasis: (typeof powerBases)[number];
+  targetTorqueLbft: number | null;
+  targetDate: string | null;
+  targetEvent: string;
+  budgetCents?: number;
+  currency: (typeof currencies)[number];
+  id: string;
+  myRole: (typeof roles)[number];
+  memberCount: number;
+  createdAt: string;
+  updatedAt: string;
+};
+
+export const addMemberInputSchema = z
+  .object({ email: emailSchema, role: roleSchema })
+  .strict();
+export type AddMemberInput = z.infer<typeof addMemberInputSchema>;
+
+export const updateMemberInputSchema = z.object({ role: roleSchema }).strict();
+export type UpdateMemberInput = z.infer<typeof updateMemberInputSchema>;
+
+/** A member as the API returns it; email only for owners. */
+export type Member = {
+  userId: string;
+  displayName: string;
+  email?: string;
+  role: (typeof roles)[number];
+  joinedAt: string;
+};

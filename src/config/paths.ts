@@ -1,0 +1,39 @@
+/** Every client URL in one place. `path` is the router pattern, `getHref` builds a link. */
+
+function withNext(base: string, next?: string | null): string {
+  return next && next !== '/' ? `${base}?next=${encodeURIComponent(next)}` : base;
+}
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  auth: {
+    signIn: { path: '/sign-in', getHref: (next?: string | null) => withNext('/sign-in', next) },
+    signUp: { path: '/sign-up', getHref: (next?: string | null) => withNext('/sign-up', next) },
+  },
+  builds: {
+    list: { path: '/builds', getHref: () => '/builds' },
+    new: { path: '/builds/new', getHref: () => '/builds/new' },
+    overview: {
+      path: '/builds/:buildId',
+      getHref: (buildId: string) => `/builds/${encodeURIComponent(buildId)}`,
+    },
+    edit: {
+      path: '/builds/:buildId/edit',
+      getHref: (buildId: string) => `/builds/${encodeURIComponent(buildId)}/edit`,
+    },
+  },
+} as const;
+
+/**
+ * A `?next=` value is only followed when it is a path on this site; anything else
+ * (another origin, a protocol-relative `//host`) falls back to the builds list.
+ */
+export function safeNext(next: string | null | undefined): string {
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) {
+    return paths.builds.list.getHref();
+  }
+  if (next.startsWith(paths.auth.signIn.path) || next.startsWith(paths.auth.signUp.path)) {
+    return paths.builds.list.getHref();
+  }
+  return next;
+}

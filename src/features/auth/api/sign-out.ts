@@ -1,0 +1,18 @@
+import { useMutation } from '@tanstack/react-query';
+import { api, isApiError } from '../../../lib/api-client';
+import { useEndSession } from '../../../lib/auth';
+
+export async function signOut(): Promise<void> {
+  try {
+    await api.post<void>('/api/auth/sign-out', undefined, { expectUnauthorized: true });
+  } catch (error) {
+    // Already signed out (the session expired): the outcome the user asked for.
+    if (isApiError(error) && error.status === 401) return;
+    throw error;
+  }
+}
+
+export const useSignOut = () => {
+  const endSession = useEndSession();
+  return useMutation({ mutationFn: signOut, onSuccess: endSession });
+};

@@ -1,0 +1,113 @@
+import { apiErrorSchema } from '../../shared/schemas/common';
+
+/** An answer from the API that was not a success, or no answer at all (status 0). */
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly fields: Record<string, string> | undefined;
+
+  constructor(status: number, code: string, message: string, fields?: Record<string, string>) {
+    super(message);
+    this.name = 'ApiError';
+    this.status = status;
+    this.code = code;
+    this.fields = fields;
+  }
+}
+
+export function isApiError(error: unknown): error is ApiError {
+  return error instanceof ApiError;
+}
+
+let onUnauthorized: (() => void) | null = null;
+
+/**
+ * Called whenever a request that needs a session gets 401: the session ended (expired,
+ * signed out in another tab), so the app forgets the user and the route guard sends
+ * them to sign in.
+ */
+export function setUnauthorizedHandler(handler: (() => void) | null): void {
+  onUnauthorized = handler;
+}
+
+type RequestOptions = {
+  method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+  body?: unknown;
+  signal?: AbortSignal;
+  /** Sign-in and /api/me answer 401 as a normal outcome, not as "your session ended". */
+  expectUnauthorized?: boolean;
+};
+
+const fallbackMessages: Record<number, string> = {
+  400: 'Some of what was sent is not valid.',
+  401: 'Please sign in.',
+  403: 'Your role on this build does not allow that.',
+  404: 'Not found.',
+  409: 'That conflicts with the current state. Reload and try again.',
+  429: 'Too many attempts. Wait a moment and try again.',
+};
+
+async function readError(response: Response): Promise<ApiError> {
+  let body: unknown = null;
+  try {
+    body = await response.json();
+  } catch {
+    // A proxy or a crash page: not our JSON. Fall through to a generic message.
+  }
+  const parsed = apiErrorSchema.safeParse(body);
+  if (parsed.success) {
+    const { code, message, fields } = parsed.data.error;
+    return new ApiError(response.status, code, message, fields);
+  }
+  const message =
+    fallbackMessages[response.status] ??
+    (response.status >= 500
+      ? 'Something went wrong on our side. Try again in a moment.'
+      : `Request failed (${response.status}).`);
+  return new ApiError(response.status, `http_${response.status}`, message);
+}
+
+/** The one place the client talks HTTP. JSON in, JSON out, the session rides in the cookie. */
+export async function apiRequest<T>(path: string, options: RequestOptions = {}): Promise<T> {
+  const { method = 'GET', body, signal, expectUnauthorized = false } = options;
+  const headers: Record<string, string> = { Accept: 'application/json' };
+  if (body !== undefined) headers['Content-Type'] = 'application/json';
+
+  let response: Response;
+  try {
+    response = await fetch(path, {
+      method,
+      headers,
+      body: body === undefined ? undefined : JSON.stringify(body),
+      credentials: 'same-origin',
+      signal,
+    });
+  } catch (error) {
+    if (error instanceof DOMException && error.name === 'AbortError') throw error;
+    throw new ApiError(
+      0,
+      'network',
+      'Could not reach Headroom. Check your connection and try again.',
+    );
+  }
+
+  if (!response.ok) {
+    const error = await readError(response);
+    if (response.status === 401 && !expectUnauthorized) onUnauthorized?.();
+    throw error;
+  }
+  if (response.status === 204) return undefined as T;
+  const text = await response.text();
+  return (text ? JSON.parse(text) : undefined) as T;
+}
+
+export const api = {
+  get: <T>(path: string, options?: Omit<RequestOptions, 'method' | 'body'>) =>
+    apiRequest<T>(path, { ...options, method: 'GET' }),
+  post: <T>(path: string, body?: unknown, options?: Omit<RequestOptions, 'method' | 'body'>) =>
+    apiRequest<T>(path, { ...options, method: 'POST', body }),
+  patch: <T>(path: string, body?: unknown, options?: Omit<RequestOptions, 'method' | 'body'>) =>
+    apiRequest<T>(path, { ...options, method: 'PATCH', body }),
+  delete: <T = void>(path: string, options?: Omit<RequestOptions, 'method' | 'body'>) =>
+    apiRequest<T>(path, { ...options, method: 'DELETE' }),
+};

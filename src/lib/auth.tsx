@@ -1,0 +1,71 @@
+import { useCallback, type ReactNode } from 'react';
+import { useQueryClient, type QueryClient } from '@tanstack/react-query';
+import { Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
+import type { User } from '../../shared/schemas/auth';
+import { getMeQueryOptions, useMe } from '../features/auth/api/get-me';
+import { paths } from '../config/paths';
+import { PageSpinner } from '../components/ui/spinner';
+import { ErrorState } from '../components/ui/states';
+
+const meKey = getMeQueryOptions().queryKey;
+
+/** Drops everything cached for the previous user, keeping only the session query itself. */
+function forgetUserData(queryClient: QueryClient): void {
+  queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== meKey[0] });
+}
+
+/** The session ended on the server (any 401): forget the user; the route guard does the rest. */
+export function handleSessionEnded(queryClient: QueryClient): void {
+  queryClient.setQueryData(meKey, null);
+}
+
+/** After sign-in or sign-up: cache the user; the auth pages then redirect on their own. */
+export function useStartSession() {
+  const queryClient = useQueryClient();
+  return useCallback(
+    (user: User) => {
+      forgetUserData(queryClient);
+      queryClient.setQueryData(meKey, user);
+    },
+    [queryClient],
+  );
+}
+
+export function useEndSession() {
+  const queryClient = useQueryClient();
+  const navigate = useNavigate();
+  return useCallback(() => {
+    // Leave the guarded pages first so the guard does not add a ?next= back to them.
+    navigate(paths.auth.signIn.getHref(), { replace: true });
+    queryClient.setQueryData(meKey, null);
+    forgetUserData(queryClient);
+  }, [navigate, queryClient]);
+}
+
+/** The signed-in user; only call below <RequireAuth>, where it is known to be present. */
+export function useUser(): User {
+  const { data } = useMe();
+  if (!data) throw new Error('useUser() needs a signed-in user (use it inside <RequireAuth>)');
+  return data;
+}
+
+/** Route guard: shows its children only to a signed-in user, else goes to sign-in with ?next=. */
+export function RequireAuth({ children }: { children?: ReactNode }) {
+  const me = useMe();
+  const location = useLocation();
+  if (me.isPending) return <PageSpinner label="Checking your session…" />;
+  if (me.isError && me.data === undefined) {
+    return (
+      <ErrorState
+        title="Could not check your session"
+        error={me.error}
+        onRetry={() => void me.refetch()}
+      />
+    );
+  }
+  if (!me.data) {
+    const next = `${location.pathname}${location.search}`;
+    return <Navigate to={paths.auth.signIn.getHref(next)} replace />;
+  }
+  return children ?? <Outlet />;
+}

@@ -1,0 +1,12 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    include: ['tests/**/*.test.ts', 'tests/**/*.test.tsx'],
+    globalSetup: ['tests/helpers/global-setup.ts'],
+    testTimeout: 20_000,
+    hookTimeout: 30_000,
+    // Two cores: more workers only make argon2 hashing in parallel tests slower.
+    maxWorkers: 2,
+  },
+});
