@@ -1,0 +1,50 @@
+import { defineConfig, devices } from '@playwright/test';
+import fs from 'node:fs';
+
+// Debian's Chromium; Playwright never downloads a browser here.
+const chromium = ['/usr/lib/chromium/chromium', '/usr/bin/chromium'].find((p) => fs.existsSync(p));
+const port = Number(process.env.E2E_PORT ?? 3100);
+const baseURL = `http://127.0.0.1:${port}`;
+
+export default defineConfig({
+  testDir: 'e2e',
+  timeout: 60_000,
+  expect: { timeout: 10_000 },
+  fullyParallel: false,
+  workers: 1,
+  retries: process.env.CI ? 1 : 0,
+  outputDir: 'test-results',
+  use: {
+    baseURL,
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+    launchOptions: {
+      executablePath: chromium,
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-dev-shm-usage',
+        '--disable-quic',
+        '--no-first-run',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
+    },
+  },
+  projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'] } }],
+  webServer: {
+    // npm test has built the client and migrated the database in DATABASE_URL.
+    command: 'node --import tsx server/index.ts',
+    url: `${baseURL}/api/health`,
+    reuseExistingServer: false,
+    timeout: 60_000,
+    env: {
+      PORT: String(port),
+      NODE_ENV: 'test',
+      AUTH_RATE_LIMIT: '1000',
+      LOG_LEVEL: 'warn',
+      DATABASE_URL: process.env.DATABASE_URL ?? '',
+    },
+  },
+});

@@ -1,0 +1,83 @@
+import { Suspense } from 'react';
+import { Link, Outlet, useLocation } from 'react-router-dom';
+import { LogOut, UserRound } from 'lucide-react';
+import { useMe } from '../../features/auth/api/get-me';
+import { useSignOut } from '../../features/auth/api/sign-out';
+import { paths } from '../../config/paths';
+import { Button, ButtonLink } from '../ui/button';
+import { Wordmark } from '../ui/logo';
+import { PageSpinner } from '../ui/spinner';
+
+function SignOutButton() {
+  const signOut = useSignOut();
+  return (
+    <Button
+      variant="on-ink"
+      size="sm"
+      pending={signOut.isPending}
+      icon={<LogOut aria-hidden className="size-4" />}
+      onClick={() => signOut.mutate()}
+      title={signOut.isError ? 'Sign-out failed; try again' : undefined}
+    >
+      Sign out
+    </Button>
+  );
+}
+
+function Header() {
+  const me = useMe();
+  const { pathname } = useLocation();
+  const onAuthPage = pathname === paths.auth.signIn.path || pathname === paths.auth.signUp.path;
+  const user = me.data;
+  return (
+    <header className="bg-ink text-white">
+      <div className="mx-auto flex min-h-16 max-w-5xl items-center justify-between gap-3 px-4">
+        <Link
+          to={user ? paths.builds.list.getHref() : paths.home.getHref()}
+          className="-ml-1 flex min-h-11 items-center rounded px-1"
+          aria-label="Headroom, home"
+        >
+          <Wordmark />
+        </Link>
+        {user ? (
+          <div className="flex min-w-0 items-center gap-2 sm:gap-3">
+            <span className="flex min-w-0 items-center gap-1.5 text-white/85" title={user.email}>
+              <UserRound aria-hidden className="size-4 shrink-0" />
+              <span className="max-w-[7.5rem] truncate sm:max-w-[14rem]" data-testid="signed-in-user">
+                {user.displayName}
+              </span>
+            </span>
+            <SignOutButton />
+          </div>
+        ) : (
+          !onAuthPage &&
+          !me.isPending && (
+            <ButtonLink to={paths.auth.signIn.getHref()} variant="on-ink" size="sm">
+              Sign in
+            </ButtonLink>
+          )
+        )}
+      </div>
+    </header>
+  );
+}
+
+/** Every page: the ink header, the page in the middle, a quiet footer. */
+export function RootLayout() {
+  return (
+    <div className="flex min-h-dvh flex-col">
+      <a
+        href="#main"
+        className="sr-only z-50 rounded bg-white px-3 py-2 text-ink focus:not-sr-only focus:absolute focus:top-2 focus:left-2"
+      >
+        Skip to content
+      </a>
+      <Header />
+      <main id="main" className="mx-auto w-full max-w-5xl flex-1 px-4 py-6 sm:py-8">
+        <Suspense fallback={<PageSpinner />}>
+          <Outlet />
+        </Suspense>
+      </main>
+    </div>
+  );
+}
