@@ -39,7 +39,10 @@ export function formatMoney(cents: number, currency: string, locale?: string): s
  */
 export function parseMoneyToCents(input: string, currency = 'USD'): number | null {
   const digits = minorUnitDigits(currency);
-  const text = input.trim().replace(/[\s,_]/g, '').replace(/^[$€£]/, '');
+  const text = input
+    .trim()
+    .replace(/[\s,_]/g, '')
+    .replace(/^[$€£]/, '');
   if (text === '') return null;
   const match = /^(\d*)(?:\.(\d*))?$/.exec(text);
   if (!match) return Number.NaN;
@@ -114,9 +117,11 @@ export function formatIsoDate(isoDate: string, locale?: string): string {
 export function formatTimestampDate(timestamp: string, locale?: string): string {
   const date = new Date(timestamp);
   if (Number.isNaN(date.getTime())) return timestamp;
-  return new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric' }).format(
-    date,
-  );
+  return new Intl.DateTimeFormat(locale, {
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+  }).format(date);
 }
 
 /** A number with grouping and at most `maxFractionDigits` decimals: 1234.5 → "1,234.5". */

@@ -30,6 +30,14 @@ export const permissions = {
   'members:read': everyone,
   'members:manage': ownerOnly,
   'money:read': ownerOnly,
+  // A shop reads only the parts sent to it; the parts service applies that filter.
+  'parts:read': everyone,
+  'parts:create': ownerOnly,
+  // Crew and shops change only a part's status and dates (partProgressFields).
+  'parts:update': ['owner', 'crew', 'shop'],
+  'parts:delete': ownerOnly,
+  'parts:import': ownerOnly,
+  'budget:read': ownerOnly,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof permissions;

@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { MulterError } from 'multer';
 import { ZodError } from 'zod';
 import { AppError } from '../lib/errors';
 import type { Logger } from '../lib/logger';
@@ -26,7 +27,12 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     if (res.headersSent) return;
     if (err instanceof AppError) {
       res.status(err.status).json({
-        error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) },
+        error: {
+          code: err.code,
+          message: err.message,
+          ...(err.fields ? { fields: err.fields } : {}),
+          ...('rows' in err ? { rows: err.rows } : {}),
+        },
       });
       return;
     }
@@ -34,6 +40,12 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       res.status(400).json({
         error: { code: 'invalid_input', message: 'Some fields need attention', fields: fieldsFromZod(err) },
       });
+      return;
+    }
+    if (err instanceof MulterError) {
+      const message =
+        err.code === 'LIMIT_FILE_SIZE' ? 'The file is too large' : `The upload was refused: ${err.message}`;
+      res.status(400).json({ error: { code: err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload', message } });
       return;
     }
     // body-parser errors carry a type and a status of their own.

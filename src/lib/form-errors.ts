@@ -11,7 +11,10 @@ export function applyServerErrors<T extends FieldValues>(
   knownFields: readonly Path<T>[],
 ): void {
   if (!isApiError(error)) {
-    setError('root.server', { type: 'server', message: 'Something unexpected happened. Try again.' });
+    setError('root.server', {
+      type: 'server',
+      message: 'Something unexpected happened. Try again.',
+    });
     return;
   }
   let placed = 0;

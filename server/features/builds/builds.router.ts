@@ -5,6 +5,7 @@ import { buildAccess } from '../../middleware/build-access';
 import { requireAuth } from '../../middleware/require-auth';
 import { validate } from '../../middleware/validate';
 import { membersRouter } from '../members/members.router';
+import { partsRouter } from '../parts/parts.router';
 import * as service from './builds.service';
 
 /** Mounted at /api/builds. */
@@ -30,5 +31,6 @@ export function buildsRouter(deps: AppDeps) {
   });
 
   router.use('/:buildId/members', membersRouter(deps));
+  router.use('/:buildId', partsRouter(deps));
   return router;
 }

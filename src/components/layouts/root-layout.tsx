@@ -27,7 +27,11 @@ function SignOutButton() {
 function Header() {
   const me = useMe();
   const { pathname } = useLocation();
-  const onAuthPage = pathname === paths.auth.signIn.path || pathname === paths.auth.signUp.path;
+  // The landing and auth pages carry their own sign-in links; one per page is enough.
+  const hideSignIn =
+    pathname === paths.home.path ||
+    pathname === paths.auth.signIn.path ||
+    pathname === paths.auth.signUp.path;
   const user = me.data;
   return (
     <header className="bg-ink text-white">
@@ -43,14 +47,17 @@ function Header() {
           <div className="flex min-w-0 items-center gap-2 sm:gap-3">
             <span className="flex min-w-0 items-center gap-1.5 text-white/85" title={user.email}>
               <UserRound aria-hidden className="size-4 shrink-0" />
-              <span className="max-w-[7.5rem] truncate sm:max-w-[14rem]" data-testid="signed-in-user">
+              <span
+                className="max-w-[7.5rem] truncate sm:max-w-[14rem]"
+                data-testid="signed-in-user"
+              >
                 {user.displayName}
               </span>
             </span>
             <SignOutButton />
           </div>
         ) : (
-          !onAuthPage &&
+          !hideSignIn &&
           !me.isPending && (
             <ButtonLink to={paths.auth.signIn.getHref()} variant="on-ink" size="sm">
               Sign in

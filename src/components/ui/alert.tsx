@@ -38,7 +38,11 @@ export function Alert({
   return (
     <div
       role={tone === 'error' ? 'alert' : 'status'}
-      className={cn('flex gap-2.5 rounded-md border px-3.5 py-3 text-[15px]', tones[tone].box, className)}
+      className={cn(
+        'flex gap-2.5 rounded-md border px-3.5 py-3 text-[15px]',
+        tones[tone].box,
+        className,
+      )}
     >
       {tones[tone].icon}
       <div className="min-w-0">

@@ -74,7 +74,14 @@ export function ButtonLink({
   ...rest
 }: ButtonLinkProps) {
   return (
-    <Link className={buttonClasses(variant, size, typeof className === 'string' ? className : undefined)} {...rest}>
+    <Link
+      className={buttonClasses(
+        variant,
+        size,
+        typeof className === 'string' ? className : undefined,
+      )}
+      {...rest}
+    >
       {icon}
       {children}
     </Link>

@@ -3,7 +3,12 @@ import { cn } from './cn';
 
 export function Card({ children, className }: { children: ReactNode; className?: string }) {
   return (
-    <div className={cn('rounded-lg border border-rule bg-sheet shadow-[0_1px_0_rgba(27,34,48,0.04)]', className)}>
+    <div
+      className={cn(
+        'rounded-lg border border-rule bg-sheet shadow-[0_1px_0_rgba(27,34,48,0.04)]',
+        className,
+      )}
+    >
       {children}
     </div>
   );
@@ -27,7 +32,11 @@ export function Section({
 }) {
   const headingId = id ? `${id}-title` : undefined;
   return (
-    <section aria-labelledby={headingId} id={id} className={cn('rounded-lg border border-rule bg-sheet', className)}>
+    <section
+      aria-labelledby={headingId}
+      id={id}
+      className={cn('rounded-lg border border-rule bg-sheet', className)}
+    >
       <div className="flex flex-wrap items-center justify-between gap-2 border-b border-rule px-4 py-2.5 sm:px-5">
         <h2 id={headingId} className="flex items-center gap-2 text-lg font-bold text-ink">
           {icon}

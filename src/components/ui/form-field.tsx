@@ -1,4 +1,11 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type Ref, type TextareaHTMLAttributes } from 'react';
+import {
+  useId,
+  type InputHTMLAttributes,
+  type ReactNode,
+  type SelectHTMLAttributes,
+  type Ref,
+  type TextareaHTMLAttributes,
+} from 'react';
 import { cn } from './cn';
 
 /** What a control needs from its field: an id for the label and the ids that describe it. */
@@ -62,7 +69,9 @@ export function TextInput({
   ref,
   ...rest
 }: InputHTMLAttributes<HTMLInputElement> & { ref?: Ref<HTMLInputElement> }) {
-  return <input ref={ref} className={cn(controlBase, 'border-rule-strong py-2', className)} {...rest} />;
+  return (
+    <input ref={ref} className={cn(controlBase, 'border-rule-strong py-2', className)} {...rest} />
+  );
 }
 
 export function SelectInput({
@@ -87,7 +96,13 @@ export function TextArea({
   ref,
   ...rest
 }: TextareaHTMLAttributes<HTMLTextAreaElement> & { ref?: Ref<HTMLTextAreaElement> }) {
-  return <textarea ref={ref} className={cn(controlBase, 'border-rule-strong py-2', className)} {...rest} />;
+  return (
+    <textarea
+      ref={ref}
+      className={cn(controlBase, 'border-rule-strong py-2', className)}
+      {...rest}
+    />
+  );
 }
 
 /** A titled group of fields inside a long form. */

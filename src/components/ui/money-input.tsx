@@ -23,7 +23,16 @@ function sameAmount(a: number | null | undefined, b: number | null | undefined):
  * An amount typed in currency units ("18500.00") held by the form as integer cents.
  * The text is parsed digit by digit (see parseMoneyToCents), never through a float.
  */
-export function MoneyInput({ value, onChange, onBlur, currency, name, ref, disabled, ...control }: MoneyInputProps) {
+export function MoneyInput({
+  value,
+  onChange,
+  onBlur,
+  currency,
+  name,
+  ref,
+  disabled,
+  ...control
+}: MoneyInputProps) {
   const [text, setText] = useState(() =>
     value == null || Number.isNaN(value) ? '' : centsToInput(value, currency),
   );

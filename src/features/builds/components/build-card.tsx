@@ -43,7 +43,10 @@ export function BuildCard({ build }: { build: Build }) {
 
 export function BuildCardSkeleton() {
   return (
-    <div aria-hidden className="flex h-36 animate-pulse flex-col gap-3 rounded-lg border border-rule bg-sheet p-4">
+    <div
+      aria-hidden
+      className="flex h-36 animate-pulse flex-col gap-3 rounded-lg border border-rule bg-sheet p-4"
+    >
       <div className="h-6 w-2/3 rounded bg-ink/10" />
       <div className="h-4 w-1/2 rounded bg-ink/10" />
       <div className="mt-auto h-5 w-1/3 rounded bg-ink/10" />

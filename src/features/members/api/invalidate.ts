@@ -10,7 +10,10 @@ import { getMembersQueryOptions } from './get-members';
 export async function invalidateMembership(queryClient: QueryClient, buildId: string) {
   await Promise.all([
     queryClient.invalidateQueries({ queryKey: getMembersQueryOptions(buildId).queryKey }),
-    queryClient.invalidateQueries({ queryKey: getBuildQueryOptions(buildId).queryKey, exact: true }),
+    queryClient.invalidateQueries({
+      queryKey: getBuildQueryOptions(buildId).queryKey,
+      exact: true,
+    }),
     queryClient.invalidateQueries({ queryKey: getBuildsQueryOptions().queryKey, exact: true }),
   ]);
 }

@@ -1,0 +1,143 @@
+import type { Knex } from 'knex';
+import { can, type Role } from '../../../shared/permissions';
+import { computeBudget } from '../../../shared/ledger/budget';
+import { partTotalCents } from '../../../shared/ledger/cost';
+import { sendOutStatus } from '../../../shared/ledger/send-out';
+import { idSchema } from '../../../shared/schemas/common';
+import {
+  createPartInputSchema,
+  partConsistencyIssues,
+  partProgressFields,
+  type CreatePartInput,
+  type Part,
+  type UpdatePartInput,
+} from '../../../shared/schemas/parts';
+import { AppError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
+import { fieldsFromZod } from '../../middleware/error-handler';
+import { findBuildForUser } from '../builds/builds.repository';
+import { parseCsv, partsToCsv } from './parts.csv';
+import * as repo from './parts.repository';
+
+export type Caller = { userId: string; role: Role };
+
+const today = () => new Date().toISOString().slice(0, 10);
+
+/** Full part with its total and send-out state; the money filter trims it per role. */
+function present(p: repo.PartRecord, now = today()): Part {
+  return { ...p, totalCents: partTotalCents(p), sendOut: sendOutStatus(p, now) };
+}
+
+/** A shop sees only what was sent to it. */
+function scope(caller: Caller) {
+  return caller.role === 'shop' ? { shopUserId: caller.userId } : {};
+}
+
+export async function list(knex: Knex, buildId: string, caller: Caller) {
+  const parts = await repo.listParts(knex, buildId, scope(caller));
+  const now = today();
+  return parts.map((p) => present(p, now));
+}
+
+async function load(knex: Knex, buildId: string, rawPartId: string, caller: Caller) {
+  const parsed = idSchema.safeParse(rawPartId);
+  if (!parsed.success) throw new NotFoundError('Part not found');
+  const part = await repo.findPart(knex, buildId, parsed.data);
+  // Another shop's part is as invisible as a part that does not exist.
+  if (!part || (caller.role === 'shop' && part.shopUserId !== caller.userId)) throw new NotFoundError('Part not found');
+  return part;
+}
+
+export async function get(knex: Knex, buildId: string, rawPartId: string, caller: Caller) {
+  return present(await load(knex, buildId, rawPartId, caller));
+}
+
+async function checkShop(knex: Knex, buildId: string, shopUserId: string | null | undefined) {
+  if (!shopUserId) return;
+  const shops = await repo.shopMembers(knex, buildId);
+  if (!shops.some((s) => s.user_id === shopUserId)) {
+    throw new ValidationError('That shop is not on this build', { shopUserId: 'Choose a shop member of this build' });
+  }
+}
+
+function checkConsistency(merged: Partial<CreatePartInput>) {
+  const issues = partConsistencyIssues(merged);
+  if (Object.keys(issues).length) throw new ValidationError('Some fields contradict each other', issues);
+}
+
+export async function create(knex: Knex, buildId: string, input: CreatePartInput) {
+  checkConsistency(input);
+  await checkShop(knex, buildId, input.shopUserId);
+  const [id] = await repo.insertParts(knex, buildId, [input]);
+  return present((await repo.findPart(knex, buildId, id))!);
+}
+
+export async function update(knex: Knex, buildId: string, rawPartId: string, caller: Caller, input: UpdatePartInput) {
+  const existing = await load(knex, buildId, rawPartId, caller);
+  if (caller.role !== 'owner') {
+    const allowed: readonly string[] = partProgressFields;
+    const refused = Object.keys(input).filter((k) => !allowed.includes(k));
+    if (refused.length) {
+      throw new ForbiddenError(`Your role may change only a part's status and dates (not ${refused.join(', ')})`);
+    }
+  }
+  checkConsistency({ ...existing, ...input });
+  await checkShop(knex, buildId, input.shopUserId);
+  await repo.updatePart(knex, buildId, existing.id, input);
+  return present((await repo.findPart(knex, buildId, existing.id))!);
+}
+
+export async function remove(knex: Knex, buildId: string, rawPartId: string, caller: Caller) {
+  const part = await load(knex, buildId, rawPartId, caller);
+  await repo.deletePart(knex, buildId, part.id);
+}
+
+export async function budget(knex: Knex, buildId: string, userId: string) {
+  const build = await findBuildForUser(knex, buildId, userId);
+  if (!build) throw new NotFoundError('Build not found');
+  const parts = await repo.listParts(knex, buildId);
+  return computeBudget(parts, build.budgetCents ?? 0, build.currency);
+}
+
+export async function exportCsv(knex: Knex, buildId: string, caller: Caller) {
+  const parts = await repo.listParts(knex, buildId, scope(caller));
+  const shops = await repo.shopMembers(knex, buildId);
+  return partsToCsv(parts, {
+    withMoney: can(caller.role, 'money:read'),
+    shopEmails: new Map(shops.map((s) => [s.user_id, s.email])),
+  });
+}
+
+export type ImportRowReport = { row: number; fields: Record<string, string> };
+
+/**
+ * Validates every row; saves all of them in one transaction, or none when any
+ * row fails. With dryRun, only reports what would be saved.
+ */
+export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dryRun: boolean) {
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
+  } catch {
+    throw new AppError(400, 'not_utf8', 'The file is not UTF-8 text. Save the CSV as UTF-8 and try again.');
+  }
+  const shops = await repo.shopMembers(knex, buildId);
+  const parsed = parseCsv(text, new Map(shops.map((s) => [s.email, s.user_id])));
+  if (!parsed.ok) throw new AppError(400, 'bad_csv', parsed.message);
+
+  const valid: CreatePartInput[] = [];
+  const failures: ImportRowReport[] = [];
+  for (const r of parsed.rows) {
+    const result = createPartInputSchema.safeParse(r.input);
+    const fields = { ...r.fields, ...(result.success ? partConsistencyIssues(result.data) : fieldsFromZod(result.error)) };
+    if (Object.keys(fields).length) failures.push({ row: r.row, fields });
+    else if (result.success) valid.push(result.data);
+  }
+  if (failures.length) {
+    const err = new AppError(400, 'invalid_rows', `${failures.length} of ${parsed.rows.length} rows need fixing; nothing was saved`);
+    Object.assign(err, { rows: failures });
+    throw err;
+  }
+  if (dryRun) return { saved: 0, rows: valid };
+  const ids = await knex.transaction((trx) => repo.insertParts(trx, buildId, valid));
+  return { saved: ids.length, rows: valid };
+}

@@ -1,0 +1,68 @@
+import { lazy } from 'react';
+import { createBrowserRouter, RouterProvider } from 'react-router-dom';
+import { paths } from '../config/paths';
+import { RequireAuth } from '../lib/auth';
+import { RootLayout } from '../components/layouts/root-layout';
+import { BuildsLayout } from '../components/layouts/builds-layout';
+import { RouteErrorPage } from './routes/route-error';
+import { NotFoundRoute } from './routes/not-found';
+
+// Each page is its own chunk; the first screen loads only what it shows.
+const LandingRoute = lazy(() =>
+  import('./routes/landing').then((m) => ({ default: m.LandingRoute })),
+);
+const SignInRoute = lazy(() =>
+  import('./routes/auth/sign-in').then((m) => ({ default: m.SignInRoute })),
+);
+const SignUpRoute = lazy(() =>
+  import('./routes/auth/sign-up').then((m) => ({ default: m.SignUpRoute })),
+);
+const BuildsListRoute = lazy(() =>
+  import('./routes/builds/builds-list').then((m) => ({ default: m.BuildsListRoute })),
+);
+const NewBuildRoute = lazy(() =>
+  import('./routes/builds/new-build').then((m) => ({ default: m.NewBuildRoute })),
+);
+const BuildOverviewRoute = lazy(() =>
+  import('./routes/builds/build-overview').then((m) => ({ default: m.BuildOverviewRoute })),
+);
+const EditBuildRoute = lazy(() =>
+  import('./routes/builds/edit-build').then((m) => ({ default: m.EditBuildRoute })),
+);
+
+const router = createBrowserRouter([
+  {
+    element: <RootLayout />,
+    errorElement: <RouteErrorPage />,
+    children: [
+      {
+        errorElement: <RouteErrorPage />,
+        children: [
+          { path: paths.home.path, element: <LandingRoute /> },
+          { path: paths.auth.signIn.path, element: <SignInRoute /> },
+          { path: paths.auth.signUp.path, element: <SignUpRoute /> },
+          {
+            element: <RequireAuth />,
+            children: [
+              {
+                path: paths.builds.list.path,
+                element: <BuildsLayout />,
+                children: [
+                  { index: true, element: <BuildsListRoute /> },
+                  { path: 'new', element: <NewBuildRoute /> },
+                  { path: ':buildId', element: <BuildOverviewRoute /> },
+                  { path: ':buildId/edit', element: <EditBuildRoute /> },
+                ],
+              },
+            ],
+          },
+          { path: '*', element: <NotFoundRoute /> },
+        ],
+      },
+    ],
+  },
+]);
+
+export function AppRouter() {
+  return <RouterProvider router={router} />;
+}

@@ -1,0 +1,69 @@
+import { useParams } from 'react-router-dom';
+import { Pencil } from 'lucide-react';
+import { can } from '../../../../shared/permissions';
+import { paths } from '../../../config/paths';
+import { useBuild } from '../../../features/builds/api/get-build';
+import {
+  BudgetSection,
+  TargetSection,
+  TruckSection,
+} from '../../../features/builds/components/build-details';
+import { vehicleLine } from '../../../features/builds/components/build-text';
+import { DeleteBuild } from '../../../features/builds/components/delete-build';
+import { RoleBadge } from '../../../features/builds/components/role-badge';
+import { MembersPanel } from '../../../features/members/components/members-panel';
+import { PageHeader } from '../../../components/layouts/page-header';
+import { ButtonLink } from '../../../components/ui/button';
+import { PageSpinner } from '../../../components/ui/spinner';
+import { BuildLoadError } from './build-states';
+
+/** "/builds/:buildId" — the build at a glance, and its people. */
+export function BuildOverviewRoute() {
+  const { buildId = '' } = useParams();
+  const build = useBuild(buildId);
+
+  if (build.isPending) return <PageSpinner label="Loading the build…" />;
+  if (build.isError) {
+    return <BuildLoadError error={build.error} onRetry={() => void build.refetch()} />;
+  }
+
+  const b = build.data;
+  const vehicle = vehicleLine(b);
+  const isOwner = can(b.myRole, 'build:update');
+
+  return (
+    <>
+      <title>{`${b.name} · Headroom`}</title>
+      <PageHeader
+        back={{ to: paths.builds.list.getHref(), label: 'My builds' }}
+        title={b.name}
+        subtitle={vehicle ? <span>{vehicle}</span> : undefined}
+        badges={<RoleBadge role={b.myRole} prefix="You: " />}
+        actions={
+          <>
+            {isOwner && (
+              <ButtonLink
+                to={paths.builds.edit.getHref(b.id)}
+                variant="secondary"
+                icon={<Pencil aria-hidden className="size-4" />}
+              >
+                Edit build
+              </ButtonLink>
+            )}
+            {can(b.myRole, 'build:delete') && <DeleteBuild build={b} />}
+          </>
+        }
+      />
+      <div className="grid gap-5 lg:grid-cols-2">
+        <TargetSection build={b} />
+        <div className="flex flex-col gap-5">
+          <TruckSection build={b} />
+          <BudgetSection build={b} />
+        </div>
+        <div className="lg:col-span-2">
+          <MembersPanel build={b} />
+        </div>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,76 @@
+import { Link } from 'react-router-dom';
+import { useForm, type Path } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { signInInputSchema } from '../../../../shared/schemas/auth';
+import { Button } from '../../../components/ui/button';
+import { FormField, TextInput } from '../../../components/ui/form-field';
+import { FormError } from '../../../components/ui/form-error';
+import { paths } from '../../../config/paths';
+import { applyServerErrors } from '../../../lib/form-errors';
+import { useSignIn } from '../api/sign-in';
+
+type Input = z.input<typeof signInInputSchema>;
+type Output = z.output<typeof signInInputSchema>;
+const fieldNames: Path<Input>[] = ['email', 'password'];
+
+/** On success the session is cached and the sign-in page redirects to `next`. */
+export function SignInForm({ next }: { next: string | null }) {
+  const signIn = useSignIn();
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(signInInputSchema),
+    defaultValues: { email: '', password: '' },
+  });
+
+  const submit = handleSubmit(async (values) => {
+    try {
+      await signIn.mutateAsync(values);
+    } catch (error) {
+      applyServerErrors(error, setError, fieldNames);
+    }
+  });
+
+  return (
+    <form onSubmit={submit} noValidate className="flex flex-col gap-4">
+      <FormField label="E-mail" error={errors.email?.message}>
+        {(c) => (
+          <TextInput
+            {...c}
+            {...register('email')}
+            type="email"
+            autoComplete="email"
+            inputMode="email"
+          />
+        )}
+      </FormField>
+      <FormField label="Password" error={errors.password?.message}>
+        {(c) => (
+          <TextInput
+            {...c}
+            {...register('password')}
+            type="password"
+            autoComplete="current-password"
+          />
+        )}
+      </FormField>
+      <FormError message={errors.root?.server?.message} />
+      <Button type="submit" pending={isSubmitting} className="w-full">
+        Sign in
+      </Button>
+      <p className="text-center text-ink-2">
+        New to Headroom?{' '}
+        <Link
+          to={paths.auth.signUp.getHref(next)}
+          className="inline-flex min-h-11 items-center font-semibold text-accent-700 underline"
+        >
+          Create account
+        </Link>
+      </p>
+    </form>
+  );
+}
