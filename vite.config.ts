@@ -9,7 +9,7 @@ const apiProxy = {
 
 export default defineConfig({
   plugins: [react()],
-  build: { outDir: 'dist', emptyOutDir: true, sourcemap: true },
+  build: { outDir: 'dist', emptyOutDir: true },
   server: { proxy: apiProxy },
   preview: { proxy: apiProxy },
 });

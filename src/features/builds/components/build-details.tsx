@@ -112,7 +112,7 @@ export function BudgetSection({ build }: { build: Build }) {
   if (!can(build.myRole, 'money:read')) return null;
   return (
     <Section id="budget" title="Budget" icon={<Wallet aria-hidden className="size-5 text-ink-3" />}>
-      {typeof build.budgetCents === 'number' ? (
+      {typeof build.budgetCents === 'number' && build.budgetCents > 0 ? (
         <p className="text-3xl font-bold tabular-nums">
           {formatMoney(build.budgetCents, build.currency)}
           <span className="ml-2 text-base font-semibold text-muted">{build.currency}</span>

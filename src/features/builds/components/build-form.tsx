@@ -78,7 +78,8 @@ export function buildToFormValues(build: Build): DefaultValues<BuildFormInput> {
     targetTorqueLbft: build.targetTorqueLbft,
     targetDate: build.targetDate,
     targetEvent: build.targetEvent ?? '',
-    budgetCents: build.budgetCents ?? undefined,
+    // The server stores "no budget" as 0; show it as an empty box.
+    budgetCents: build.budgetCents ? build.budgetCents : undefined,
     currency: build.currency,
   };
 }
@@ -132,7 +133,9 @@ export function BuildForm({
 
   const submit = handleSubmit(async (values) => {
     try {
-      await onSubmit(values);
+      // An empty budget box means "no budget", which the API stores as 0. Sending 0 rather
+      // than leaving the field out lets an edit clear a budget that was set before.
+      await onSubmit({ ...values, budgetCents: values.budgetCents ?? 0 });
     } catch (error) {
       applyServerErrors(error, setError, fieldNames);
     }
