@@ -15,6 +15,7 @@ import { originCheck } from './middleware/origin-check';
 import { loadSession } from './middleware/require-auth';
 import { authRouter, meRouter } from './features/auth/auth.router';
 import { buildsRouter } from './features/builds/builds.router';
+import { estimateRouter } from './features/estimate/estimate.router';
 import { healthRouter } from './features/health/health.router';
 
 export type AppDeps = { db: Database; config: AppConfig; logger: Logger; sessions: Sessions };
@@ -37,7 +38,17 @@ export function createApp(opts: { db: Database; config: AppConfig; logger?: Logg
       strictTransportSecurity: opts.config.trustProxy,
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: opts.config.env !== 'test' }));
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: opts.config.env !== 'test' && { ignore: (req) => req.url === '/api/health' },
+      // One short line a request: never headers (cookies) or bodies (passwords).
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+    }),
+  );
 
   const api = express.Router();
   api.use(express.json({ limit: '2mb' }));
@@ -48,6 +59,7 @@ export function createApp(opts: { db: Database; config: AppConfig; logger?: Logg
   api.use('/auth', authRouter(deps));
   api.use('/me', meRouter());
   api.use('/builds', buildsRouter(deps));
+  api.use('/estimate', estimateRouter(deps));
   api.use(notFoundApi);
   api.use(errorHandler(logger));
   app.use('/api', api);

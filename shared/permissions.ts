@@ -38,6 +38,20 @@ export const permissions = {
   'parts:delete': ownerOnly,
   'parts:import': ownerOnly,
   'budget:read': ownerOnly,
+  // The estimate holds no money: every member reads it; only the owner edits its assumptions.
+  'estimate:read': everyone,
+  'assumptions:update': ownerOnly,
+  // Install log. A shop reads only the steps linked to its parts; the install-log service applies that.
+  'install:read': everyone,
+  'install:write': ['owner', 'crew'],
+  'install:delete': ownerOnly,
+  // Sign off over blockers (with a reason), and reopen a signed-off step.
+  'install:override': ownerOnly,
+  // Photo log. A shop sees and adds photos only for its parts (and the steps linked to them).
+  'photos:read': everyone,
+  'photos:upload': ['owner', 'crew', 'shop'],
+  'photos:update': ['owner', 'crew', 'shop'],
+  'photos:delete': ownerOnly,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof permissions;

@@ -3,6 +3,13 @@ import * as m0001 from './20261202000100_create_users_and_sessions';
 import * as m0002 from './20261202000200_create_builds_and_members';
 import * as m0003 from './20261202000300_create_rate_limit_hits';
 import * as m0010 from './20261202001000_create_parts';
+import * as m0020 from './20261202002000_create_build_assumptions';
+import * as m0030 from './20261202003000_create_mail_outbox';
+import * as m0031 from './20261202003100_create_build_invitations';
+import * as m0032 from './20261202003200_create_password_resets';
+import * as m0033 from './20261202003300_create_notice_preferences';
+import * as m0040 from './20261202004000_create_install_log';
+import * as m0041 from './20261202004100_create_photos';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -15,6 +22,13 @@ const migrations: Record<string, Migration> = {
   '20261202000200_create_builds_and_members': m0002,
   '20261202000300_create_rate_limit_hits': m0003,
   '20261202001000_create_parts': m0010,
+  '20261202002000_create_build_assumptions': m0020,
+  '20261202003000_create_mail_outbox': m0030,
+  '20261202003100_create_build_invitations': m0031,
+  '20261202003200_create_password_resets': m0032,
+  '20261202003300_create_notice_preferences': m0033,
+  '20261202004000_create_install_log': m0040,
+  '20261202004100_create_photos': m0041,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -40,9 +40,7 @@ const assumptionFields = {
     .positive({ message: 'Brake specific fuel consumption is above zero' })
     .max(1000, { message: 'That is far too large for a brake specific fuel consumption' })
     .optional(),
-  bsfcUnit: z
-    .enum(bsfcUnits, { message: 'Choose lb/(hp·h) or g/kWh' })
-    .default('lb-per-hp-h'),
+  bsfcUnit: z.enum(bsfcUnits, { message: 'Choose lb/(hp·h) or g/kWh' }).default('lb-per-hp-h'),
   afr: assumptionNumber(assumptionSpecs.afr, 'air–fuel ratio'),
   fuelDensityKgPerL: assumptionNumber(assumptionSpecs.fuelDensityKgPerL, 'fuel density in kg/L'),
   drivetrainLossPct: assumptionNumber(assumptionSpecs.drivetrainLossPct, 'drivetrain loss in %'),
@@ -146,7 +144,8 @@ export const estimateRequestSchema = z
       .superRefine((components, ctx) => {
         const seen = new Set<string>();
         components.forEach((c, i) => {
-          if (seen.has(c.id)) ctx.addIssue({ code: 'custom', path: [i, 'id'], message: 'Ids must be unique' });
+          if (seen.has(c.id))
+            ctx.addIssue({ code: 'custom', path: [i, 'id'], message: 'Ids must be unique' });
           seen.add(c.id);
         });
       })

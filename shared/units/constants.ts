@@ -61,7 +61,8 @@ export const PS_W = 75 * STANDARD_GRAVITY_M_PER_S2;
 export const PSI_KPA = LBF_N / (INCH_M * INCH_M) / 1000;
 
 /** Conventional inch of mercury → kPa: 3.386389. NIST SP 811 (2008) B.8 prints 3.386389. */
-export const INHG_KPA = (MERCURY_CONVENTIONAL_KG_PER_M3 * STANDARD_GRAVITY_M_PER_S2 * INCH_M) / 1000;
+export const INHG_KPA =
+  (MERCURY_CONVENTIONAL_KG_PER_M3 * STANDARD_GRAVITY_M_PER_S2 * INCH_M) / 1000;
 
 /**
  * One lb/(hp·h) in g/kWh: 453.59237 g ÷ 0.74569987158227 kWh = 608.27739…

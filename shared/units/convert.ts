@@ -118,7 +118,11 @@ export type TemperatureUnit = (typeof temperatureUnits)[number];
  * Converts a temperature (an offset scale, so not a factor table):
  * t[°C] = (t[°F] − 32) / 1.8, T[K] = t[°C] + 273.15 (NIST SP 811 (2008) B.8, 4.2.1.1).
  */
-export function convertTemperature(value: number, from: TemperatureUnit, to: TemperatureUnit): number {
+export function convertTemperature(
+  value: number,
+  from: TemperatureUnit,
+  to: TemperatureUnit,
+): number {
   if (from === to) return value;
   const celsius = from === 'c' ? value : from === 'f' ? (value - 32) / 1.8 : value - 273.15;
   if (to === 'c') return celsius;

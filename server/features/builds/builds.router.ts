@@ -4,6 +4,7 @@ import type { AppDeps } from '../../app';
 import { buildAccess } from '../../middleware/build-access';
 import { requireAuth } from '../../middleware/require-auth';
 import { validate } from '../../middleware/validate';
+import { buildEstimateRouter } from '../estimate/estimate.router';
 import { membersRouter } from '../members/members.router';
 import { partsRouter } from '../parts/parts.router';
 import * as service from './builds.service';
@@ -32,5 +33,6 @@ export function buildsRouter(deps: AppDeps) {
 
   router.use('/:buildId/members', membersRouter(deps));
   router.use('/:buildId', partsRouter(deps));
+  router.use('/:buildId', buildEstimateRouter(deps));
   return router;
 }

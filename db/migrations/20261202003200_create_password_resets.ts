@@ -1,0 +1,18 @@
+import type { Knex } from 'knex';
+
+// Single-use password-reset links; only the SHA-256 hash of the token is kept.
+export async function up(knex: Knex): Promise<void> {
+  await knex.schema.createTable('password_resets', (t) => {
+    t.uuid('id').primary().defaultTo(knex.raw('gen_random_uuid()'));
+    t.uuid('user_id').notNullable().references('users.id').onDelete('CASCADE');
+    t.text('token_hash').notNullable().unique();
+    t.timestamp('expires_at', { useTz: true }).notNullable();
+    t.timestamp('used_at', { useTz: true });
+    t.timestamp('created_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
+    t.index(['user_id', 'created_at']);
+  });
+}
+
+export async function down(knex: Knex): Promise<void> {
+  await knex.schema.dropTable('password_resets');
+}

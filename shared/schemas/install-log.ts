@@ -1,0 +1,365 @@
+/**
+ * Install log: jobs made of ordered steps, each with a checklist, fastener
+ * specs and the torque readings the crew records. Input schemas are shared by
+ * the client forms and the server; response types describe what the API returns.
+ */
+import { z } from 'zod';
+import type { Caution } from '../install-log/cautions';
+import type { RetorqueState } from '../install-log/retorque';
+import type { SignOffBlocker } from '../install-log/sign-off';
+import { toleranceTypes, torqueUnits, type TorqueUnit, type Verdict } from '../install-log/torque';
+import { idSchema, trimmed } from './common';
+
+/** Headroom's own words for where a step is. */
+export const stepStatuses = ['not-started', 'under-way', 'signed-off'] as const;
+export type StepStatus = (typeof stepStatuses)[number];
+export const stepStatusLabels: Record<StepStatus, string> = {
+  'not-started': 'Not started',
+  'under-way': 'Under way',
+  'signed-off': 'Signed off',
+};
+/** Statuses a step can be set to by hand; signed-off only through the sign-off route. */
+export const settableStepStatuses = ['not-started', 'under-way'] as const;
+
+export const threadConditions = ['dry', 'oiled', 'anti-seize', 'sealant'] as const;
+export type ThreadCondition = (typeof threadConditions)[number];
+export const threadConditionLabels: Record<ThreadCondition, string> = {
+  dry: 'Dry',
+  oiled: 'Oiled',
+  'anti-seize': 'Anti-seize',
+  sealant: 'Thread sealant',
+};
+
+export const toleranceTypeLabels: Record<(typeof toleranceTypes)[number], string> = {
+  value: '± amount',
+  percent: '± %',
+};
+
+const position = z
+  .number({ message: 'Enter a position number' })
+  .int({ message: 'Position is a whole number' })
+  .min(1, { message: 'Positions start at 1' })
+  .max(1000, { message: 'At most 1000' });
+
+// ---- jobs -------------------------------------------------------------------
+
+export const createJobInputSchema = z
+  .object({
+    title: trimmed(160, 'Title').min(1, { message: 'Name the job' }),
+    notes: trimmed(4000, 'Notes').optional(),
+  })
+  .strict();
+export type CreateJobInput = z.infer<typeof createJobInputSchema>;
+
+export const updateJobInputSchema = createJobInputSchema
+  .extend({ position: position.optional() })
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' });
+export type UpdateJobInput = z.infer<typeof updateJobInputSchema>;
+
+// ---- steps ------------------------------------------------------------------
+
+const stepFields = {
+  title: trimmed(160, 'Title').min(1, { message: 'Name the step' }),
+  description: trimmed(8000, 'Description').optional(),
+  /** Parts of the same build this step fits. */
+  partIds: z.array(idSchema, { message: 'A list of part ids' }).max(50, { message: 'At most 50 parts' }).optional(),
+  /** The truck or its cab is off the ground for this step (shows the stands caution). */
+  liftsVehicle: z.boolean({ message: 'Yes or no' }).optional(),
+  /** 1-based place in the job; the others move to make room. Default: last. */
+  position: position.optional(),
+};
+
+export const createStepInputSchema = z.object(stepFields).strict();
+export type CreateStepInput = z.infer<typeof createStepInputSchema>;
+
+export const updateStepInputSchema = z
+  .object({
+    ...stepFields,
+    status: z.enum(settableStepStatuses, { message: 'Use the sign-off to finish a step' }),
+  })
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' });
+export type UpdateStepInput = z.infer<typeof updateStepInputSchema>;
+
+// ---- checklist --------------------------------------------------------------
+
+export const createChecklistItemInputSchema = z
+  .object({ label: trimmed(300, 'Check').min(1, { message: 'Say what to check' }) })
+  .strict();
+export type CreateChecklistItemInput = z.infer<typeof createChecklistItemInputSchema>;
+
+export const updateChecklistItemInputSchema = z
+  .object({
+    label: trimmed(300, 'Check').min(1, { message: 'Say what to check' }),
+    done: z.boolean({ message: 'Ticked is yes or no' }),
+  })
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' });
+export type UpdateChecklistItemInput = z.infer<typeof updateChecklistItemInputSchema>;
+
+// ---- fastener specs ---------------------------------------------------------
+
+const torqueValue = (label: string) =>
+  z
+    .number({ message: `Enter ${label}` })
+    .positive({ message: 'Torque is above zero' })
+    .max(100_000, { message: 'That torque is too large' });
+
+export const fastenerSpecFieldsSchema = z.object({
+  name: trimmed(160, 'Name').min(1, { message: 'Name the fastener, e.g. "Injector hold-down bolts"' }),
+  count: z
+    .number({ message: 'Enter how many' })
+    .int({ message: 'A whole number' })
+    .min(1, { message: 'At least 1' })
+    .max(100, { message: 'At most 100' }),
+  targetValue: torqueValue('the target torque'),
+  targetUnit: z.enum(torqueUnits, { message: 'Choose lbf·ft, lbf·in or N·m' }),
+  toleranceType: z.enum(toleranceTypes, { message: 'Choose ± amount or ± %' }),
+  toleranceValue: z
+    .number({ message: 'Enter the tolerance' })
+    .min(0, { message: 'Tolerance cannot be negative' })
+    .max(100_000, { message: 'That tolerance is too large' }),
+  /** Torque stages before the final value, in the spec's unit, in order. */
+  stages: z.array(torqueValue('a stage torque'), { message: 'A list of torques' }).max(10, { message: 'At most 10 stages' }).optional(),
+  finalAngleDeg: z
+    .number({ message: 'Enter degrees' })
+    .positive({ message: 'An angle is above zero' })
+    .max(1080, { message: 'At most 1080°' })
+    .nullable()
+    .optional(),
+  threadCondition: z.enum(threadConditions, { message: 'Choose dry, oiled, anti-seize or sealant' }),
+  sequenceNote: trimmed(2000, 'Sequence').optional(),
+  /** Where the spec came from, e.g. "maker's service manual, section 303-04". */
+  specSource: trimmed(500, 'Source').min(1, {
+    message: "Say where this spec comes from, e.g. the maker's service manual section",
+  }),
+  retorqueAfterHeatCycles: z
+    .number({ message: 'Enter heat cycles' })
+    .int({ message: 'A whole number' })
+    .min(1, { message: 'At least 1' })
+    .max(1000, { message: 'At most 1000' })
+    .nullable()
+    .optional(),
+  retorqueAfterMiles: z
+    .number({ message: 'Enter miles' })
+    .int({ message: 'A whole number' })
+    .min(1, { message: 'At least 1' })
+    .max(100_000, { message: 'At most 100000' })
+    .nullable()
+    .optional(),
+});
+export type FastenerSpecFields = z.infer<typeof fastenerSpecFieldsSchema>;
+
+/** Contradictions in a whole spec (after an edit is merged onto it). */
+export function fastenerSpecIssues(s: Partial<FastenerSpecFields>): Record<string, string> {
+  const issues: Record<string, string> = {};
+  if (s.toleranceType === 'percent' && s.toleranceValue != null && s.toleranceValue >= 100) {
+    issues.toleranceValue = 'A percentage tolerance is below 100 %';
+  }
+  if (
+    s.toleranceType === 'value' &&
+    s.toleranceValue != null &&
+    s.targetValue != null &&
+    s.toleranceValue >= s.targetValue
+  ) {
+    issues.toleranceValue = 'The tolerance must be smaller than the target';
+  }
+  if (s.stages && s.targetValue != null && s.stages.some((v) => v > s.targetValue!)) {
+    issues.stages = 'A stage is above the final torque';
+  }
+  return issues;
+}
+
+export const createFastenerSpecInputSchema = fastenerSpecFieldsSchema
+  .extend({ position: position.optional() })
+  .strict();
+export type CreateFastenerSpecInput = z.infer<typeof createFastenerSpecInputSchema>;
+
+export const updateFastenerSpecInputSchema = fastenerSpecFieldsSchema
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' });
+export type UpdateFastenerSpecInput = z.infer<typeof updateFastenerSpecInputSchema>;
+
+/** The fields that decide a reading's verdict; only the owner may change them once readings exist. */
+export const torqueDefiningFields = ['targetValue', 'targetUnit', 'toleranceType', 'toleranceValue'] as const;
+
+// ---- readings ---------------------------------------------------------------
+
+export const createReadingInputSchema = z
+  .object({
+    position,
+    value: torqueValue('the torque read'),
+    unit: z.enum(torqueUnits, { message: 'Choose lbf·ft, lbf·in or N·m' }),
+    wrench: trimmed(160, 'Wrench').optional(),
+    note: trimmed(1000, 'Note').optional(),
+    /** A re-check after heat cycles or miles, not the fitting torque. */
+    retorque: z.boolean({ message: 'Yes or no' }).optional(),
+  })
+  .strict();
+export type CreateReadingInput = z.infer<typeof createReadingInputSchema>;
+
+// ---- sign-off and re-torque -------------------------------------------------
+
+export const signOffInputSchema = z
+  .object({
+    /** Owner only: sign off although blockers remain, saying why. */
+    overrideReason: trimmed(1000, 'Reason').min(1, { message: 'Say why the step is signed off anyway' }).optional(),
+  })
+  .strict();
+export type SignOffInput = z.infer<typeof signOffInputSchema>;
+
+export const closeRetorqueInputSchema = z
+  .object({ note: trimmed(1000, 'Note').min(1, { message: 'Say how the re-check was done' }) })
+  .strict();
+export type CloseRetorqueInput = z.infer<typeof closeRetorqueInputSchema>;
+
+// ---- responses ----------------------------------------------------------------
+
+export type Person = { id: string; name: string };
+
+export type TorqueReading = {
+  id: string;
+  specId: string;
+  position: number;
+  kind: 'install' | 'retorque';
+  value: number;
+  unit: TorqueUnit;
+  /** The reading in the spec's unit, and its verdict against the spec as it stands. */
+  valueInSpecUnit: number;
+  verdict: Verdict;
+  deviation: number;
+  deviationPercent: number;
+  wrench: string;
+  note: string;
+  recordedBy: Person | null;
+  recordedAt: string;
+  /** Set when a later reading for the same position replaced this one. */
+  supersededById: string | null;
+  supersededAt: string | null;
+};
+
+export type FastenerPosition = {
+  position: number;
+  /** The newest fitting reading, or null. */
+  current: TorqueReading | null;
+  /** The newest re-torque reading, or null. */
+  retorque: TorqueReading | null;
+  /** How many older readings this position has (kept, marked superseded). */
+  supersededCount: number;
+};
+
+export type FastenerSpec = FastenerSpecFields & {
+  id: string;
+  stepId: string;
+  position: number;
+  stages: number[];
+  finalAngleDeg: number | null;
+  sequenceNote: string;
+  retorqueAfterHeatCycles: number | null;
+  retorqueAfterMiles: number | null;
+  /** The band in the spec's unit. */
+  band: { low: number; high: number; unit: TorqueUnit };
+  /** Target and band in the other unit system, unrounded. */
+  alt: { unit: TorqueUnit; target: number; low: number; high: number };
+  positions: FastenerPosition[];
+  retorque: {
+    asked: boolean;
+    description: string;
+    closedAt: string | null;
+    closedBy: Person | null;
+    closeNote: string;
+  };
+  createdAt: string;
+  updatedAt: string;
+};
+
+export type ChecklistItem = {
+  id: string;
+  stepId: string;
+  position: number;
+  label: string;
+  done: boolean;
+  doneBy: Person | null;
+  doneAt: string | null;
+};
+
+export type StepPart = { id: string; name: string; category: string; status: string };
+
+export type StepProgress = {
+  checklistDone: number;
+  checklistTotal: number;
+  positionsRecorded: number;
+  positionsTotal: number;
+  outOfSpec: number;
+};
+
+export type StepSummary = {
+  id: string;
+  jobId: string;
+  position: number;
+  title: string;
+  status: StepStatus;
+  signedOffAt: string | null;
+  progress: StepProgress;
+};
+
+export type SignOff = {
+  by: Person | null;
+  at: string;
+  /** Present when the owner signed off over blockers. */
+  override: { reason: string; blockers: SignOffBlocker[] } | null;
+};
+
+export type Step = Omit<StepSummary, 'signedOffAt'> & {
+  buildId: string;
+  description: string;
+  liftsVehicle: boolean;
+  parts: StepPart[];
+  checklist: ChecklistItem[];
+  fasteners: FastenerSpec[];
+  cautions: Caution[];
+  signOff: SignOff | null;
+  /** What stands between the step and a plain sign-off (empty when ready). */
+  signOffBlockers: SignOffBlocker[];
+  photoCount: number;
+  createdAt: string;
+  updatedAt: string;
+};
+
+export type Job = {
+  id: string;
+  buildId: string;
+  position: number;
+  title: string;
+  notes: string;
+  createdBy: Person | null;
+  steps: StepSummary[];
+  createdAt: string;
+  updatedAt: string;
+};
+
+export type RetorqueCheck = {
+  specId: string;
+  specName: string;
+  count: number;
+  stepId: string;
+  stepTitle: string;
+  jobId: string;
+  jobTitle: string;
+  state: RetorqueState;
+  afterHeatCycles: number | null;
+  afterMiles: number | null;
+  description: string;
+  /** When the step was signed off: the cycles or miles count from here. */
+  since: string | null;
+  /** Positions without a current in-spec re-torque reading. */
+  positionsLeft: number[];
+  closedAt: string | null;
+  closedBy: Person | null;
+  closeNote: string;
+};

@@ -1,0 +1,497 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import {
+  airLbPerMinFromFuelKgPerH,
+  deliveryFromFuelGPerS,
+  estimate,
+  fuelGPerSFromDelivery,
+  fuelKgPerHFromAirLbPerMin,
+  fuelKgPerHFromPowerKw,
+  powerKwFromFuelKgPerH,
+} from '../../shared/estimate';
+import {
+  estimateRequestSchema,
+  assumptionsInputSchema,
+  type EstimateRequestInput,
+  type EstimateResult,
+  type Figure,
+} from '../../shared/schemas/estimate';
+import { ratingUnits, type RatingUnit } from '../../shared/schemas/parts';
+import { convertPower } from '../../shared/units';
+
+function expectRel(actual: number, expected: number, rel: number) {
+  expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(rel * Math.abs(expected));
+}
+
+/** Parses like the server does (defaults filled in) and runs the estimator. */
+function run(req: EstimateRequestInput): EstimateResult {
+  return estimate(estimateRequestSchema.parse(req));
+}
+
+const part = (id: string, category: string, ratingValue: number, ratingUnit: RatingUnit, quantity = 1) =>
+  ({ id, name: id, category, ratingValue, ratingUnit, quantity }) as const;
+
+const comp = (r: EstimateResult, id: string) => r.components.find((c) => c.id === id)!;
+
+describe('fuel from injectors', () => {
+  it('8 cyl, 100 mm³, 3000 rpm, 0.85 kg/L, 210 g/kWh → 17.0 g/s, 61.2 kg/h, 291.4286 kW = 390.812 hp', () => {
+    // reference.md worked check (fuel from injectors)
+    const mgPerStroke = 100 * 0.85; // 85 mg/stroke
+    expect(mgPerStroke).toBeCloseTo(85, 12);
+    const gPerS = fuelGPerSFromDelivery(100, 0.85, 8, 3000);
+    expectRel(gPerS, 17.0, 1e-12);
+    expectRel(gPerS * 3.6, 61.2, 1e-12);
+    const kw = powerKwFromFuelKgPerH(gPerS * 3.6, 210);
+    expect(kw).toBeCloseTo(291.4286, 4); // to the digits reference.md prints
+    expect(convertPower(kw, 'kw', 'hp')).toBeCloseTo(390.812, 3);
+    expectRel(deliveryFromFuelGPerS(17.0, 0.85, 8, 3000), 100, 1e-12);
+  });
+
+  it('6 cyl, 150 mm³, 2800 rpm → 64.26 kg/h, 306.000 kW = 410.353 hp', () => {
+    // reference.md worked check (fuel from injectors)
+    const kgPerH = fuelGPerSFromDelivery(150, 0.85, 6, 2800) * 3.6;
+    expectRel(kgPerH, 64.26, 1e-12);
+    const kw = powerKwFromFuelKgPerH(kgPerH, 210);
+    expect(kw).toBeCloseTo(306.0, 9);
+    expect(convertPower(kw, 'kw', 'hp')).toBeCloseTo(410.353, 3);
+    expectRel(fuelKgPerHFromPowerKw(306, 210), 64.26, 1e-12);
+  });
+
+  it('the estimator finds the same power for an injector of that size', () => {
+    // reference.md worked check, run through the whole estimator: the crank power a
+    // 100 mm³/stroke injector supports on 8 cylinders at 3000 rpm, 0.85 kg/L, 210 g/kWh.
+    const r = run({
+      target: { powerHp: 500, basis: 'crank' },
+      assumptions: { bsfc: 210, bsfcUnit: 'g-per-kwh', fuelDensityKgPerL: 0.85, peakRpm: 3000, cylinders: 8 },
+      components: [part('inj', 'fuel-injection', 100, 'mm3-per-stroke', 8)],
+    });
+    expect(comp(r, 'inj').supportedCrankPower.value).toBeCloseTo(390.812, 3);
+    const r6 = run({
+      target: { powerHp: 500, basis: 'crank' },
+      assumptions: { bsfc: 210, bsfcUnit: 'g-per-kwh', fuelDensityKgPerL: 0.85, peakRpm: 2800, cylinders: 6 },
+      components: [part('inj', 'fuel-injection', 150, 'mm3-per-stroke', 6)],
+    });
+    expect(comp(r6, 'inj').supportedCrankPower.value).toBeCloseTo(410.353, 3);
+  });
+});
+
+describe('fuel from air', () => {
+  it('60 lb/min, AFR 20, 210 g/kWh → 81.64663 kg/h fuel, 388.7935 kW = 521.381 hp, λ 1.3793', () => {
+    // reference.md worked check (fuel from air)
+    // (to the digits reference.md prints)
+    const kgPerH = fuelKgPerHFromAirLbPerMin(60, 20);
+    expect(kgPerH).toBeCloseTo(81.64663, 5);
+    const kw = powerKwFromFuelKgPerH(kgPerH, 210);
+    expect(kw).toBeCloseTo(388.7935, 4);
+    expect(convertPower(kw, 'kw', 'hp')).toBeCloseTo(521.381, 3);
+    expectRel(airLbPerMinFromFuelKgPerH(kgPerH, 20), 60, 1e-12);
+  });
+
+  it('the estimator finds the same power for a 60 lb/min turbocharger, and λ against 14.5', () => {
+    // reference.md worked check, through the estimator; λ against stoichiometric 14.5 (Heywood 1988 ch. 3 [memory])
+    const r = run({
+      target: { powerHp: 600, basis: 'crank' },
+      assumptions: { bsfc: 210, bsfcUnit: 'g-per-kwh', afr: 20 },
+      components: [part('turbo', 'turbocharger', 60, 'lb-per-min')],
+    });
+    expect(comp(r, 'turbo').supportedCrankPower.value).toBeCloseTo(521.381, 3);
+    expect(r.requirements.lambda.value).toBeCloseTo(1.3793, 4);
+  });
+});
+
+describe('BSFC entered in either unit', () => {
+  it('gives the same requirements for 0.40 lb/(hp·h) and 243.311 g/kWh', () => {
+    // 0.40 × 608.27739 = 243.310956 g/kWh (reference.md factor)
+    const lb = run({ target: { powerHp: 700, basis: 'crank' }, assumptions: { bsfc: 0.4, bsfcUnit: 'lb-per-hp-h' } });
+    const g = run({ target: { powerHp: 700, basis: 'crank' }, assumptions: { bsfc: 0.4 * 608.27739, bsfcUnit: 'g-per-kwh' } });
+    expectRel(g.requirements.fuelMassFlow.value, lb.requirements.fuelMassFlow.value, 1e-8);
+    expectRel(g.assumptions.bsfcLbPerHpH, 0.4, 1e-8);
+  });
+
+  it('burns 0.40 lb/(hp·h) × 700 hp = 280 lb/h of fuel', () => {
+    // definition of BSFC; lb = 0.45359237 kg (NIST SP 811 (2008) B.8)
+    const r = run({ target: { powerHp: 700, basis: 'crank' } });
+    expectRel(r.requirements.fuelMassFlow.value, 280 * 0.45359237, 1e-12);
+  });
+
+  it('fills the default in the unit chosen and checks the range in that unit', () => {
+    // default 0.40 lb/(hp·h): common practice (reference.md)
+    expect(assumptionsInputSchema.parse({}).bsfc).toBe(0.4);
+    expectRel(assumptionsInputSchema.parse({ bsfcUnit: 'g-per-kwh' }).bsfc, 243.310955, 1e-8);
+    expect(assumptionsInputSchema.safeParse({ bsfc: 210, bsfcUnit: 'g-per-kwh' }).success).toBe(true);
+    const wrongUnit = assumptionsInputSchema.safeParse({ bsfc: 210 }); // 210 lb/(hp·h) is absurd
+    expect(wrongUnit.success).toBe(false);
+    expect(wrongUnit.error!.issues[0].path).toEqual(['bsfc']);
+    const low = assumptionsInputSchema.safeParse({ bsfc: 0.2 });
+    expect(low.error!.issues[0].message).toMatch(/0\.3 and 0\.65 lb/);
+  });
+});
+
+describe('requirements at the target', () => {
+  it('turns a wheel target into crank power with the drivetrain loss', () => {
+    // crank = wheel ÷ (1 − loss): 600 ÷ 0.82 (issue 4 formula; 18 % common practice)
+    const r = run({ target: { powerHp: 600, basis: 'wheel' } });
+    expectRel(r.requirements.crankPower.value, 600 / 0.82, 1e-15);
+    expect(r.requirements.wheelPower.value).toBe(600);
+  });
+
+  it('takes crank torque at peak-power rpm from P × 5252.113 / rpm', () => {
+    // reference.md worked check: 500 lbf·ft at 2000 rpm = 190.39955 hp
+    const r = run({ target: { powerHp: 190.39955, basis: 'crank' }, assumptions: { peakRpm: 2000 } });
+    expectRel(r.requirements.crankTorque.value, 500, 1e-6);
+    expectRel(r.requirements.crankTorqueNm.value, 500 * 1.3558179483314004, 1e-6); // NIST SP 811 (2008) B.9
+  });
+
+  it("uses the owner's torque target when one is set", () => {
+    const r = run({ target: { powerHp: 650, basis: 'crank', torqueLbft: 1400 } });
+    expect(r.requirements.crankTorque.value).toBe(1400);
+    expect(r.requirements.crankTorque.working.inputs[0]).toMatchObject({ from: 'target', ref: 'torqueLbft' });
+  });
+
+  it('converts the fuel flow to volume with the density, and per injector per stroke', () => {
+    // reference.md chain run backwards: 61.2 kg/h on 8 cyl at 3000 rpm, 0.85 kg/L → 100 mm³/stroke.
+    // The crank power burning 61.2 kg/h at 210 g/kWh is 390.812 hp (reference.md worked check).
+    const hp = convertPower(61.2 / 210 * 1000, 'kw', 'hp');
+    const r = run({
+      target: { powerHp: hp, basis: 'crank' },
+      assumptions: { bsfc: 210, bsfcUnit: 'g-per-kwh', cylinders: 8, peakRpm: 3000 },
+    });
+    expectRel(r.requirements.fuelMassFlow.value, 61.2, 1e-12);
+    expectRel(r.requirements.fuelVolumeFlow.value, 72, 1e-12);
+    expectRel(r.requirements.fuelVolumeFlowGalPerH.value, 72 / 3.785411784, 1e-12); // NIST SP 811 (2008) B.8
+    expectRel(r.requirements.injectorDelivery.value, 100, 1e-12);
+  });
+});
+
+describe('each rated part in its own unit', () => {
+  const assumptions = { drivetrainLossPct: 20, tightMarginPct: 10 };
+  const target = { powerHp: 800, basis: 'crank' as const };
+
+  it('compares wheel ratings with the target in wheel hp and kW ratings with crank kW', () => {
+    const r = run({
+      target,
+      assumptions,
+      components: [part('trans', 'transmission', 720, 'hp-wheel'), part('tc', 'torque-converter', 600, 'kw')],
+    });
+    const trans = comp(r, 'trans');
+    expect(trans.comparedWith).toBe('wheelPower');
+    expectRel(trans.requirement.value, 640, 1e-15); // 800 × (1 − 0.20)
+    expectRel(trans.headroomPct.value, 12.5, 1e-12); // 720 / 640 − 1
+    expectRel(trans.supportedCrankPower.value, 900, 1e-12); // 720 ÷ 0.8
+    const tc = comp(r, 'tc');
+    expectRel(tc.requirement.value, (800 * 745.69987158227) / 1000, 1e-14); // NIST SP 811 (2008) B.9
+  });
+
+  it('does not multiply power, torque or per-injector ratings by quantity', () => {
+    const r = run({
+      target,
+      components: [
+        part('studs', 'head-and-studs', 1000, 'hp-crank', 16),
+        part('inj', 'fuel-injection', 200, 'mm3-per-stroke', 8),
+        part('rods', 'bottom-end', 1200, 'lbf-ft', 8),
+      ],
+    });
+    for (const id of ['studs', 'inj', 'rods']) {
+      expect(comp(r, id).quantityMultiplies).toBe(false);
+      expect(comp(r, id).capacity.value).toBe(comp(r, id).ratingValue);
+    }
+  });
+
+  it('adds up identical flow-rated units in parallel', () => {
+    const r = run({
+      target,
+      components: [part('twins', 'turbocharger', 55, 'lb-per-min', 2), part('pumps', 'fuel-supply', 100, 'gal-per-h', 2)],
+    });
+    expect(comp(r, 'twins').quantityMultiplies).toBe(true);
+    expect(comp(r, 'twins').capacity.value).toBe(110);
+    expect(comp(r, 'pumps').capacity.value).toBe(200);
+    expect(comp(r, 'pumps').comparedWith).toBe('fuelVolumeFlowGalPerH');
+  });
+
+  it('compares N·m ratings with the crank torque in N·m', () => {
+    const r = run({ target, components: [part('trans', 'transmission', 2000, 'n-m')] });
+    const t = comp(r, 'trans');
+    expectRel(t.requirement.value, r.requirements.crankTorque.value * 1.3558179483314004, 1e-14); // NIST SP 811 (2008) B.9
+  });
+
+  it('sets over / tight / ok against the tight margin', () => {
+    const r = run({
+      target: { powerHp: 1000, basis: 'crank' },
+      assumptions: { tightMarginPct: 10 },
+      components: [
+        part('over', 'transmission', 999, 'hp-crank'),
+        part('edge', 'driveline', 1000, 'hp-crank'),
+        part('tight', 'exhaust', 1099, 'hp-crank'),
+        part('ok', 'tuning', 1100, 'hp-crank'),
+      ],
+    });
+    expect(r.components.map((c) => [c.id, c.status])).toEqual([
+      ['over', 'over'],
+      ['edge', 'tight'],
+      ['tight', 'tight'],
+      ['ok', 'ok'],
+    ]);
+  });
+});
+
+describe('weakest link, supported power and unknown categories', () => {
+  it('names the part with the least headroom and gives the crank and wheel power the build supports', () => {
+    const r = run({
+      target: { powerHp: 600, basis: 'wheel' },
+      assumptions: { drivetrainLossPct: 18 },
+      components: [
+        part('Bottom end', 'bottom-end', 700, 'hp-crank'),
+        part('Injectors', 'fuel-injection', 250, 'mm3-per-stroke', 8),
+        part('Transmission', 'transmission', 1500, 'lbf-ft'),
+      ],
+    });
+    expect(r.weakestLink).toMatchObject({ componentId: 'Bottom end', status: 'over' });
+    expect(r.weakestLink!.message).toMatch(/Bottom end is the weakest link/);
+    expect(r.supported!.limitedBy).toBe('Bottom end');
+    expect(r.supported!.crankPower.value).toBe(700);
+    expectRel(r.supported!.wheelPower.value, 700 * 0.82, 1e-15);
+    expect(r.unknownCategories).toContain('turbocharger');
+    expect(r.unknownCategories).toContain('fuel-supply');
+    expect(r.unknownCategories).not.toContain('bottom-end');
+    expect(r.unknownCategories).not.toContain('other');
+    expect(r.categories.find((c) => c.category === 'turbocharger')!.status).toBe('unknown');
+    expect(r.categories.find((c) => c.category === 'bottom-end')!.status).toBe('over');
+  });
+
+  it('has no weakest link and no supported power when nothing is rated', () => {
+    const r = run({ target: { powerHp: 500, basis: 'crank' } });
+    expect(r.weakestLink).toBeNull();
+    expect(r.supported).toBeNull();
+    expect(r.unknownCategories).toHaveLength(12);
+  });
+});
+
+describe('warnings, one scenario each', () => {
+  const codes = (r: EstimateResult) => r.warnings.map((w) => w.code);
+
+  it('target-exceeds-bottom-end: says by how much, in the rating unit, in % and in crank hp', () => {
+    const r = run({
+      target: { powerHp: 700, basis: 'crank' },
+      components: [part('be', 'bottom-end', 650, 'hp-crank')],
+    });
+    const w = r.warnings.find((x) => x.code === 'target-exceeds-bottom-end')!;
+    expect(w).toMatchObject({ severity: 'danger', componentId: 'be', category: 'bottom-end' });
+    expect(w.shortfall!.value).toBe(50);
+    expect(w.shortfall!.unit).toBe('hp-crank');
+    expectRel(w.shortfall!.pct, (700 / 650 - 1) * 100, 1e-12);
+    expect(w.shortfall!.crankHp).toBe(50);
+    expect(w.message).toMatch(/exceeds the bottom-end rating/);
+    expect(w.message).toMatch(/50 crank hp \(7\.69 %\) over/);
+    expect(r.warnings[0].code).toBe('target-exceeds-bottom-end');
+    expect(codes(r)).not.toContain('part-over'); // the bottom end gets its own warning, not both
+  });
+
+  it('target-exceeds-bottom-end also for a torque-rated bottom end', () => {
+    const r = run({
+      target: { powerHp: 700, basis: 'crank' },
+      assumptions: { peakRpm: 3000 },
+      components: [part('rods', 'bottom-end', 1100, 'lbf-ft')],
+    });
+    // 700 hp at 3000 rpm = 700 × 5252.113 / 3000 = 1225.49 lbf·ft (definition of power, reference.md)
+    const w = r.warnings.find((x) => x.code === 'target-exceeds-bottom-end')!;
+    expectRel(w.shortfall!.value, (700 * 5252.113122) / 3000 - 1100, 1e-9);
+    expect(w.shortfall!.unit).toBe('lbf-ft');
+  });
+
+  it('part-over: a part short of the requirement', () => {
+    const r = run({
+      target: { powerHp: 700, basis: 'crank' },
+      components: [part('be', 'bottom-end', 1000, 'hp-crank'), part('trans', 'transmission', 600, 'hp-crank')],
+    });
+    expect(codes(r)).toEqual(['part-over']);
+    expect(r.warnings[0]).toMatchObject({ componentId: 'trans', severity: 'danger' });
+    expect(r.warnings[0].message).toMatch(/trans is over its rating/);
+  });
+
+  it('part-tight: headroom under the margin', () => {
+    const r = run({
+      target: { powerHp: 700, basis: 'crank' },
+      assumptions: { tightMarginPct: 10 },
+      components: [part('be', 'bottom-end', 1000, 'hp-crank'), part('tc', 'torque-converter', 735, 'hp-crank')],
+    });
+    expect(codes(r)).toEqual(['part-tight']);
+    expect(r.warnings[0]).toMatchObject({ componentId: 'tc', severity: 'warning' });
+    expect(r.warnings[0].message).toMatch(/5 % headroom, less than the 10 % margin/);
+  });
+
+  it('no-bottom-end-rating: nothing rated in the bottom end', () => {
+    const r = run({
+      target: { powerHp: 700, basis: 'crank' },
+      components: [part('trans', 'transmission', 1000, 'hp-crank')],
+    });
+    expect(codes(r)).toEqual(['no-bottom-end-rating']);
+    expect(r.unknownCategories).toContain('bottom-end');
+  });
+
+  it('no-rated-parts: nothing rated at all', () => {
+    const r = run({ target: { powerHp: 700, basis: 'crank' } });
+    expect(codes(r)).toEqual(['no-bottom-end-rating', 'no-rated-parts']);
+  });
+
+  it('no warnings when every part has room and the bottom end is rated', () => {
+    const r = run({
+      target: { powerHp: 700, basis: 'crank' },
+      components: [part('be', 'bottom-end', 1000, 'hp-crank'), part('trans', 'transmission', 900, 'hp-crank')],
+    });
+    expect(r.warnings).toEqual([]);
+  });
+});
+
+describe('the working', () => {
+  function figures(r: EstimateResult): Figure[] {
+    const out: Figure[] = Object.values(r.requirements);
+    for (const c of r.components) out.push(c.capacity, c.requirement, c.headroomPct, c.supportedCrankPower);
+    if (r.supported) out.push(r.supported.crankPower, r.supported.wheelPower);
+    return out;
+  }
+
+  it('carries a formula, inputs and the source of every constant on every figure', () => {
+    const r = run({
+      target: { powerHp: 600, basis: 'wheel' },
+      components: ratingUnits.map((u, i) => part(`p${i}`, 'other', 100, u)),
+    });
+    const all = figures(r);
+    expect(all.length).toBe(11 + 4 * ratingUnits.length + 2);
+    for (const f of all) {
+      expect(f.working.formula.length, f.label).toBeGreaterThan(5);
+      expect(f.working.inputs.length, f.label).toBeGreaterThan(0);
+      expect(Number.isFinite(f.value), f.label).toBe(true);
+      for (const c of f.working.constants) expect(c.source.length, c.name).toBeGreaterThan(5);
+    }
+    // the hp constant is cited to NIST and the stoichiometric AFR marked as recalled
+    expect(r.requirements.crankPowerKw.working.constants[0].source).toMatch(/NIST SP 811/);
+    expect(r.requirements.lambda.working.constants[0].source).toMatch(/Heywood.*\[memory\]/);
+    for (const a of r.assumptionDetails) expect(a.source.length, a.key).toBeGreaterThan(5);
+  });
+});
+
+describe('properties', () => {
+  const unit = fc.constantFrom(...ratingUnits);
+  const targetHp = fc.double({ min: 50, max: 5000, noNaN: true });
+  const rating = fc.double({ min: 1, max: 100_000, noNaN: true });
+  const basis = fc.constantFrom('crank' as const, 'wheel' as const);
+  const headroomOf = (powerHp: number, b: 'crank' | 'wheel', u: RatingUnit, value: number) =>
+    run({ target: { powerHp, basis: b }, components: [part('x', 'other', value, u)] }).components[0].headroomPct.value;
+
+  it('headroom rises with capacity', () => {
+    fc.assert(
+      fc.property(targetHp, basis, unit, rating, rating, (hp, b, u, r1, r2) => {
+        // ratings a few ulps apart can round to the same headroom
+        fc.pre(Math.abs(r1 - r2) > 1e-9 * Math.max(r1, r2));
+        const [lo, hi] = r1 < r2 ? [r1, r2] : [r2, r1];
+        return headroomOf(hp, b, u, lo) < headroomOf(hp, b, u, hi);
+      }),
+    );
+  });
+
+  it('headroom falls as the target rises', () => {
+    fc.assert(
+      fc.property(targetHp, targetHp, basis, unit, rating, (t1, t2, b, u, r) => {
+        fc.pre(Math.abs(t1 - t2) > 1e-9 * Math.max(t1, t2));
+        const [lo, hi] = t1 < t2 ? [t1, t2] : [t2, t1];
+        return headroomOf(hi, b, u, r) < headroomOf(lo, b, u, r);
+      }),
+    );
+  });
+
+  it('a part with zero headroom supports exactly the target', () => {
+    fc.assert(
+      fc.property(
+        targetHp,
+        basis,
+        unit,
+        fc.double({ min: 0, max: 40, noNaN: true }),
+        fc.integer({ min: 1000, max: 6000 }),
+        fc.integer({ min: 1, max: 16 }),
+        (hp, b, u, loss, rpm, cylinders) => {
+          const input = estimateRequestSchema.parse({
+            target: { powerHp: hp, basis: b },
+            assumptions: { drivetrainLossPct: loss, peakRpm: rpm, cylinders },
+          });
+          const first = estimate(input);
+          const key = {
+            'hp-crank': 'crankPower',
+            'hp-wheel': 'wheelPower',
+            kw: 'crankPowerKw',
+            'lbf-ft': 'crankTorque',
+            'n-m': 'crankTorqueNm',
+            'mm3-per-stroke': 'injectorDelivery',
+            'lb-per-min': 'airMassFlow',
+            'l-per-h': 'fuelVolumeFlow',
+            'gal-per-h': 'fuelVolumeFlowGalPerH',
+          } as const;
+          const exact = first.requirements[key[u]].value;
+          const r = estimate({ ...input, components: [{ id: 'x', name: 'x', category: 'other', ratingValue: exact, ratingUnit: u, quantity: 1 }] });
+          const c = r.components[0];
+          return (
+            c.headroomPct.value === 0 &&
+            c.supportedCrankPower.value === r.requirements.crankPower.value &&
+            c.status === 'tight' &&
+            r.supported!.crankPower.value === r.requirements.crankPower.value
+          );
+        },
+      ),
+    );
+  });
+
+  it('the supported crank power, taken as the target, leaves the weakest part with zero headroom', () => {
+    fc.assert(
+      fc.property(targetHp, unit, rating, (hp, u, r) => {
+        const first = run({ target: { powerHp: hp, basis: 'crank' }, components: [part('x', 'other', r, u)] });
+        const supported = first.supported!.crankPower.value;
+        fc.pre(supported <= 5000);
+        const again = run({ target: { powerHp: supported, basis: 'crank' }, components: [part('x', 'other', r, u)] });
+        return Math.abs(again.components[0].headroomPct.value) < 1e-9;
+      }),
+    );
+  });
+});
+
+describe('request schema', () => {
+  const ok = { target: { powerHp: 600, basis: 'crank' } };
+  const fieldsOf = (body: unknown) => {
+    const res = estimateRequestSchema.safeParse(body);
+    expect(res.success).toBe(false);
+    return res.error!.issues.map((i) => i.path.join('.'));
+  };
+
+  it('fills every assumption with its default', () => {
+    // defaults from issue 4 and reference.md (common practice; Chevron 2007 for density)
+    expect(estimateRequestSchema.parse(ok).assumptions).toEqual({
+      bsfc: 0.4,
+      bsfcUnit: 'lb-per-hp-h',
+      afr: 18,
+      fuelDensityKgPerL: 0.85,
+      drivetrainLossPct: 18,
+      peakRpm: 3000,
+      cylinders: 8,
+      tightMarginPct: 10,
+    });
+  });
+
+  it('refuses zero, negative, NaN, infinite and absurd values with the field named', () => {
+    expect(fieldsOf({ target: { powerHp: 0, basis: 'crank' } })).toEqual(['target.powerHp']);
+    expect(fieldsOf({ target: { powerHp: -5, basis: 'crank' } })).toEqual(['target.powerHp']);
+    expect(fieldsOf({ target: { powerHp: Number.NaN, basis: 'crank' } })).toEqual(['target.powerHp']);
+    expect(fieldsOf({ target: { powerHp: Infinity, basis: 'crank' } })).toEqual(['target.powerHp']);
+    expect(fieldsOf({ target: { powerHp: 1e12, basis: 'crank' } })).toEqual(['target.powerHp']);
+    expect(fieldsOf({ ...ok, assumptions: { drivetrainLossPct: 100 } })).toEqual(['assumptions.drivetrainLossPct']);
+    expect(fieldsOf({ ...ok, assumptions: { peakRpm: 2500.5 } })).toEqual(['assumptions.peakRpm']);
+    expect(fieldsOf({ ...ok, components: [{ ...part('a', 'other', 1, 'hp-crank'), ratingUnit: 'furlongs' }] })).toEqual([
+      'components.0.ratingUnit',
+    ]);
+  });
+
+  it('refuses duplicate component ids, unknown keys and more than 500 components', () => {
+    const a = part('a', 'other', 1, 'hp-crank');
+    expect(fieldsOf({ ...ok, components: [a, a] })).toEqual(['components.1.id']);
+    expect(fieldsOf({ ...ok, horsepower: 5 })).toEqual(['']);
+    const many = Array.from({ length: 501 }, (_, i) => part(`p${i}`, 'other', 1, 'hp-crank'));
+    expect(fieldsOf({ ...ok, components: many })).toEqual(['components']);
+  });
+});
