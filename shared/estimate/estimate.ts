@@ -89,6 +89,7 @@ export const figureUnitLabels: Record<string, string> = {
   '%': '%',
   rpm: 'rpm',
   cylinders: 'cylinders',
+  count: '×',
 };
 
 /** Which requirement each rating unit is compared with. */
@@ -503,11 +504,11 @@ export function estimate(input: EstimateInput): EstimateResult {
         category: weakest.category,
         headroomPct: weakest.headroomPct.value,
         status: weakest.status,
-        message: `${weakest.name} is the weakest link: rated ${formatForMessage(weakest.capacity.value)} ${unitText(
+        message: `Weakest link: ${weakest.name}, rated ${formatForMessage(weakest.capacity.value)} ${unitText(
           weakest.capacity.unit,
         )} against ${formatForMessage(weakest.requirement.value)} ${unitText(weakest.requirement.unit)} needed (${
           weakest.headroomPct.value >= 0 ? '+' : ''
-        }${formatForMessage(weakest.headroomPct.value)} % headroom). It supports about ${formatForMessage(
+        }${formatForMessage(weakest.headroomPct.value)} % headroom); it supports about ${formatForMessage(
           weakest.supportedCrankPower.value,
         )} crank hp.`,
       }
@@ -578,9 +579,9 @@ export function estimate(input: EstimateInput): EstimateResult {
       componentId: r.id,
       category: r.category,
       shortfall: short,
-      message: `${r.name} is over its rating: rated ${formatForMessage(r.capacity.value)} ${unitText(
+      message: `Over its rating: ${r.name}, rated ${formatForMessage(r.capacity.value)} ${unitText(
         r.capacity.unit,
-      )}, the target needs ${formatForMessage(r.requirement.value)} ${unitText(r.requirement.unit)} (${formatForMessage(
+      )}; the target needs ${formatForMessage(r.requirement.value)} ${unitText(r.requirement.unit)} (${formatForMessage(
         short.pct,
       )} % over). It supports about ${formatForMessage(r.supportedCrankPower.value)} crank hp.`,
     });
@@ -601,7 +602,7 @@ export function estimate(input: EstimateInput): EstimateResult {
       severity: 'warning',
       componentId: r.id,
       category: r.category,
-      message: `${r.name} is tight: ${formatForMessage(r.headroomPct.value)} % headroom, less than the ${formatForMessage(
+      message: `Tight: ${r.name} has ${formatForMessage(r.headroomPct.value)} % headroom, less than the ${formatForMessage(
         a.tightMarginPct,
       )} % margin (rated ${formatForMessage(r.capacity.value)} ${unitText(r.capacity.unit)}, needs ${formatForMessage(
         r.requirement.value,

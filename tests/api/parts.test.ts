@@ -223,8 +223,10 @@ describe('CSV export and import', () => {
       const { id: _i, buildId: _b, createdAt: _c, updatedAt: _u, shopUserId: _s, shopName: _n, sendOut: _o, ...rest } = p;
       return rest;
     };
-    const before = (await owner.agent.get(url)).body.parts.map(strip);
-    const after = (await owner.agent.get(`/api/builds/${other.id}/parts`)).body.parts.map(strip);
+    // Rows imported together share a creation time, so compare in a fixed order.
+    const byName = (a: { name: string }, b: { name: string }) => a.name.localeCompare(b.name);
+    const before = (await owner.agent.get(url)).body.parts.map(strip).sort(byName);
+    const after = (await owner.agent.get(`/api/builds/${other.id}/parts`)).body.parts.map(strip).sort(byName);
     expect(after).toEqual(before);
   });
 

@@ -16,11 +16,17 @@ import {
   type EstimateResult,
   type Figure,
 } from '../../shared/schemas/estimate';
-import { ratingUnits, type RatingUnit } from '../../shared/schemas/parts';
+import { ratingUnits, type PartCategory, type RatingUnit } from '../../shared/schemas/parts';
 import { convertPower } from '../../shared/units';
 
+// reference.md's full value of lbf·ft → N·m (NIST SP 811 (2008) B.9, from the exact definitions);
+// parsed from text because the literal has one more digit than a double holds.
+const LBF_FT_NM_REF = Number('1.3558179483314004');
+
 function expectRel(actual: number, expected: number, rel: number) {
-  expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(rel * Math.abs(expected));
+  expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(
+    rel * Math.abs(expected),
+  );
 }
 
 /** Parses like the server does (defaults filled in) and runs the estimator. */
@@ -28,8 +34,13 @@ function run(req: EstimateRequestInput): EstimateResult {
   return estimate(estimateRequestSchema.parse(req));
 }
 
-const part = (id: string, category: string, ratingValue: number, ratingUnit: RatingUnit, quantity = 1) =>
-  ({ id, name: id, category, ratingValue, ratingUnit, quantity }) as const;
+const part = (
+  id: string,
+  category: PartCategory,
+  ratingValue: number,
+  ratingUnit: RatingUnit,
+  quantity = 1,
+) => ({ id, name: id, category, ratingValue, ratingUnit, quantity });
 
 const comp = (r: EstimateResult, id: string) => r.components.find((c) => c.id === id)!;
 
@@ -62,13 +73,25 @@ describe('fuel from injectors', () => {
     // 100 mm³/stroke injector supports on 8 cylinders at 3000 rpm, 0.85 kg/L, 210 g/kWh.
     const r = run({
       target: { powerHp: 500, basis: 'crank' },
-      assumptions: { bsfc: 210, bsfcUnit: 'g-per-kwh', fuelDensityKgPerL: 0.85, peakRpm: 3000, cylinders: 8 },
+      assumptions: {
+        bsfc: 210,
+        bsfcUnit: 'g-per-kwh',
+        fuelDensityKgPerL: 0.85,
+        peakRpm: 3000,
+        cylinders: 8,
+      },
       components: [part('inj', 'fuel-injection', 100, 'mm3-per-stroke', 8)],
     });
     expect(comp(r, 'inj').supportedCrankPower.value).toBeCloseTo(390.812, 3);
     const r6 = run({
       target: { powerHp: 500, basis: 'crank' },
-      assumptions: { bsfc: 210, bsfcUnit: 'g-per-kwh', fuelDensityKgPerL: 0.85, peakRpm: 2800, cylinders: 6 },
+      assumptions: {
+        bsfc: 210,
+        bsfcUnit: 'g-per-kwh',
+        fuelDensityKgPerL: 0.85,
+        peakRpm: 2800,
+        cylinders: 6,
+      },
       components: [part('inj', 'fuel-injection', 150, 'mm3-per-stroke', 6)],
     });
     expect(comp(r6, 'inj').supportedCrankPower.value).toBeCloseTo(410.353, 3);
@@ -102,8 +125,14 @@ describe('fuel from air', () => {
 describe('BSFC entered in either unit', () => {
   it('gives the same requirements for 0.40 lb/(hp·h) and 243.311 g/kWh', () => {
     // 0.40 × 608.27739 = 243.310956 g/kWh (reference.md factor)
-    const lb = run({ target: { powerHp: 700, basis: 'crank' }, assumptions: { bsfc: 0.4, bsfcUnit: 'lb-per-hp-h' } });
-    const g = run({ target: { powerHp: 700, basis: 'crank' }, assumptions: { bsfc: 0.4 * 608.27739, bsfcUnit: 'g-per-kwh' } });
+    const lb = run({
+      target: { powerHp: 700, basis: 'crank' },
+      assumptions: { bsfc: 0.4, bsfcUnit: 'lb-per-hp-h' },
+    });
+    const g = run({
+      target: { powerHp: 700, basis: 'crank' },
+      assumptions: { bsfc: 0.4 * 608.27739, bsfcUnit: 'g-per-kwh' },
+    });
     expectRel(g.requirements.fuelMassFlow.value, lb.requirements.fuelMassFlow.value, 1e-8);
     expectRel(g.assumptions.bsfcLbPerHpH, 0.4, 1e-8);
   });
@@ -118,7 +147,9 @@ describe('BSFC entered in either unit', () => {
     // default 0.40 lb/(hp·h): common practice (reference.md)
     expect(assumptionsInputSchema.parse({}).bsfc).toBe(0.4);
     expectRel(assumptionsInputSchema.parse({ bsfcUnit: 'g-per-kwh' }).bsfc, 243.310955, 1e-8);
-    expect(assumptionsInputSchema.safeParse({ bsfc: 210, bsfcUnit: 'g-per-kwh' }).success).toBe(true);
+    expect(assumptionsInputSchema.safeParse({ bsfc: 210, bsfcUnit: 'g-per-kwh' }).success).toBe(
+      true,
+    );
     const wrongUnit = assumptionsInputSchema.safeParse({ bsfc: 210 }); // 210 lb/(hp·h) is absurd
     expect(wrongUnit.success).toBe(false);
     expect(wrongUnit.error!.issues[0].path).toEqual(['bsfc']);
@@ -137,21 +168,27 @@ describe('requirements at the target', () => {
 
   it('takes crank torque at peak-power rpm from P × 5252.113 / rpm', () => {
     // reference.md worked check: 500 lbf·ft at 2000 rpm = 190.39955 hp
-    const r = run({ target: { powerHp: 190.39955, basis: 'crank' }, assumptions: { peakRpm: 2000 } });
+    const r = run({
+      target: { powerHp: 190.39955, basis: 'crank' },
+      assumptions: { peakRpm: 2000 },
+    });
     expectRel(r.requirements.crankTorque.value, 500, 1e-6);
-    expectRel(r.requirements.crankTorqueNm.value, 500 * 1.3558179483314004, 1e-6); // NIST SP 811 (2008) B.9
+    expectRel(r.requirements.crankTorqueNm.value, 500 * LBF_FT_NM_REF, 1e-6); // NIST SP 811 (2008) B.9
   });
 
   it("uses the owner's torque target when one is set", () => {
     const r = run({ target: { powerHp: 650, basis: 'crank', torqueLbft: 1400 } });
     expect(r.requirements.crankTorque.value).toBe(1400);
-    expect(r.requirements.crankTorque.working.inputs[0]).toMatchObject({ from: 'target', ref: 'torqueLbft' });
+    expect(r.requirements.crankTorque.working.inputs[0]).toMatchObject({
+      from: 'target',
+      ref: 'torqueLbft',
+    });
   });
 
   it('converts the fuel flow to volume with the density, and per injector per stroke', () => {
     // reference.md chain run backwards: 61.2 kg/h on 8 cyl at 3000 rpm, 0.85 kg/L → 100 mm³/stroke.
     // The crank power burning 61.2 kg/h at 210 g/kWh is 390.812 hp (reference.md worked check).
-    const hp = convertPower(61.2 / 210 * 1000, 'kw', 'hp');
+    const hp = convertPower((61.2 / 210) * 1000, 'kw', 'hp');
     const r = run({
       target: { powerHp: hp, basis: 'crank' },
       assumptions: { bsfc: 210, bsfcUnit: 'g-per-kwh', cylinders: 8, peakRpm: 3000 },
@@ -171,7 +208,10 @@ describe('each rated part in its own unit', () => {
     const r = run({
       target,
       assumptions,
-      components: [part('trans', 'transmission', 720, 'hp-wheel'), part('tc', 'torque-converter', 600, 'kw')],
+      components: [
+        part('trans', 'transmission', 720, 'hp-wheel'),
+        part('tc', 'torque-converter', 600, 'kw'),
+      ],
     });
     const trans = comp(r, 'trans');
     expect(trans.comparedWith).toBe('wheelPower');
@@ -200,7 +240,10 @@ describe('each rated part in its own unit', () => {
   it('adds up identical flow-rated units in parallel', () => {
     const r = run({
       target,
-      components: [part('twins', 'turbocharger', 55, 'lb-per-min', 2), part('pumps', 'fuel-supply', 100, 'gal-per-h', 2)],
+      components: [
+        part('twins', 'turbocharger', 55, 'lb-per-min', 2),
+        part('pumps', 'fuel-supply', 100, 'gal-per-h', 2),
+      ],
     });
     expect(comp(r, 'twins').quantityMultiplies).toBe(true);
     expect(comp(r, 'twins').capacity.value).toBe(110);
@@ -211,7 +254,7 @@ describe('each rated part in its own unit', () => {
   it('compares N·m ratings with the crank torque in N·m', () => {
     const r = run({ target, components: [part('trans', 'transmission', 2000, 'n-m')] });
     const t = comp(r, 'trans');
-    expectRel(t.requirement.value, r.requirements.crankTorque.value * 1.3558179483314004, 1e-14); // NIST SP 811 (2008) B.9
+    expectRel(t.requirement.value, r.requirements.crankTorque.value * LBF_FT_NM_REF, 1e-14); // NIST SP 811 (2008) B.9
   });
 
   it('sets over / tight / ok against the tight margin', () => {
@@ -246,7 +289,7 @@ describe('weakest link, supported power and unknown categories', () => {
       ],
     });
     expect(r.weakestLink).toMatchObject({ componentId: 'Bottom end', status: 'over' });
-    expect(r.weakestLink!.message).toMatch(/Bottom end is the weakest link/);
+    expect(r.weakestLink!.message).toMatch(/^Weakest link: Bottom end, rated 700 crank hp/);
     expect(r.supported!.limitedBy).toBe('Bottom end');
     expect(r.supported!.crankPower.value).toBe(700);
     expectRel(r.supported!.wheelPower.value, 700 * 0.82, 1e-15);
@@ -301,22 +344,30 @@ describe('warnings, one scenario each', () => {
   it('part-over: a part short of the requirement', () => {
     const r = run({
       target: { powerHp: 700, basis: 'crank' },
-      components: [part('be', 'bottom-end', 1000, 'hp-crank'), part('trans', 'transmission', 600, 'hp-crank')],
+      components: [
+        part('be', 'bottom-end', 1000, 'hp-crank'),
+        part('trans', 'transmission', 600, 'hp-crank'),
+      ],
     });
     expect(codes(r)).toEqual(['part-over']);
     expect(r.warnings[0]).toMatchObject({ componentId: 'trans', severity: 'danger' });
-    expect(r.warnings[0].message).toMatch(/trans is over its rating/);
+    expect(r.warnings[0].message).toMatch(
+      /^Over its rating: trans, rated 600 crank hp; the target needs 700 crank hp/,
+    );
   });
 
   it('part-tight: headroom under the margin', () => {
     const r = run({
       target: { powerHp: 700, basis: 'crank' },
       assumptions: { tightMarginPct: 10 },
-      components: [part('be', 'bottom-end', 1000, 'hp-crank'), part('tc', 'torque-converter', 735, 'hp-crank')],
+      components: [
+        part('be', 'bottom-end', 1000, 'hp-crank'),
+        part('tc', 'torque-converter', 735, 'hp-crank'),
+      ],
     });
     expect(codes(r)).toEqual(['part-tight']);
     expect(r.warnings[0]).toMatchObject({ componentId: 'tc', severity: 'warning' });
-    expect(r.warnings[0].message).toMatch(/5 % headroom, less than the 10 % margin/);
+    expect(r.warnings[0].message).toMatch(/^Tight: tc has 5 % headroom, less than the 10 % margin/);
   });
 
   it('no-bottom-end-rating: nothing rated in the bottom end', () => {
@@ -336,7 +387,10 @@ describe('warnings, one scenario each', () => {
   it('no warnings when every part has room and the bottom end is rated', () => {
     const r = run({
       target: { powerHp: 700, basis: 'crank' },
-      components: [part('be', 'bottom-end', 1000, 'hp-crank'), part('trans', 'transmission', 900, 'hp-crank')],
+      components: [
+        part('be', 'bottom-end', 1000, 'hp-crank'),
+        part('trans', 'transmission', 900, 'hp-crank'),
+      ],
     });
     expect(r.warnings).toEqual([]);
   });
@@ -345,7 +399,8 @@ describe('warnings, one scenario each', () => {
 describe('the working', () => {
   function figures(r: EstimateResult): Figure[] {
     const out: Figure[] = Object.values(r.requirements);
-    for (const c of r.components) out.push(c.capacity, c.requirement, c.headroomPct, c.supportedCrankPower);
+    for (const c of r.components)
+      out.push(c.capacity, c.requirement, c.headroomPct, c.supportedCrankPower);
     if (r.supported) out.push(r.supported.crankPower, r.supported.wheelPower);
     return out;
   }
@@ -376,7 +431,8 @@ describe('properties', () => {
   const rating = fc.double({ min: 1, max: 100_000, noNaN: true });
   const basis = fc.constantFrom('crank' as const, 'wheel' as const);
   const headroomOf = (powerHp: number, b: 'crank' | 'wheel', u: RatingUnit, value: number) =>
-    run({ target: { powerHp, basis: b }, components: [part('x', 'other', value, u)] }).components[0].headroomPct.value;
+    run({ target: { powerHp, basis: b }, components: [part('x', 'other', value, u)] }).components[0]
+      .headroomPct.value;
 
   it('headroom rises with capacity', () => {
     fc.assert(
@@ -426,7 +482,19 @@ describe('properties', () => {
             'gal-per-h': 'fuelVolumeFlowGalPerH',
           } as const;
           const exact = first.requirements[key[u]].value;
-          const r = estimate({ ...input, components: [{ id: 'x', name: 'x', category: 'other', ratingValue: exact, ratingUnit: u, quantity: 1 }] });
+          const r = estimate({
+            ...input,
+            components: [
+              {
+                id: 'x',
+                name: 'x',
+                category: 'other',
+                ratingValue: exact,
+                ratingUnit: u,
+                quantity: 1,
+              },
+            ],
+          });
           const c = r.components[0];
           return (
             c.headroomPct.value === 0 &&
@@ -442,10 +510,16 @@ describe('properties', () => {
   it('the supported crank power, taken as the target, leaves the weakest part with zero headroom', () => {
     fc.assert(
       fc.property(targetHp, unit, rating, (hp, u, r) => {
-        const first = run({ target: { powerHp: hp, basis: 'crank' }, components: [part('x', 'other', r, u)] });
+        const first = run({
+          target: { powerHp: hp, basis: 'crank' },
+          components: [part('x', 'other', r, u)],
+        });
         const supported = first.supported!.crankPower.value;
         fc.pre(supported <= 5000);
-        const again = run({ target: { powerHp: supported, basis: 'crank' }, components: [part('x', 'other', r, u)] });
+        const again = run({
+          target: { powerHp: supported, basis: 'crank' },
+          components: [part('x', 'other', r, u)],
+        });
         return Math.abs(again.components[0].headroomPct.value) < 1e-9;
       }),
     );
@@ -477,14 +551,21 @@ describe('request schema', () => {
   it('refuses zero, negative, NaN, infinite and absurd values with the field named', () => {
     expect(fieldsOf({ target: { powerHp: 0, basis: 'crank' } })).toEqual(['target.powerHp']);
     expect(fieldsOf({ target: { powerHp: -5, basis: 'crank' } })).toEqual(['target.powerHp']);
-    expect(fieldsOf({ target: { powerHp: Number.NaN, basis: 'crank' } })).toEqual(['target.powerHp']);
+    expect(fieldsOf({ target: { powerHp: Number.NaN, basis: 'crank' } })).toEqual([
+      'target.powerHp',
+    ]);
     expect(fieldsOf({ target: { powerHp: Infinity, basis: 'crank' } })).toEqual(['target.powerHp']);
     expect(fieldsOf({ target: { powerHp: 1e12, basis: 'crank' } })).toEqual(['target.powerHp']);
-    expect(fieldsOf({ ...ok, assumptions: { drivetrainLossPct: 100 } })).toEqual(['assumptions.drivetrainLossPct']);
-    expect(fieldsOf({ ...ok, assumptions: { peakRpm: 2500.5 } })).toEqual(['assumptions.peakRpm']);
-    expect(fieldsOf({ ...ok, components: [{ ...part('a', 'other', 1, 'hp-crank'), ratingUnit: 'furlongs' }] })).toEqual([
-      'components.0.ratingUnit',
+    expect(fieldsOf({ ...ok, assumptions: { drivetrainLossPct: 100 } })).toEqual([
+      'assumptions.drivetrainLossPct',
     ]);
+    expect(fieldsOf({ ...ok, assumptions: { peakRpm: 2500.5 } })).toEqual(['assumptions.peakRpm']);
+    expect(
+      fieldsOf({
+        ...ok,
+        components: [{ ...part('a', 'other', 1, 'hp-crank'), ratingUnit: 'furlongs' }],
+      }),
+    ).toEqual(['components.0.ratingUnit']);
   });
 
   it('refuses duplicate component ids, unknown keys and more than 500 components', () => {

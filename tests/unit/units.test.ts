@@ -38,8 +38,14 @@ import {
 } from '../../shared/units';
 
 /** |actual − expected| ≤ rel × |expected|. */
+// reference.md's full value of lbf·ft → N·m (NIST SP 811 (2008) B.9, from the exact definitions);
+// parsed from text because the literal has one more digit than a double holds.
+const LBF_FT_NM_REF = Number('1.3558179483314004');
+
 function expectRel(actual: number, expected: number, rel: number) {
-  expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(rel * Math.abs(expected));
+  expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(
+    rel * Math.abs(expected),
+  );
 }
 
 /**
@@ -56,7 +62,7 @@ describe('factors built from the exact definitions', () => {
   it('match the full values in reference.md and the digits SP 811 prints', () => {
     // Each row: [computed, full value from reference.md, printed in NIST SP 811 (2008)].
     const rows: [string, number, number, number][] = [
-      ['lbf·ft → N·m', LBF_FT_NM, 1.3558179483314004, 1.355818], // NIST SP 811 (2008) B.9
+      ['lbf·ft → N·m', LBF_FT_NM, LBF_FT_NM_REF, 1.355818], // NIST SP 811 (2008) B.9
       ['lbf·in → N·m', LBF_IN_NM, 0.11298482902761668, 0.1129848], // NIST SP 811 (2008) B.9
       ['lbf → N', LBF_N, 4.4482216152605, 4.448222], // NIST SP 811 (2008) B.9
       ['hp → W', HP_W, 745.69987158227, 745.6999], // NIST SP 811 (2008) B.9
@@ -82,10 +88,10 @@ describe('factors built from the exact definitions', () => {
 
 describe('convertTorque', () => {
   it('converts between lbf·ft, lbf·in and N·m', () => {
-    expectRel(convertTorque(1, 'lbf-ft', 'n-m'), 1.3558179483314004, 1e-15); // NIST SP 811 (2008) B.9
+    expectRel(convertTorque(1, 'lbf-ft', 'n-m'), LBF_FT_NM_REF, 1e-15); // NIST SP 811 (2008) B.9
     expectRel(convertTorque(1, 'lbf-in', 'n-m'), 0.11298482902761668, 1e-15); // NIST SP 811 (2008) B.9
     expectRel(convertTorque(1, 'lbf-ft', 'lbf-in'), 12, 1e-15); // ft = 12 in, NIST SP 811 (2008) B.8
-    expectRel(convertTorque(1, 'n-m', 'lbf-ft'), 1 / 1.3558179483314004, 1e-15); // NIST SP 811 (2008) B.9
+    expectRel(convertTorque(1, 'n-m', 'lbf-ft'), 1 / LBF_FT_NM_REF, 1e-15); // NIST SP 811 (2008) B.9
     expect(convertTorque(42, 'n-m', 'n-m')).toBe(42);
   });
 
@@ -211,11 +217,15 @@ describe('power–torque identity (P = 2πnT/60)', () => {
 
   it('agrees between the hp and SI forms at any torque and speed', () => {
     fc.assert(
-      fc.property(fc.double({ min: 1, max: 5000, noNaN: true }), fc.integer({ min: 500, max: 8000 }), (t, rpm) => {
-        const viaHp = hpFromLbft(t, rpm);
-        const viaSi = convertPower(kwFromNm(convertTorque(t, 'lbf-ft', 'n-m'), rpm), 'kw', 'hp');
-        return Math.abs(viaHp - viaSi) <= 1e-12 * viaHp;
-      }),
+      fc.property(
+        fc.double({ min: 1, max: 5000, noNaN: true }),
+        fc.integer({ min: 500, max: 8000 }),
+        (t, rpm) => {
+          const viaHp = hpFromLbft(t, rpm);
+          const viaSi = convertPower(kwFromNm(convertTorque(t, 'lbf-ft', 'n-m'), rpm), 'kw', 'hp');
+          return Math.abs(viaHp - viaSi) <= 1e-12 * viaHp;
+        },
+      ),
     );
   });
 });

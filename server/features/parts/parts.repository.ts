@@ -93,7 +93,7 @@ function base(knex: Knex, buildId: string) {
 }
 
 export async function listParts(knex: Knex, buildId: string, opts: { shopUserId?: string } = {}) {
-  const q = base(knex, buildId).orderBy([{ column: 'p.category' }, { column: 'p.created_at' }, { column: 'p.id' }]);
+  const q = base(knex, buildId).orderBy([{ column: 'p.category' }, { column: 'p.created_at' }, { column: 'p.name' }, { column: 'p.id' }]);
   if (opts.shopUserId) q.where('p.shop_user_id', opts.shopUserId);
   const rows: Row[] = await q;
   return rows.map(toRecord);

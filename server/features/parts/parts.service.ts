@@ -15,6 +15,7 @@ import {
 import { AppError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import { fieldsFromZod } from '../../middleware/error-handler';
 import { findBuildForUser } from '../builds/builds.repository';
+import { notifyPartProgress } from '../notices/part-notices';
 import { parseCsv, partsToCsv } from './parts.csv';
 import * as repo from './parts.repository';
 
@@ -82,7 +83,11 @@ export async function update(knex: Knex, buildId: string, rawPartId: string, cal
   }
   checkConsistency({ ...existing, ...input });
   await checkShop(knex, buildId, input.shopUserId);
-  await repo.updatePart(knex, buildId, existing.id, input);
+  // The change and its notices (part received, back from a shop) commit together.
+  await knex.transaction(async (trx) => {
+    await repo.updatePart(trx, buildId, existing.id, input);
+    await notifyPartProgress(trx, buildId, existing, input, caller.userId);
+  });
   return present((await repo.findPart(knex, buildId, existing.id))!);
 }
 

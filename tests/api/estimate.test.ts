@@ -1,0 +1,443 @@
+import { describe, expect, it } from 'vitest';
+import { estimate } from '../../shared/estimate';
+import { estimateRequestSchema, estimateResultSchema } from '../../shared/schemas/estimate';
+import { ESTIMATE_RATE_LIMIT } from '../../server/features/estimate/estimate.router';
+import { useTestApp, type TestApp } from '../helpers/app';
+import { buildInput, buildWithCast, createBuild, moneyKeys, signUp } from '../helpers/factories';
+
+const app = useTestApp();
+
+const request = {
+  target: { powerHp: 600, basis: 'wheel' },
+  assumptions: {
+    bsfc: 0.4,
+    bsfcUnit: 'lb-per-hp-h',
+    afr: 18,
+    drivetrainLossPct: 18,
+    peakRpm: 3000,
+    cylinders: 8,
+  },
+  components: [
+    {
+      id: 'be',
+      name: 'Stock bottom end',
+      category: 'bottom-end',
+      ratingValue: 700,
+      ratingUnit: 'hp-crank',
+      quantity: 1,
+    },
+    {
+      id: 'inj',
+      name: 'Injectors',
+      category: 'fuel-injection',
+      ratingValue: 240,
+      ratingUnit: 'mm3-per-stroke',
+      quantity: 8,
+    },
+    {
+      id: 'turbo',
+      name: 'Turbo',
+      category: 'turbocharger',
+      ratingValue: 100,
+      ratingUnit: 'lb-per-min',
+      quantity: 1,
+    },
+  ],
+};
+
+function post(body: unknown, t: TestApp = app) {
+  return t
+    .agent()
+    .post('/api/estimate')
+    .send(body as object);
+}
+
+/** Sends a JSON text as it is, for values JSON.stringify would not produce. */
+function postRaw(text: string) {
+  return app.agent().post('/api/estimate').set('Content-Type', 'application/json').send(text);
+}
+
+describe('POST /api/estimate', () => {
+  it('answers without sign-in with the same result as the shared function', async () => {
+    const res = await post(request);
+    expect(res.status).toBe(200);
+    expect(estimateResultSchema.safeParse(res.body.estimate).success).toBe(true);
+    expect(res.body.estimate).toEqual(
+      JSON.parse(JSON.stringify(estimate(estimateRequestSchema.parse(request)))),
+    );
+    expect(res.body.estimate.weakestLink.componentId).toBe('be');
+    expect(res.body.estimate.warnings[0].code).toBe('target-exceeds-bottom-end');
+    expect(moneyKeys(res.body)).toEqual([]);
+  });
+
+  it('fills the assumptions and components when left out', async () => {
+    const res = await post({ target: { powerHp: 500, basis: 'crank' } });
+    expect(res.status).toBe(200);
+    expect(res.body.estimate.assumptions).toMatchObject({
+      bsfc: 0.4,
+      afr: 18,
+      cylinders: 8,
+      peakRpm: 3000,
+    });
+    expect(res.body.estimate.warnings.map((w: { code: string }) => w.code)).toEqual([
+      'no-bottom-end-rating',
+      'no-rated-parts',
+    ]);
+  });
+
+  it('answers 400 with the field for a zero or negative target', async () => {
+    for (const powerHp of [0, -5]) {
+      const res = await post({ ...request, target: { powerHp, basis: 'crank' } });
+      expect(res.status).toBe(400);
+      expect(res.body.error.code).toBe('invalid_input');
+      expect(res.body.error.fields['target.powerHp']).toMatch(/above zero/);
+    }
+    const torque = await post({
+      ...request,
+      target: { powerHp: 500, basis: 'crank', torqueLbft: -1 },
+    });
+    expect(torque.body.error.fields['target.torqueLbft']).toMatch(/above zero/);
+  });
+
+  it('answers 400 with the field for an unknown unit or basis', async () => {
+    const res = await post({
+      ...request,
+      target: { powerHp: 500, basis: 'flywheel' },
+      assumptions: { bsfcUnit: 'mpg' },
+      components: [{ ...request.components[0], ratingUnit: 'furlongs-per-fortnight' }],
+    });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual([
+      'assumptions.bsfcUnit',
+      'components.0.ratingUnit',
+      'target.basis',
+    ]);
+  });
+
+  it('answers 400 with the field for NaN and Infinity sent as strings', async () => {
+    const res = await post({
+      ...request,
+      target: { powerHp: 'NaN', basis: 'crank' },
+      assumptions: { afr: 'Infinity' },
+      components: [{ ...request.components[0], ratingValue: '-Infinity' }],
+    });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual([
+      'assumptions.afr',
+      'components.0.ratingValue',
+      'target.powerHp',
+    ]);
+  });
+
+  it('answers 400 with the field for a number too large for a double (JSON 1e999 parses as Infinity)', async () => {
+    const res = await postRaw(
+      '{"target":{"powerHp":1e999,"basis":"crank"},"assumptions":{"peakRpm":-1e999}}',
+    );
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['target.powerHp']).toBeDefined();
+    expect(res.body.error.fields['assumptions.peakRpm']).toBeDefined();
+  });
+
+  it('answers 400 with the field for absurd magnitudes', async () => {
+    const res = await post({
+      target: { powerHp: 1e300, basis: 'crank', torqueLbft: 1e9 },
+      assumptions: {
+        afr: 1e6,
+        fuelDensityKgPerL: 850,
+        drivetrainLossPct: 150,
+        peakRpm: 1e7,
+        cylinders: 1000,
+        bsfc: 1e-300,
+      },
+      components: [{ ...request.components[0], ratingValue: 1e20, quantity: 1e9 }],
+    });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual([
+      'assumptions.afr',
+      'assumptions.bsfc',
+      'assumptions.cylinders',
+      'assumptions.drivetrainLossPct',
+      'assumptions.fuelDensityKgPerL',
+      'assumptions.peakRpm',
+      'components.0.quantity',
+      'components.0.ratingValue',
+      'target.powerHp',
+      'target.torqueLbft',
+    ]);
+  });
+
+  it('answers 400 with the field for a BSFC outside its range in the unit it was entered in', async () => {
+    const res = await post({ ...request, assumptions: { bsfc: 500, bsfcUnit: 'g-per-kwh' } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields['assumptions.bsfc']).toMatch(/g\/kWh/);
+  });
+
+  it('answers 400 to 10,000 components', async () => {
+    const components = Array.from({ length: 10_000 }, (_, i) => ({
+      ...request.components[0],
+      id: `c${i}`,
+    }));
+    const res = await post({ ...request, components });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.components).toMatch(/At most 500/);
+  });
+
+  it('answers 400 to unknown keys and a body that is not an object', async () => {
+    const res = await post({ ...request, horsepower: 9000 });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.horsepower).toBe('Unknown field');
+    expect((await post([1, 2, 3])).status).toBe(400);
+  });
+
+  it('refuses a POST that does not come from the app (no Origin)', async () => {
+    const res = await app.bare().post('/api/estimate').send(request);
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe('bad_origin');
+  });
+});
+
+describe('POST /api/estimate rate limit', () => {
+  const limited = useTestApp();
+
+  it(`answers 429 after ${ESTIMATE_RATE_LIMIT} estimates a minute from one client`, async () => {
+    const body = { target: { powerHp: 500, basis: 'crank' } };
+    const statuses: number[] = [];
+    for (let i = 0; i < ESTIMATE_RATE_LIMIT; i += 20) {
+      const batch = await Promise.all(Array.from({ length: 20 }, () => post(body, limited)));
+      statuses.push(...batch.map((r) => r.status));
+    }
+    expect(statuses.every((s) => s === 200)).toBe(true);
+    const over = await post(body, limited);
+    expect(over.status).toBe(429);
+    expect(over.body.error.code).toBe('rate_limited');
+  });
+});
+
+// ---------------------------------------------------------------- stored builds
+
+type PartRow = {
+  category: string;
+  name: string;
+  quantity?: number;
+  status?: string;
+  rating_value?: number | null;
+  rating_unit?: string | null;
+};
+
+async function insertParts(buildId: string, rows: PartRow[]): Promise<string[]> {
+  const inserted = await app.db
+    .knex('parts')
+    .insert(rows.map((r) => ({ build_id: buildId, quantity: 1, status: 'planned', ...r })))
+    .returning('id');
+  return inserted.map((r: { id: string }) => r.id);
+}
+
+/** The factory build (650 crank hp, 8 cylinders) with a rated bottom end and injectors, a returned turbo and an unrated part. */
+async function castWithRatedParts() {
+  const cast = await buildWithCast(app);
+  const [bottomEnd, injectors, returnedTurbo, unrated] = await insertParts(cast.build.id, [
+    {
+      category: 'bottom-end',
+      name: 'Stock bottom end',
+      status: 'installed',
+      rating_value: 700,
+      rating_unit: 'hp-crank',
+    },
+    {
+      category: 'fuel-injection',
+      name: 'Injectors',
+      quantity: 8,
+      status: 'in-hand',
+      rating_value: 200,
+      rating_unit: 'mm3-per-stroke',
+    },
+    {
+      category: 'turbocharger',
+      name: 'Wrong turbo',
+      status: 'returned',
+      rating_value: 40,
+      rating_unit: 'lb-per-min',
+    },
+    {
+      category: 'cooling',
+      name: 'Intercooler',
+      status: 'ordered',
+      rating_value: null,
+      rating_unit: null,
+    },
+  ]);
+  return { ...cast, ids: { bottomEnd, injectors, returnedTurbo, unrated } };
+}
+
+describe('GET /api/builds/:buildId/estimate', () => {
+  it('shows every member the estimate from the target, cylinders, assumptions and rated parts', async () => {
+    const { owner, crew, shop, viewer, build, ids } = await castWithRatedParts();
+    const expected = estimate(
+      estimateRequestSchema.parse({
+        target: {
+          powerHp: buildInput.targetPowerHp,
+          basis: buildInput.targetPowerBasis,
+          torqueLbft: null,
+        },
+        assumptions: { cylinders: buildInput.cylinders },
+        components: [
+          {
+            id: ids.bottomEnd,
+            name: 'Stock bottom end',
+            category: 'bottom-end',
+            ratingValue: 700,
+            ratingUnit: 'hp-crank',
+          },
+          {
+            id: ids.injectors,
+            name: 'Injectors',
+            category: 'fuel-injection',
+            ratingValue: 200,
+            ratingUnit: 'mm3-per-stroke',
+            quantity: 8,
+          },
+        ],
+      }),
+    );
+    for (const member of [owner, crew, shop, viewer]) {
+      const res = await member.agent.get(`/api/builds/${build.id}/estimate`);
+      expect(res.status).toBe(200);
+      expect(res.body.estimate).toEqual(JSON.parse(JSON.stringify(expected)));
+      expect(moneyKeys(res.body)).toEqual([]);
+    }
+  });
+
+  it('leaves out returned and unrated parts and lists unrated categories as unknown', async () => {
+    const { owner, build, ids } = await castWithRatedParts();
+    const { estimate: e } = (await owner.agent.get(`/api/builds/${build.id}/estimate`)).body;
+    const componentIds = e.components.map((c: { id: string }) => c.id);
+    expect(componentIds).not.toContain(ids.returnedTurbo);
+    expect(componentIds).not.toContain(ids.unrated);
+    expect(e.unknownCategories).toContain('turbocharger');
+    expect(e.unknownCategories).toContain('cooling');
+    expect(e.assumptions.cylinders).toBe(buildInput.cylinders);
+  });
+
+  it('follows the target and the saved assumptions', async () => {
+    const { owner, build, ids } = await castWithRatedParts();
+    // 650 crank hp against a 700 hp bottom end: about 7.7 % headroom, tight under the 10 % default margin.
+    let e = (await owner.agent.get(`/api/builds/${build.id}/estimate`)).body.estimate;
+    expect(e.components.find((c: { id: string }) => c.id === ids.bottomEnd).status).toBe('tight');
+    await owner.agent.patch(`/api/builds/${build.id}`).send({ targetPowerHp: 750 });
+    e = (await owner.agent.get(`/api/builds/${build.id}/estimate`)).body.estimate;
+    expect(e.warnings[0]).toMatchObject({
+      code: 'target-exceeds-bottom-end',
+      componentId: ids.bottomEnd,
+    });
+    expect(e.warnings[0].shortfall.crankHp).toBeCloseTo(50, 9);
+    const put = await owner.agent
+      .put(`/api/builds/${build.id}/assumptions`)
+      .send({ peakRpm: 3400, drivetrainLossPct: 15 });
+    expect(put.status).toBe(200);
+    e = (await owner.agent.get(`/api/builds/${build.id}/estimate`)).body.estimate;
+    expect(e.assumptions).toMatchObject({ peakRpm: 3400, drivetrainLossPct: 15 });
+  });
+
+  it('answers 404 to a stranger and for a missing build, 401 when signed out', async () => {
+    const { stranger, build } = await castWithRatedParts();
+    const res = await stranger.agent.get(`/api/builds/${build.id}/estimate`);
+    expect(res.status).toBe(404);
+    expect(JSON.stringify(res.body)).not.toMatch(/bottom end/i);
+    expect(
+      (await stranger.agent.get('/api/builds/00000000-0000-4000-8000-000000000000/estimate'))
+        .status,
+    ).toBe(404);
+    expect((await stranger.agent.get('/api/builds/not-an-id/estimate')).status).toBe(404);
+    expect((await app.agent().get(`/api/builds/${build.id}/estimate`)).status).toBe(401);
+  });
+});
+
+describe('GET and PUT /api/builds/:buildId/assumptions', () => {
+  it('gives every member the defaults until the owner saves a set', async () => {
+    const { owner, crew, shop, viewer, build } = await buildWithCast(app);
+    for (const member of [owner, crew, shop, viewer]) {
+      const res = await member.agent.get(`/api/builds/${build.id}/assumptions`);
+      expect(res.status).toBe(200);
+      expect(res.body).toEqual({
+        isDefault: true,
+        assumptions: {
+          bsfc: 0.4,
+          bsfcUnit: 'lb-per-hp-h',
+          afr: 18,
+          fuelDensityKgPerL: 0.85,
+          drivetrainLossPct: 18,
+          peakRpm: 3000,
+          tightMarginPct: 10,
+        },
+      });
+    }
+  });
+
+  it('lets the owner save a set, BSFC in g/kWh shown back as typed, and replace it', async () => {
+    const { owner, viewer, build } = await buildWithCast(app);
+    const url = `/api/builds/${build.id}/assumptions`;
+    const saved = {
+      bsfc: 210,
+      bsfcUnit: 'g-per-kwh',
+      afr: 20,
+      fuelDensityKgPerL: 0.84,
+      drivetrainLossPct: 15,
+      peakRpm: 3200,
+      tightMarginPct: 12.5,
+    };
+    const res = await owner.agent.put(url).send(saved);
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ isDefault: false, assumptions: saved });
+    expect((await viewer.agent.get(url)).body).toEqual({ isDefault: false, assumptions: saved });
+    // Stored in lb/(hp·h): 210 g/kWh ÷ 608.27739 (reference.md factor)
+    const row = await app.db.knex('build_assumptions').where({ build_id: build.id }).first();
+    expect(row.bsfc_lb_per_hp_h).toBeCloseTo(210 / 608.27739, 8);
+    // PUT replaces the whole set: what is left out goes back to its default.
+    const again = await owner.agent.put(url).send({ afr: 19 });
+    expect(again.body.assumptions).toMatchObject({
+      afr: 19,
+      bsfc: 0.4,
+      bsfcUnit: 'lb-per-hp-h',
+      peakRpm: 3000,
+    });
+    expect(await app.db.knex('build_assumptions').where({ build_id: build.id })).toHaveLength(1);
+  });
+
+  it('refuses crew, shop and viewer with 403, a stranger with 404 and a signed-out caller with 401', async () => {
+    const { crew, shop, viewer, stranger, build } = await buildWithCast(app);
+    const url = `/api/builds/${build.id}/assumptions`;
+    for (const m of [crew, shop, viewer])
+      expect((await m.agent.put(url).send({ afr: 25 })).status).toBe(403);
+    expect((await stranger.agent.put(url).send({ afr: 25 })).status).toBe(404);
+    expect((await stranger.agent.get(url)).status).toBe(404);
+    expect((await app.agent().put(url).send({ afr: 25 })).status).toBe(401);
+    expect((await app.agent().get(url)).status).toBe(401);
+    expect(await app.db.knex('build_assumptions').where({ build_id: build.id })).toEqual([]);
+  });
+
+  it('answers 400 with the fields for values out of range, unknown keys and cylinders', async () => {
+    const owner = await signUp(app, 'owner');
+    const build = await createBuild(owner);
+    const res = await owner.agent
+      .put(`/api/builds/${build.id}/assumptions`)
+      .send({ afr: 2, drivetrainLossPct: -1, peakRpm: 'fast', tightMarginPct: 1e9, cylinders: 6 });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual([
+      'afr',
+      'cylinders',
+      'drivetrainLossPct',
+      'peakRpm',
+      'tightMarginPct',
+    ]);
+    expect(res.body.error.fields.cylinders).toBe('Unknown field');
+    expect(await app.db.knex('build_assumptions').where({ build_id: build.id })).toEqual([]);
+  });
+
+  it('goes with the build when the build is deleted', async () => {
+    const owner = await signUp(app, 'owner');
+    const build = await createBuild(owner);
+    await owner.agent.put(`/api/builds/${build.id}/assumptions`).send({ afr: 19 });
+    expect((await owner.agent.delete(`/api/builds/${build.id}`)).status).toBe(204);
+    expect(await app.db.knex('build_assumptions').where({ build_id: build.id })).toEqual([]);
+  });
+});
