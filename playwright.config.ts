@@ -1,5 +1,7 @@
 import { defineConfig, devices } from '@playwright/test';
 import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 
 // Debian's Chromium; Playwright never downloads a browser here.
 const chromium = ['/usr/lib/chromium/chromium', '/usr/bin/chromium'].find((p) => fs.existsSync(p));
@@ -43,8 +45,14 @@ export default defineConfig({
       PORT: String(port),
       NODE_ENV: 'test',
       AUTH_RATE_LIMIT: '1000',
+      PASSWORD_RESET_RATE_LIMIT: '1000',
       LOG_LEVEL: 'warn',
       DATABASE_URL: process.env.DATABASE_URL ?? '',
+      // No SMTP settings: the server runs its mail catcher here; specs read it at /dev/mail.
+      MAIL_CATCHER_PORT: process.env.E2E_MAIL_PORT ?? String(port + 1),
+      MAIL_DIR: process.env.E2E_MAIL_DIR ?? path.join(os.tmpdir(), `headroom-e2e-mail-${port}`),
+      APP_URL: baseURL,
+      MAIL_POLL_MS: '200',
     },
   },
 });

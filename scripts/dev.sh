@@ -15,5 +15,8 @@ export DATABASE_URL="postgres://headroom@127.0.0.1:$PGPORT/headroom"
 node --import tsx scripts/migrate.ts
 node --import tsx scripts/seed.ts
 say "client: http://127.0.0.1:5173 (proxies /api to :3000)"
+# Links in mails open the Vite client; caught mail is listed by the API server itself.
+export APP_URL="${APP_URL:-http://127.0.0.1:5173}"
+say "caught mail: http://127.0.0.1:3000/dev/mail"
 SERVE_CLIENT=0 npx concurrently -k -n api,web -c yellow,cyan \
   "node --import tsx --watch server/index.ts" "vite --host 127.0.0.1"

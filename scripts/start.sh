@@ -6,6 +6,9 @@ cd "$ROOT"
 
 PGPORT="${PGPORT:-54329}"
 PORT="${PORT:-3000}"
+# Without SMTP_URL/SMTP_HOST the server runs a local mail catcher: mail is kept, not sent.
+MAIL_CATCHER_PORT="${MAIL_CATCHER_PORT:-2525}"
+MAIL_DIR="${MAIL_DIR:-$ROOT/.data/mail}"
 DATA_DIR="$ROOT/.data/postgres"
 
 ensure_postgres
@@ -38,10 +41,18 @@ node --import tsx scripts/seed.ts
 say "building the client"
 npx vite build --logLevel warn
 
-export PORT NODE_ENV="${NODE_ENV:-production}"
+# development, not production: a local run shows its caught mail at /dev/mail, which
+# production never serves (and production refuses to start without SMTP settings).
+export PORT NODE_ENV="${NODE_ENV:-development}" MAIL_CATCHER_PORT MAIL_DIR
 node --import tsx server/index.ts &
 SERVER_PID=$!
 
+if [ -n "${SMTP_URL:-}${SMTP_HOST:-}" ]; then
+  MAIL_LINE="Mail goes out through the SMTP server in SMTP_URL/SMTP_HOST."
+else
+  MAIL_LINE="Mail is caught, not sent: read it at http://127.0.0.1:$PORT/dev/mail
+  (invitations, password resets, notices; files in ${MAIL_DIR#"$ROOT"/})."
+fi
 for _ in $(seq 1 100); do
   if node -e "fetch('http://127.0.0.1:$PORT/api/health').then(r=>process.exit(r.ok?0:1),()=>process.exit(1))"; then break; fi
   kill -0 "$SERVER_PID" 2>/dev/null || die "the server stopped while starting (see the log above)"
@@ -56,6 +67,8 @@ cat <<MSG
     crew    crew@example.test     Teddy Brandt, wrenches on it
     shop    shop@example.test     Ridgeback Fuel Lab, rebuilds its injectors
     viewer  viewer@example.test   Jo Whitlock, follows the build
+
+  $MAIL_LINE
 
   Ctrl-C stops the server and PostgreSQL. Data stays in .data/ (delete it to reset).
 

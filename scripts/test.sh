@@ -65,6 +65,10 @@ check "client build" npx vite build --logLevel warn
 
 say "end-to-end tests (Playwright in Chromium)"
 export E2E_PORT="$(free_port)"
+# The e2e server's mail catcher: its own port and a throwaway folder (read by the specs at /dev/mail).
+E2E_MAIL_PORT="$(free_port)"
+[ "$E2E_MAIL_PORT" = "$E2E_PORT" ] && E2E_MAIL_PORT="$(free_port)"
+export E2E_MAIL_PORT E2E_MAIL_DIR="$WORK/mail"
 PLAYWRIGHT_JSON_OUTPUT_NAME="$WORK/playwright.json" npx playwright test --reporter=list,json
 PW_RC=$?
 read -r EP EF < <(count "$WORK/playwright.json" "r.stats.expected + r.stats.flaky" "r.stats.unexpected")

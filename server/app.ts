@@ -8,6 +8,8 @@ import type { AppConfig } from './config';
 import { createSessions, type Sessions } from './lib/auth';
 import type { Database } from './lib/database';
 import { createLogger, type Logger } from './lib/logger';
+import { createLocalDiskStorage, type Storage } from './lib/storage';
+import { redactTokens } from './lib/tokens';
 import './lib/request';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { moneyFilter } from './middleware/money-filter';
@@ -17,15 +19,25 @@ import { authRouter, meRouter } from './features/auth/auth.router';
 import { buildsRouter } from './features/builds/builds.router';
 import { estimateRouter } from './features/estimate/estimate.router';
 import { healthRouter } from './features/health/health.router';
+import { buildInvitationsRouter, invitationLinksRouter } from './features/invitations/invitations.router';
+import { devMailRouter } from './features/mail/dev-mail.router';
+import { noticePreferencesRouter } from './features/notices/notices.router';
+import { passwordResetRouter } from './features/password-reset/password-reset.router';
 
-export type AppDeps = { db: Database; config: AppConfig; logger: Logger; sessions: Sessions };
+export type AppDeps = { db: Database; config: AppConfig; logger: Logger; sessions: Sessions; storage: Storage };
 
 const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
 
 /** Builds the Express app. Never listens: server/index.ts and the tests do that. */
-export function createApp(opts: { db: Database; config: AppConfig; logger?: Logger }) {
+export function createApp(opts: { db: Database; config: AppConfig; logger?: Logger; storage?: Storage }) {
   const logger = opts.logger ?? createLogger(opts.config.logLevel);
-  const deps: AppDeps = { ...opts, logger, sessions: createSessions(opts.db.pool) };
+  const deps: AppDeps = {
+    ...opts,
+    logger,
+    sessions: createSessions(opts.db.pool),
+    // Photos: the local disk unless the caller passes another store (an S3-compatible one).
+    storage: opts.storage ?? createLocalDiskStorage(opts.config.storageDir),
+  };
   const app = express();
 
   app.disable('x-powered-by');
@@ -44,7 +56,7 @@ export function createApp(opts: { db: Database; config: AppConfig; logger?: Logg
       autoLogging: opts.config.env !== 'test' && { ignore: (req) => req.url === '/api/health' },
       // One short line a request: never headers (cookies) or bodies (passwords).
       serializers: {
-        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: redactTokens(req.url) }),
         res: (res: { statusCode: number }) => ({ status: res.statusCode }),
       },
     }),
@@ -59,10 +71,16 @@ export function createApp(opts: { db: Database; config: AppConfig; logger?: Logg
   api.use('/auth', authRouter(deps));
   api.use('/me', meRouter());
   api.use('/builds', buildsRouter(deps));
+  api.use('/auth/password-reset', passwordResetRouter(deps));
+  api.use('/invitations', invitationLinksRouter(deps));
+  api.use('/builds/:buildId/invitations', buildInvitationsRouter(deps));
+  api.use('/builds/:buildId/notice-preferences', noticePreferencesRouter(deps));
   api.use('/estimate', estimateRouter(deps));
   api.use(notFoundApi);
   api.use(errorHandler(logger));
   app.use('/api', api);
+  // The local catcher's mailbox; 404 in production and when real SMTP is set.
+  app.use('/dev/mail', devMailRouter(opts.config));
 
   if (opts.config.serveClient && fs.existsSync(path.join(distDir, 'index.html'))) {
     app.use(express.static(distDir, { index: false, maxAge: '1h' }));

@@ -1,3 +1,4 @@
+import os from 'node:os';
 import path from 'node:path';
 import { z } from 'zod';
 
@@ -38,6 +39,12 @@ const envSchema = z.object({
   MAIL_POLL_MS: z.coerce.number().int().min(100).default(1000),
   /** Password-reset requests per client per 15 minutes. */
   PASSWORD_RESET_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
+  /** Folder of the local-disk photo store (relative to the working folder). */
+  STORAGE_DIR: z.string().min(1).default('.data/uploads'),
+  /** Folder for uploads while they are checked; emptied after every request. Default: the OS temp folder. */
+  UPLOAD_TMP_DIR: z.string().min(1).optional(),
+  /** Largest photo accepted, in MiB. */
+  PHOTO_MAX_MB: z.coerce.number().positive().max(200).default(25),
 });
 
 export type SmtpSettings =
@@ -70,6 +77,12 @@ export type AppConfig = {
   appUrl: string;
   mail: MailConfig;
   passwordResetRateLimit: number;
+  /** Absolute folder of the local-disk photo store. */
+  storageDir: string;
+  /** Absolute folder where multer writes uploads before they are checked. */
+  uploadTmpDir: string;
+  /** Largest photo accepted, in bytes (25 MiB by default). */
+  photoMaxBytes: number;
 };
 
 /** Parses the environment; exits with a clear message instead of starting half-configured. */
@@ -120,5 +133,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       pollMs: e.MAIL_POLL_MS,
     },
     passwordResetRateLimit: e.PASSWORD_RESET_RATE_LIMIT,
+    storageDir: path.resolve(e.STORAGE_DIR),
+    uploadTmpDir: path.resolve(e.UPLOAD_TMP_DIR ?? path.join(os.tmpdir(), 'headroom-uploads')),
+    photoMaxBytes: Math.round(e.PHOTO_MAX_MB * 1024 * 1024),
   };
 }

@@ -2,11 +2,30 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { createDatabase } from './lib/database';
 import { createLogger } from './lib/logger';
+import { startMailCatcher, type MailCatcher } from './lib/mail-catcher';
+import { createMailer } from './lib/mailer';
+import { createMailWorker } from './features/mail/mail.worker';
 
 const config = loadConfig();
 const logger = createLogger(config.logLevel);
 const db = createDatabase(config.databaseUrl);
 const app = createApp({ db, config, logger });
+
+// Mail: without SMTP settings a local catcher keeps every message under MAIL_DIR
+// (listed at /dev/mail); the worker sends the outbox in this process either way.
+let catcher: MailCatcher | null = null;
+if (!config.mail.smtp) {
+  try {
+    catcher = await startMailCatcher({ port: config.mail.catcherPort, dir: config.mail.dir });
+    logger.info(`mail catcher on 127.0.0.1:${catcher.port}, messages in ${catcher.dir}, listed at ${config.appUrl}/dev/mail`);
+  } catch (err) {
+    logger.fatal({ err }, `the mail catcher cannot listen on 127.0.0.1:${config.mail.catcherPort}: set MAIL_CATCHER_PORT to a free port, or SMTP_URL to send real mail`);
+    process.exit(1);
+  }
+}
+const mailer = createMailer(config.mail);
+const mailWorker = createMailWorker({ knex: db.knex, mailer, logger, appUrl: config.appUrl, pollMs: config.mail.pollMs });
+mailWorker.start();
 
 const server = app.listen(config.port, config.host, () => {
   logger.info(`Headroom is listening on http://${config.host}:${config.port}`);
@@ -23,6 +42,10 @@ async function stop(signal: string) {
   logger.info(`${signal}: closing`);
   server.close();
   server.closeAllConnections();
+  // Queued mail stays in PostgreSQL; a pass under way finishes first.
+  await mailWorker.stop();
+  mailer.close();
+  await catcher?.close();
   await db.close().catch(() => undefined);
   process.exit(0);
 }

@@ -15,14 +15,23 @@ export function minorUnitDigits(currency: string): number {
   }
 }
 
-/** Formats integer minor units as money in the given currency, e.g. 1850000 USD → "$18,500.00". */
-export function formatMoney(cents: number, currency: string, locale?: string): string {
+/**
+ * Formats integer minor units as money in the given currency, e.g. 1850000 USD → "$18,500.00".
+ * `display: 'narrowSymbol'` gives "$" for CAD too — only use it where the code is shown beside.
+ */
+export function formatMoney(
+  cents: number,
+  currency: string,
+  options: { locale?: string; display?: 'symbol' | 'narrowSymbol' | 'code' } = {},
+): string {
+  const { locale, display = 'symbol' } = options;
   const digits = minorUnitDigits(currency);
   const major = cents / 10 ** digits;
   try {
     return new Intl.NumberFormat(locale, {
       style: 'currency',
       currency,
+      currencyDisplay: display,
       minimumFractionDigits: digits,
       maximumFractionDigits: digits,
     }).format(major);

@@ -52,6 +52,10 @@ export const permissions = {
   'photos:upload': ['owner', 'crew', 'shop'],
   'photos:update': ['owner', 'crew', 'shop'],
   'photos:delete': ownerOnly,
+  // Invite by e-mail, list, resend and revoke invitations.
+  'invitations:manage': ownerOnly,
+  // Each member chooses, for themself only, which notices they receive.
+  'notices:own-preferences': everyone,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof permissions;

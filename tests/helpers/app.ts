@@ -5,12 +5,16 @@
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import supertest from 'supertest';
 import { afterAll, beforeAll } from 'vitest';
 import { createApp } from '../../server/app';
 import { loadConfig, type AppConfig } from '../../server/config';
 import { createDatabase, type Database } from '../../server/lib/database';
 import { createLogger } from '../../server/lib/logger';
+import { prepareTestMail, type TestMail } from './mail';
 
 export type Agent = ReturnType<typeof supertest.agent>;
 
@@ -21,20 +25,40 @@ export type TestApp = {
   agent: () => Agent;
   /** A raw request without Origin, for the CSRF checks. */
   bare: () => ReturnType<typeof supertest>;
+  /** Only with useTestApp(…, { mail: true }): the catcher, the worker and the caught messages. */
+  mail: TestMail;
+  /** This app's own photo store and upload temp folder (fresh temp folders, removed afterwards). */
+  storageDir: string;
+  uploadTmpDir: string;
 };
 
-/** Starts one app for the test file; `overrides` changes config (e.g. a low rate limit). */
-export function useTestApp(overrides: Partial<AppConfig> = {}): TestApp {
+/**
+ * Starts one app for the test file; `overrides` changes config (e.g. a low rate limit).
+ * `{ mail: true }` gives the file its own database, a mail catcher and a worker (see ./mail.ts).
+ */
+export function useTestApp(overrides: Partial<AppConfig> = {}, options: { mail?: boolean } = {}): TestApp {
   const ctx = {} as TestApp & { server: Server };
+  let mailSetup: Awaited<ReturnType<typeof prepareTestMail>> | undefined;
+  let filesDir: string | undefined;
   beforeAll(async () => {
+    filesDir = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-test-files-'));
     const base = loadConfig({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' });
-    const config: AppConfig = {
+    let config: AppConfig = {
       ...base,
       authRateLimit: 100_000,
+      passwordResetRateLimit: 100_000,
       rateLimitPrefix: `test-${randomUUID()}:`,
       serveClient: false,
+      storageDir: path.join(filesDir, 'uploads'),
+      uploadTmpDir: path.join(filesDir, 'upload-tmp'),
       ...overrides,
     };
+    if (options.mail) {
+      mailSetup = await prepareTestMail(config);
+      config = mailSetup.config;
+    }
+    ctx.storageDir = config.storageDir;
+    ctx.uploadTmpDir = config.uploadTmpDir;
     ctx.db = createDatabase(config.databaseUrl);
     const app = createApp({ db: ctx.db, config, logger: createLogger('silent') });
     ctx.server = await new Promise<Server>((resolve) => {
@@ -44,10 +68,13 @@ export function useTestApp(overrides: Partial<AppConfig> = {}): TestApp {
     ctx.origin = `http://127.0.0.1:${port}`;
     ctx.agent = () => supertest.agent(ctx.origin).set('Origin', ctx.origin);
     ctx.bare = () => supertest(ctx.origin);
+    if (mailSetup) ctx.mail = mailSetup.attach(ctx.db, ctx.origin);
   });
   afterAll(async () => {
     await new Promise((r) => ctx.server?.close(r));
     await ctx.db?.close();
+    await mailSetup?.teardown();
+    if (filesDir) fs.rmSync(filesDir, { recursive: true, force: true });
   });
   return ctx;
 }

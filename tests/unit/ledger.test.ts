@@ -6,7 +6,15 @@ import { addDays, daysBetween, sendOutStatus } from '../../shared/ledger/send-ou
 import { centsToPlain, parseMoneyToCents } from '../../shared/money';
 import type { PartStatus } from '../../shared/schemas/parts';
 
-const money = { quantity: 1, unitPriceCents: 0, labourCents: 0, shippingCents: 0, taxCents: 0, coreChargeCents: 0, coreRefundCents: 0 };
+const money = {
+  quantity: 1,
+  unitPriceCents: 0,
+  labourCents: 0,
+  shippingCents: 0,
+  taxCents: 0,
+  coreChargeCents: 0,
+  coreRefundCents: 0,
+};
 
 describe('money in cents', () => {
   it('parses decimal text exactly, where a float multiply would not', () => {
@@ -15,17 +23,31 @@ describe('money in cents', () => {
     expect(parseMoneyToCents('1,234.5')).toBe(123450);
     expect(parseMoneyToCents('$7')).toBe(700);
     expect(parseMoneyToCents('')).toBe(0);
-    for (const bad of ['-1', '1.234', 'abc', '1e5', '12.3.4']) expect(parseMoneyToCents(bad)).toBeNull();
+    for (const bad of ['-1', '1.234', 'abc', '1e5', '12.3.4'])
+      expect(parseMoneyToCents(bad)).toBeNull();
   });
 
   it('round-trips every amount through its plain text', () => {
-    fc.assert(fc.property(fc.integer({ min: 0, max: 99_999_999_999 }), (c) => parseMoneyToCents(centsToPlain(c)) === c));
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 0, max: 99_999_999_999 }),
+        (c) => parseMoneyToCents(centsToPlain(c)) === c,
+      ),
+    );
   });
 });
 
 describe('part cost', () => {
   it('adds price × quantity, labour, shipping, tax and the unrefunded core', () => {
-    const p = { quantity: 8, unitPriceCents: 42_500, labourCents: 1_000, shippingCents: 4_000, taxCents: 27_200, coreChargeCents: 80_000, coreRefundCents: 30_000 };
+    const p = {
+      quantity: 8,
+      unitPriceCents: 42_500,
+      labourCents: 1_000,
+      shippingCents: 4_000,
+      taxCents: 27_200,
+      coreChargeCents: 80_000,
+      coreRefundCents: 30_000,
+    };
     expect(partTotalCents(p)).toBe(340_000 + 1_000 + 4_000 + 27_200 + 50_000);
     expect(coreOwedCents(p)).toBe(50_000);
   });
@@ -36,15 +58,31 @@ describe('send-outs', () => {
     expect(daysBetween('2026-02-27', '2026-03-02')).toBe(3); // across a short February
     expect(addDays('2026-12-25', 10)).toBe('2027-01-04');
     const p = { status: 'at-shop', sentOutOn: '2026-11-01', turnaroundDays: 14 };
-    expect(sendOutStatus(p, '2026-11-15')).toEqual({ daysOut: 14, dueOn: '2026-11-15', overdue: false });
-    expect(sendOutStatus(p, '2026-11-16')).toEqual({ daysOut: 15, dueOn: '2026-11-15', overdue: true });
+    expect(sendOutStatus(p, '2026-11-15')).toEqual({
+      daysOut: 14,
+      dueOn: '2026-11-15',
+      overdue: false,
+    });
+    expect(sendOutStatus(p, '2026-11-16')).toEqual({
+      daysOut: 15,
+      dueOn: '2026-11-15',
+      overdue: true,
+    });
     expect(sendOutStatus({ ...p, status: 'in-hand' }, '2026-11-16')).toBeNull();
-    expect(sendOutStatus({ ...p, turnaroundDays: null }, '2026-12-01')).toMatchObject({ dueOn: null, overdue: false });
+    expect(sendOutStatus({ ...p, turnaroundDays: null }, '2026-12-01')).toMatchObject({
+      dueOn: null,
+      overdue: false,
+    });
   });
 });
 
 describe('computeBudget', () => {
-  const part = (id: string, status: PartStatus, cents: number, extra: Partial<typeof money> & { orderedOn?: string } = {}) => ({
+  const part = (
+    id: string,
+    status: PartStatus,
+    cents: number,
+    extra: Partial<typeof money> & { orderedOn?: string } = {},
+  ) => ({
     ...money,
     unitPriceCents: cents,
     ...extra,
@@ -59,18 +97,32 @@ describe('computeBudget', () => {
 
   it('counts planned, committed and spent by stage and leaves returned parts out', () => {
     const b = computeBudget(
-      [part('a', 'planned', 100), part('bb', 'ordered', 200), part('ccc', 'installed', 400), part('dddd', 'returned', 800)],
+      [
+        part('a', 'planned', 100),
+        part('bb', 'ordered', 200),
+        part('ccc', 'installed', 400),
+        part('dddd', 'returned', 800),
+      ],
       1_000,
       'USD',
     );
-    expect(b.totals).toMatchObject({ plannedCents: 700, committedCents: 600, spentCents: 400, partCount: 3 });
+    expect(b.totals).toMatchObject({
+      plannedCents: 700,
+      committedCents: 600,
+      spentCents: 400,
+      partCount: 3,
+    });
     expect(b.remainingAfterPlannedCents).toBe(300);
     expect(b.overBudget).toBe(false);
     expect(b.tippingPart).toBeNull();
   });
 
   it('names the part that crosses the budget, money already spent counted first', () => {
-    const b = computeBudget([part('a', 'planned', 500), part('bb', 'installed', 600), part('ccc', 'ordered', 300)], 1_000, 'USD');
+    const b = computeBudget(
+      [part('a', 'planned', 500), part('bb', 'installed', 600), part('ccc', 'ordered', 300)],
+      1_000,
+      'USD',
+    );
     expect(b.overBudget).toBe(true);
     // installed 600, then ordered 300 (900), then planned 500 → crosses.
     expect(b.tippingPart).toEqual({ id: 'a', name: 'a', overByCents: 400 });
@@ -78,7 +130,10 @@ describe('computeBudget', () => {
 
   it('builds a cumulative spending line by date', () => {
     const b = computeBudget(
-      [part('a', 'ordered', 100, { orderedOn: '2026-02-01' }), part('bb', 'installed', 50, { orderedOn: '2026-01-01' })],
+      [
+        part('a', 'ordered', 100, { orderedOn: '2026-02-01' }),
+        part('bb', 'installed', 50, { orderedOn: '2026-01-01' }),
+      ],
       1_000,
       'USD',
     );
@@ -89,12 +144,31 @@ describe('computeBudget', () => {
   });
 
   it('planned ≥ committed ≥ spent for any ledger', () => {
-    const statuses: PartStatus[] = ['planned', 'ordered', 'in-hand', 'at-shop', 'installed', 'returned'];
+    const statuses: PartStatus[] = [
+      'planned',
+      'ordered',
+      'in-hand',
+      'at-shop',
+      'installed',
+      'returned',
+    ];
     fc.assert(
-      fc.property(fc.array(fc.tuple(fc.constantFrom(...statuses), fc.integer({ min: 0, max: 1e7 })), { maxLength: 40 }), (rows) => {
-        const b = computeBudget(rows.map(([s, c], i) => part(`p${i}`, s, c)), 5e7, 'USD');
-        return b.totals.plannedCents >= b.totals.committedCents && b.totals.committedCents >= b.totals.spentCents;
-      }),
+      fc.property(
+        fc.array(fc.tuple(fc.constantFrom(...statuses), fc.integer({ min: 0, max: 1e7 })), {
+          maxLength: 40,
+        }),
+        (rows) => {
+          const b = computeBudget(
+            rows.map(([s, c], i) => part(`p${i}`, s, c)),
+            5e7,
+            'USD',
+          );
+          return (
+            b.totals.plannedCents >= b.totals.committedCents &&
+            b.totals.committedCents >= b.totals.spentCents
+          );
+        },
+      ),
     );
   });
 });

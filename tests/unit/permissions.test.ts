@@ -4,7 +4,13 @@ import { can, roles } from '../../shared/permissions';
 // The role table of product.md, "Users and roles (per build)".
 describe('can()', () => {
   it('gives the owner everything', () => {
-    for (const action of ['build:read', 'build:update', 'build:delete', 'members:manage', 'money:read'] as const) {
+    for (const action of [
+      'build:read',
+      'build:update',
+      'build:delete',
+      'members:manage',
+      'money:read',
+    ] as const) {
       expect(can('owner', action)).toBe(true);
     }
   });

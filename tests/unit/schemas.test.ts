@@ -5,13 +5,23 @@ import { fieldsFromZod } from '../../server/middleware/error-handler';
 
 describe('shared schemas', () => {
   it('trims and lower-cases e-mail on sign-up', () => {
-    const parsed = signUpInputSchema.parse({ email: '  Ada@Example.TEST ', password: 'x'.repeat(10), displayName: ' Ada ' });
+    const parsed = signUpInputSchema.parse({
+      email: '  Ada@Example.TEST ',
+      password: 'x'.repeat(10),
+      displayName: ' Ada ',
+    });
     expect(parsed.email).toBe('ada@example.test');
     expect(parsed.displayName).toBe('Ada');
   });
 
   it('keeps money as whole cents', () => {
-    const base = { name: 'n', cylinders: 8, aspiration: 'single-turbo', targetPowerHp: 600, targetPowerBasis: 'crank' };
+    const base = {
+      name: 'n',
+      cylinders: 8,
+      aspiration: 'single-turbo',
+      targetPowerHp: 600,
+      targetPowerBasis: 'crank',
+    };
     expect(createBuildInputSchema.safeParse({ ...base, budgetCents: 1999 }).success).toBe(true);
     expect(createBuildInputSchema.safeParse({ ...base, budgetCents: 19.99 }).success).toBe(false);
     expect(createBuildInputSchema.safeParse({ ...base, budgetCents: -1 }).success).toBe(false);

@@ -7,6 +7,8 @@ import { validate } from '../../middleware/validate';
 import { buildEstimateRouter } from '../estimate/estimate.router';
 import { membersRouter } from '../members/members.router';
 import { partsRouter } from '../parts/parts.router';
+import { installLogRouter } from '../install-log/install-log.router';
+import { photosRouter } from '../photos/photos.router';
 import * as service from './builds.service';
 
 /** Mounted at /api/builds. */
@@ -33,6 +35,8 @@ export function buildsRouter(deps: AppDeps) {
 
   router.use('/:buildId/members', membersRouter(deps));
   router.use('/:buildId', partsRouter(deps));
+  router.use('/:buildId', installLogRouter(deps));
+  router.use('/:buildId', photosRouter(deps));
   router.use('/:buildId', buildEstimateRouter(deps));
   return router;
 }

@@ -1,0 +1,44 @@
+/**
+ * Reading caught mail in Playwright specs: the e2e server runs without SMTP
+ * settings, so its catcher keeps every message and /dev/mail lists them.
+ */
+import { expect, type APIRequestContext } from '@playwright/test';
+
+export type CaughtMail = {
+  file: string;
+  to: string;
+  subject: string;
+  text: string;
+  links: string[];
+};
+
+/** Waits (the server's worker polls every 200 ms here) for the newest mail to `to` whose subject matches. */
+export async function waitForMail(
+  request: APIRequestContext,
+  to: string,
+  subject: RegExp,
+): Promise<CaughtMail> {
+  let found: CaughtMail | undefined;
+  await expect
+    .poll(
+      async () => {
+        const res = await request.get('/dev/mail?format=json');
+        const { messages } = (await res.json()) as { messages: CaughtMail[] };
+        found = messages.find(
+          (m) => m.to.toLowerCase().includes(to.toLowerCase()) && subject.test(m.subject),
+        );
+        return Boolean(found);
+      },
+      { message: `a mail to ${to} with subject ${subject}`, timeout: 15_000 },
+    )
+    .toBe(true);
+  return found!;
+}
+
+/** The first link in a mail that leads to `clientPath` (e.g. '/invite/'), as a path for page.goto(). */
+export function linkTo(mail: CaughtMail, clientPath: string): string {
+  const link = mail.links.find((l) => new URL(l).pathname.startsWith(clientPath));
+  if (!link) throw new Error(`no ${clientPath} link in mail "${mail.subject}"`);
+  const url = new URL(link);
+  return url.pathname + url.search;
+}

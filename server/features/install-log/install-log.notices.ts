@@ -1,0 +1,90 @@
+/**
+ * The install log's notices: "step signed off" and "torque reading out of spec".
+ * The single place this feature calls notify() from server/features/notices,
+ * inside the transaction of the change, so a notice is queued exactly when the
+ * sign-off or reading is committed. Shops hear only when the step is linked to
+ * parts sent to exactly one shop (that shop is named); no money is ever in a notice.
+ */
+import type { Knex } from 'knex';
+import { describeTarget, formatTorque, verdictLabels, type TorqueTarget, type TorqueUnit, type Verdict } from '../../../shared/install-log/torque';
+import { quoted } from '../mail/mail.format';
+import { actorName, notify } from '../notices/notices.service';
+
+/** Client path of a step's page (the client's route for it must match). */
+export const stepPath = (buildId: string, stepId: string) => `/builds/${buildId}/install/steps/${stepId}`;
+
+/** The one shop whose parts the step fits, if exactly one. */
+async function stepShop(trx: Knex, stepId: string): Promise<string | null> {
+  const rows: { shop_user_id: string }[] = await trx('install_step_parts as sp')
+    .join('parts as p', 'p.id', 'sp.part_id')
+    .where('sp.step_id', stepId)
+    .whereNotNull('p.shop_user_id')
+    .distinct('p.shop_user_id');
+  return rows.length === 1 ? rows[0].shop_user_id : null;
+}
+
+export async function notifyStepSignedOff(
+  trx: Knex,
+  n: {
+    buildId: string;
+    stepId: string;
+    stepTitle: string;
+    jobTitle: string;
+    overrideReason: string | null;
+    actorUserId: string;
+  },
+) {
+  const who = await actorName(trx, n.actorUserId);
+  const over = n.overrideReason
+    ? `\n\nSigned off over open items, with this reason: ${quoted(n.overrideReason)}`
+    : '';
+  await notify(
+    trx,
+    n.buildId,
+    'step-signed-off',
+    {
+      subject: `Step signed off: ${n.stepTitle}`,
+      text: `${who} signed off ${quoted(n.stepTitle)} in the job ${quoted(n.jobTitle)}.${over}`,
+      link: stepPath(n.buildId, n.stepId),
+      linkLabel: 'Open the step',
+    },
+    { actorUserId: n.actorUserId, shopUserId: await stepShop(trx, n.stepId) },
+  );
+}
+
+export async function notifyTorqueOutOfSpec(
+  trx: Knex,
+  n: {
+    buildId: string;
+    stepId: string;
+    stepTitle: string;
+    specName: string;
+    spec: TorqueTarget;
+    position: number;
+    verdict: Exclude<Verdict, 'in-spec'>;
+    value: number;
+    unit: TorqueUnit;
+    retorque: boolean;
+    actorUserId: string;
+  },
+) {
+  const who = await actorName(trx, n.actorUserId);
+  const what = n.retorque ? 're-torque check' : 'reading';
+  await notify(
+    trx,
+    n.buildId,
+    'torque-out-of-spec',
+    {
+      subject: `${verdictLabels[n.verdict]}: ${n.specName} #${n.position}`,
+      text:
+        `${who} recorded a ${what} of ${formatTorque(n.value, n.unit)} on ${n.specName} #${n.position} ` +
+        `in ${quoted(n.stepTitle)}. The spec is ${describeTarget(n.spec)}.\n\n` +
+        (n.retorque
+          ? 'The re-torque check stays open until the position reads in spec.'
+          : 'The step cannot be signed off until the position reads in spec, unless the owner overrides with a reason.'),
+      link: stepPath(n.buildId, n.stepId),
+      linkLabel: 'Open the step',
+    },
+    { actorUserId: n.actorUserId, shopUserId: await stepShop(trx, n.stepId) },
+  );
+}

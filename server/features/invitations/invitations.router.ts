@@ -1,0 +1,71 @@
+import { Router } from 'express';
+import {
+  acceptInvitationInputSchema,
+  createInvitationInputSchema,
+} from '../../../shared/schemas/invitations';
+import type { AppDeps } from '../../app';
+import { buildAccess } from '../../middleware/build-access';
+import { createRateLimit } from '../../middleware/rate-limit';
+import { validate } from '../../middleware/validate';
+import * as service from './invitations.service';
+
+/** Mounted at /api/builds/:buildId/invitations: the owner's side. */
+export function buildInvitationsRouter({ db }: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const knex = db.knex;
+  const manage = buildAccess(knex, 'invitations:manage');
+
+  router.get('/', manage, async (req, res) => {
+    res.json({ invitations: await service.list(knex, req.membership!.buildId) });
+  });
+  router.post('/', manage, validate({ body: createInvitationInputSchema }), async (req, res) => {
+    res
+      .status(201)
+      .json({
+        invitation: await service.create(knex, req.membership!.buildId, req.user!, req.body),
+      });
+  });
+  router.post('/:invitationId/resend', manage, async (req, res) => {
+    res.json({
+      invitation: await service.resend(
+        knex,
+        req.membership!.buildId,
+        String(req.params.invitationId),
+        req.user!,
+      ),
+    });
+  });
+  router.delete('/:invitationId', manage, async (req, res) => {
+    await service.revoke(knex, req.membership!.buildId, String(req.params.invitationId));
+    res.status(204).end();
+  });
+  return router;
+}
+
+/** Mounted at /api/invitations: the invited person's side, reached by the link's token. */
+export function invitationLinksRouter({ db, config, sessions }: AppDeps) {
+  const router = Router();
+  const knex = db.knex;
+  // Accepting may create an account: it shares the sign-in/sign-up counter.
+  const limit = createRateLimit(knex, {
+    prefix: config.rateLimitPrefix,
+    limit: config.authRateLimit,
+    windowMs: 15 * 60_000,
+    message: 'Too many sign-in attempts from here. Wait 15 minutes and try again.',
+  });
+
+  router.get('/:token', async (req, res) => {
+    res.json({ invitation: await service.preview(knex, String(req.params.token)) });
+  });
+  router.post(
+    '/:token/accept',
+    limit,
+    validate({ body: acceptInvitationInputSchema }),
+    async (req, res) => {
+      const result = await service.accept(knex, String(req.params.token), req.user, req.body);
+      if (result.accountCreated) await sessions.start(req, res, result.user.id);
+      res.status(result.accountCreated ? 201 : 200).json(result);
+    },
+  );
+  return router;
+}

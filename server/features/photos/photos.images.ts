@@ -1,0 +1,82 @@
+/**
+ * Turns an uploaded file into the two stored sizes. The content decides, never
+ * the name or the declared type: sharp must recognise the file as JPEG, PNG,
+ * WebP or HEIF/HEIC and decode it completely.
+ *
+ * Metadata: sharp writes no EXIF, XMP, IPTC or ICC to its output unless asked
+ * (withMetadata/keepExif…, never called here), so after .rotate() has applied
+ * the EXIF orientation to the pixels, GPS and camera data are gone.
+ */
+import sharp, { type Metadata } from 'sharp';
+import { photoFormats, photoSizes, type PhotoFormat } from '../../../shared/schemas/photos';
+import { AppError } from '../../lib/errors';
+
+export type ProcessedImage = { data: Buffer; width: number; height: number };
+export type ProcessedPhoto = {
+  format: PhotoFormat;
+  /** Upright size of the upload (orientation applied). */
+  width: number;
+  height: number;
+  bytes: number;
+  contentType: 'image/jpeg';
+  web: ProcessedImage;
+  thumb: ProcessedImage;
+};
+
+/** HEIC/AVIF only where this sharp build can read HEIF files. */
+export function acceptedFormats(): PhotoFormat[] {
+  return photoFormats.filter((f) => f !== 'heif' || Boolean(sharp.format.heif?.input?.file));
+}
+
+const names: Record<PhotoFormat, string> = { jpeg: 'JPEG', png: 'PNG', webp: 'WebP', heif: 'HEIC' };
+const acceptedList = () => acceptedFormats().map((f) => names[f]).join(', ');
+
+function refuse(code: string, message: string): never {
+  throw new AppError(400, code, message);
+}
+
+async function render(input: string | Buffer, size: number, quality: number): Promise<ProcessedImage> {
+  const { data, info } = await sharp(input, { failOn: 'truncated' })
+    .rotate()
+    .resize({ width: size, height: size, fit: 'inside', withoutEnlargement: true })
+    // JPEG has no transparency: transparent PNG/WebP areas become white, not black.
+    .flatten({ background: '#ffffff' })
+    .jpeg({ quality, mozjpeg: true })
+    .toBuffer({ resolveWithObject: true });
+  return { data, width: info.width, height: info.height };
+}
+
+/** Checks and converts one upload; throws a 400 AppError naming the file when it is not a usable photo. */
+export async function processPhoto(input: string | Buffer, fileName: string, bytes: number): Promise<ProcessedPhoto> {
+  const label = JSON.stringify(fileName || 'the file');
+  let meta: Metadata;
+  try {
+    meta = await sharp(input, { failOn: 'truncated' }).metadata();
+  } catch {
+    refuse('not_an_image', `${label} is not a photo Headroom can read. Send ${acceptedList()}.`);
+  }
+  const format = meta.format as string;
+  if (!(acceptedFormats() as string[]).includes(format)) {
+    refuse('unsupported_format', `${label} is a ${format.toUpperCase()} file. Send ${acceptedList()}.`);
+  }
+  try {
+    const web = await render(input, photoSizes.web, 82);
+    // The thumbnail comes from the upright web copy: one full decode of the upload, not two.
+    const thumb = await render(web.data, photoSizes.thumb, 72);
+    return {
+      format: format as PhotoFormat,
+      width: meta.autoOrient?.width ?? meta.width,
+      height: meta.autoOrient?.height ?? meta.height,
+      bytes,
+      contentType: 'image/jpeg',
+      web,
+      thumb,
+    };
+  } catch {
+    const hint =
+      format === 'heif'
+        ? ' This server cannot decode this HEIC photo: set the phone camera to "Most compatible" (JPEG) or export it as JPEG.'
+        : '';
+    refuse('undecodable_image', `${label} could not be decoded; it may be damaged or cut short.${hint}`);
+  }
+}

@@ -1,0 +1,56 @@
+import { z } from 'zod';
+import type { Role } from '../permissions';
+
+/** What a member can be told about by e-mail. */
+export const noticeKinds = [
+  'part-received',
+  'part-back-from-shop',
+  'step-signed-off',
+  'torque-out-of-spec',
+] as const;
+export type NoticeKind = (typeof noticeKinds)[number];
+
+export const noticeKindLabels: Record<NoticeKind, string> = {
+  'part-received': 'Part received',
+  'part-back-from-shop': 'Part back from a shop',
+  'step-signed-off': 'Install step signed off',
+  'torque-out-of-spec': 'Torque reading out of spec',
+};
+
+export const noticeKindDescriptions: Record<NoticeKind, string> = {
+  'part-received': 'An ordered part arrived and is in the garage',
+  'part-back-from-shop': 'A part came back from a shop, or its back date was set',
+  'step-signed-off': 'Someone signed off an install step',
+  'torque-out-of-spec': 'A torque reading fell outside the spec’s tolerance',
+};
+
+/**
+ * Roles that hear about each kind. A shop sees only what concerns its own
+ * parts, so it hears only when the caller names it (a part sent to it, a step
+ * linked to such a part).
+ */
+export const noticeAudience: Record<NoticeKind, readonly Role[]> = {
+  'part-received': ['owner', 'crew', 'viewer'],
+  'part-back-from-shop': ['owner', 'crew', 'viewer'],
+  'step-signed-off': ['owner', 'crew', 'viewer'],
+  'torque-out-of-spec': ['owner', 'crew', 'viewer'],
+};
+
+const onOff = z.boolean({ message: 'Choose on or off' });
+
+/**
+ * PUT /api/builds/:buildId/notice-preferences: the whole set; a kind left out
+ * goes back to its default (on).
+ */
+export const noticePreferencesInputSchema = z
+  .object({
+    'part-received': onOff.optional(),
+    'part-back-from-shop': onOff.optional(),
+    'step-signed-off': onOff.optional(),
+    'torque-out-of-spec': onOff.optional(),
+  } satisfies Record<NoticeKind, z.ZodType>)
+  .strict();
+export type NoticePreferencesInput = z.infer<typeof noticePreferencesInputSchema>;
+
+/** GET/PUT answer: every kind, on or off. */
+export type NoticePreferences = Record<NoticeKind, boolean>;
