@@ -9,6 +9,12 @@ import { ErrorState } from '../components/ui/states';
 
 const meKey = getMeQueryOptions().queryKey;
 
+/**
+ * True after the user pressed "Sign out": the route guard then sends them to a plain sign-in
+ * page. After an expired session (a 401) it stays false, so sign-in brings them back (?next=).
+ */
+let signedOutOnPurpose = false;
+
 /** Drops everything cached for the previous user, keeping only the session query itself. */
 function forgetUserData(queryClient: QueryClient): void {
   queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== meKey[0] });
@@ -16,6 +22,7 @@ function forgetUserData(queryClient: QueryClient): void {
 
 /** The session ended on the server (any 401): forget the user; the route guard does the rest. */
 export function handleSessionEnded(queryClient: QueryClient): void {
+  signedOutOnPurpose = false;
   queryClient.setQueryData(meKey, null);
 }
 
@@ -24,6 +31,7 @@ export function useStartSession() {
   const queryClient = useQueryClient();
   return useCallback(
     (user: User) => {
+      signedOutOnPurpose = false;
       forgetUserData(queryClient);
       queryClient.setQueryData(meKey, user);
     },
@@ -35,8 +43,10 @@ export function useEndSession() {
   const queryClient = useQueryClient();
   const navigate = useNavigate();
   return useCallback(() => {
-    // Leave the guarded pages first so the guard does not add a ?next= back to them.
-    navigate(paths.auth.signIn.getHref(), { replace: true });
+    // The router renders route changes in a transition, so the guard on the page being left
+    // may still see the user vanish; the flag tells it not to add a ?next= back to that page.
+    signedOutOnPurpose = true;
+    void navigate(paths.auth.signIn.getHref(), { replace: true });
     queryClient.setQueryData(meKey, null);
     forgetUserData(queryClient);
   }, [navigate, queryClient]);
@@ -64,7 +74,7 @@ export function RequireAuth({ children }: { children?: ReactNode }) {
     );
   }
   if (!me.data) {
-    const next = `${location.pathname}${location.search}`;
+    const next = signedOutOnPurpose ? null : `${location.pathname}${location.search}`;
     return <Navigate to={paths.auth.signIn.getHref(next)} replace />;
   }
   return children ?? <Outlet />;

@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { computeBudget } from '../../shared/ledger/budget';
 import { coreOwedCents, partTotalCents } from '../../shared/ledger/cost';
 import { addDays, daysBetween, sendOutStatus } from '../../shared/ledger/send-out';
-import { centsToPlain, parseMoneyToCents } from '../../shared/money';
+import { centsToInput, parseMoneyToCents } from '../../shared/format';
 import type { PartStatus } from '../../shared/schemas/parts';
 
 const money = {
@@ -22,16 +22,17 @@ describe('money in cents', () => {
     expect(parseMoneyToCents('19.99')).toBe(1999);
     expect(parseMoneyToCents('1,234.5')).toBe(123450);
     expect(parseMoneyToCents('$7')).toBe(700);
-    expect(parseMoneyToCents('')).toBe(0);
+    expect(parseMoneyToCents('')).toBeNull();
+    expect(parseMoneyToCents('0.29')).toBe(29);
     for (const bad of ['-1', '1.234', 'abc', '1e5', '12.3.4'])
-      expect(parseMoneyToCents(bad)).toBeNull();
+      expect(parseMoneyToCents(bad)).toBeNaN();
   });
 
   it('round-trips every amount through its plain text', () => {
     fc.assert(
       fc.property(
         fc.integer({ min: 0, max: 99_999_999_999 }),
-        (c) => parseMoneyToCents(centsToPlain(c)) === c,
+        (c) => parseMoneyToCents(centsToInput(c)) === c,
       ),
     );
   });

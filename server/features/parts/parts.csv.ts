@@ -4,7 +4,7 @@
  * import), the shop by its member's e-mail.
  */
 import Papa from 'papaparse';
-import { centsToPlain, parseMoneyToCents } from '../../../shared/money';
+import { centsToInput, parseMoneyToCents } from '../../../shared/format';
 import {
   partCategories,
   partCategoryLabels,
@@ -61,7 +61,7 @@ export function partsToCsv(parts: PartRecord[], opts: { withMoney: boolean; shop
   const columns = csvColumns.filter((c) => opts.withMoney || !(c in moneyColumns));
   const rows = parts.map((p) =>
     columns.map((c): string => {
-      if (c in moneyColumns) return centsToPlain(p[moneyColumns[c as keyof typeof moneyColumns]]);
+      if (c in moneyColumns) return centsToInput(p[moneyColumns[c as keyof typeof moneyColumns]]);
       if (c === 'shopEmail') return p.shopUserId ? (opts.shopEmails.get(p.shopUserId) ?? '') : '';
       const v = p[c as Exclude<CsvColumn, 'shopEmail' | keyof typeof moneyColumns>];
       return v == null ? '' : safeCell(String(v));
@@ -118,7 +118,7 @@ export function parseCsv(text: string, shopIdsByEmail: Map<string, string>):
       const raw = get(c as CsvColumn);
       if (!raw) continue;
       const cents = parseMoneyToCents(raw);
-      if (cents === null) fields[key] = `"${raw}" is not an amount like 1234.56`;
+      if (cents === null || Number.isNaN(cents)) fields[key] = `"${raw}" is not an amount like 1234.56`;
       else input[key] = cents;
     }
     const shop = get('shopEmail').toLowerCase();

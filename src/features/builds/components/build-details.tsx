@@ -114,7 +114,7 @@ export function BudgetSection({ build }: { build: Build }) {
     <Section id="budget" title="Budget" icon={<Wallet aria-hidden className="size-5 text-ink-3" />}>
       {typeof build.budgetCents === 'number' && build.budgetCents > 0 ? (
         <p className="text-3xl font-bold tabular-nums">
-          {formatMoney(build.budgetCents, build.currency)}
+          {formatMoney(build.budgetCents, build.currency, { display: 'narrowSymbol' })}
           <span className="ml-2 text-base font-semibold text-muted">{build.currency}</span>
         </p>
       ) : (

@@ -130,6 +130,8 @@ export function BuildForm({
     mode: 'onTouched',
   });
   const currency = watch('currency') ?? 'USD';
+  // NaN means the budget box holds text that is not an amount; say how to write one.
+  const budgetUnreadable = Number.isNaN(watch('budgetCents'));
 
   const submit = handleSubmit(async (values) => {
     try {
@@ -166,7 +168,6 @@ export function BuildForm({
               {...register('vehicleYear', numeric)}
               inputMode="numeric"
               autoComplete="off"
-              placeholder="2019"
               className="tabular-nums"
             />
           )}
@@ -197,7 +198,6 @@ export function BuildForm({
                 unit="L"
                 inputMode="decimal"
                 autoComplete="off"
-                placeholder="6.7"
               />
             )}
           </FormField>
@@ -208,7 +208,6 @@ export function BuildForm({
                 {...register('cylinders', numeric)}
                 inputMode="numeric"
                 autoComplete="off"
-                placeholder="6"
                 className="tabular-nums"
               />
             )}
@@ -253,7 +252,6 @@ export function BuildForm({
                 unit="hp"
                 inputMode="decimal"
                 autoComplete="off"
-                placeholder="370"
               />
             )}
           </FormField>
@@ -278,7 +276,6 @@ export function BuildForm({
                 unit="hp"
                 inputMode="decimal"
                 autoComplete="off"
-                placeholder="750"
               />
             )}
           </FormField>
@@ -302,7 +299,6 @@ export function BuildForm({
               unit="lbf·ft"
               inputMode="decimal"
               autoComplete="off"
-              placeholder="1400"
             />
           )}
         </FormField>
@@ -332,7 +328,12 @@ export function BuildForm({
         <FormField
           label="Budget"
           optional
-          error={errors.budgetCents?.message}
+          error={
+            errors.budgetCents &&
+            (budgetUnreadable
+              ? `Enter an amount like 18500.00 (at most two decimals)`
+              : errors.budgetCents.message)
+          }
           hint={`In ${currency}, e.g. 18500.00`}
         >
           {(c) => (
@@ -368,7 +369,7 @@ export function BuildForm({
 
       <FormError message={errors.root?.server?.message} />
 
-      <div className="flex flex-col gap-2 sm:flex-row sm:justify-end">
+      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
         <ButtonLink to={cancelHref} variant="secondary">
           Cancel
         </ButtonLink>

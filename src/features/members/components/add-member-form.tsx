@@ -39,7 +39,10 @@ export function AddMemberForm({ buildId }: { buildId: string }) {
     try {
       const member = await addMember.mutateAsync({ buildId, input: values });
       reset({ email: '', role: values.role });
-      setAdded(`${member.displayName} was added as ${roleLabels[member.role].toLowerCase()}.`);
+      // The name is not repeated here: it already appears once, in the list above.
+      setAdded(
+        `Added as ${roleLabels[member.role].toLowerCase()}. The build is now in their list.`,
+      );
     } catch (error) {
       // "Already on this build" is about the address typed, so it goes next to it.
       if (isApiError(error) && error.code === 'already_member' && !error.fields?.email) {

@@ -95,7 +95,7 @@ export function MemberRow({
             <Button
               variant="ghost"
               size="sm"
-              className="text-over"
+              className="min-w-20 text-over"
               aria-label={isMe ? 'Leave this build' : `Remove ${name}`}
               onClick={() => {
                 updateMember.reset();
