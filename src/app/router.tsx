@@ -4,6 +4,7 @@ import { paths } from '../config/paths';
 import { RequireAuth } from '../lib/auth';
 import { RootLayout } from '../components/layouts/root-layout';
 import { BuildsLayout } from '../components/layouts/builds-layout';
+import { BuildSectionLayout } from '../components/layouts/build-section-layout';
 import { RouteErrorPage } from './routes/route-error';
 import { NotFoundRoute } from './routes/not-found';
 
@@ -50,8 +51,15 @@ const router = createBrowserRouter([
                 children: [
                   { index: true, element: <BuildsListRoute /> },
                   { path: 'new', element: <NewBuildRoute /> },
-                  { path: ':buildId', element: <BuildOverviewRoute /> },
-                  { path: ':buildId/edit', element: <EditBuildRoute /> },
+                  {
+                    path: ':buildId',
+                    element: <BuildSectionLayout />,
+                    children: [
+                      { index: true, element: <BuildOverviewRoute /> },
+                      { path: 'edit', element: <EditBuildRoute /> },
+                      // Section pages (parts, budget, send-outs, estimate, install, photos, notices) go here.
+                    ],
+                  },
                 ],
               },
             ],

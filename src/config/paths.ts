@@ -4,6 +4,14 @@ function withNext(base: string, next?: string | null): string {
   return next && next !== '/' ? `${base}?next=${encodeURIComponent(next)}` : base;
 }
 
+/** A page of one build, e.g. /builds/:buildId/parts. */
+function section(name: string) {
+  return {
+    path: `/builds/:buildId/${name}`,
+    getHref: (buildId: string) => `/builds/${encodeURIComponent(buildId)}/${name}`,
+  };
+}
+
 export const paths = {
   home: { path: '/', getHref: () => '/' },
   auth: {
@@ -21,6 +29,18 @@ export const paths = {
       path: '/builds/:buildId/edit',
       getHref: (buildId: string) => `/builds/${encodeURIComponent(buildId)}/edit`,
     },
+    parts: section('parts'),
+    budget: section('budget'),
+    sendOuts: section('send-outs'),
+    estimate: section('estimate'),
+    install: section('install'),
+    step: {
+      path: '/builds/:buildId/install/steps/:stepId',
+      getHref: (buildId: string, stepId: string) =>
+        `/builds/${encodeURIComponent(buildId)}/install/steps/${encodeURIComponent(stepId)}`,
+    },
+    photos: section('photos'),
+    notices: section('notices'),
   },
 } as const;
 
