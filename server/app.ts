@@ -24,12 +24,23 @@ import { devMailRouter } from './features/mail/dev-mail.router';
 import { noticePreferencesRouter } from './features/notices/notices.router';
 import { passwordResetRouter } from './features/password-reset/password-reset.router';
 
-export type AppDeps = { db: Database; config: AppConfig; logger: Logger; sessions: Sessions; storage: Storage };
+export type AppDeps = {
+  db: Database;
+  config: AppConfig;
+  logger: Logger;
+  sessions: Sessions;
+  storage: Storage;
+};
 
 const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
 
 /** Builds the Express app. Never listens: server/index.ts and the tests do that. */
-export function createApp(opts: { db: Database; config: AppConfig; logger?: Logger; storage?: Storage }) {
+export function createApp(opts: {
+  db: Database;
+  config: AppConfig;
+  logger?: Logger;
+  storage?: Storage;
+}) {
   const logger = opts.logger ?? createLogger(opts.config.logLevel);
   const deps: AppDeps = {
     ...opts,

@@ -5,6 +5,8 @@
  */
 import type { Knex } from 'knex';
 import { hashPassword } from '../../server/lib/auth';
+import { createLocalDiskStorage, type Storage } from '../../server/lib/storage';
+import { seedInstallLog } from './install-log';
 
 export const demoPassword = 'headroom-demo';
 
@@ -84,7 +86,8 @@ function demoParts(): DemoPart[] {
   ];
 }
 
-export async function seedDemo(knex: Knex) {
+/** `storage` is where demo photos go: by default the local store in STORAGE_DIR (.data/uploads). */
+export async function seedDemo(knex: Knex, opts: { storage?: Storage } = {}) {
   const passwordHash = await hashPassword(demoPassword);
   const ids: Record<string, string> = {};
   for (const a of demoAccounts) {
@@ -125,5 +128,7 @@ export async function seedDemo(knex: Knex) {
   await knex('parts').insert(
     demoParts().map(({ shop, ...p }) => ({ ...p, build_id: build.id, shop_user_id: shop ? ids.shop : null })),
   );
+  const storage = opts.storage ?? createLocalDiskStorage(process.env.STORAGE_DIR ?? '.data/uploads');
+  await seedInstallLog(knex, { buildId: build.id, userIds: ids }, storage);
   return { buildId: build.id as string, userIds: ids };
 }

@@ -24,7 +24,11 @@ export interface Storage {
 const keyPattern = /^[a-z0-9][a-z0-9_.-]*(\/[a-z0-9][a-z0-9_.-]*)*$/;
 
 export function assertValidKey(key: string) {
-  if (!keyPattern.test(key) || key.split('/').some((s) => s === '.' || s === '..') || key.length > 512) {
+  if (
+    !keyPattern.test(key) ||
+    key.split('/').some((s) => s === '.' || s === '..') ||
+    key.length > 512
+  ) {
     throw new Error(`Invalid storage key: ${JSON.stringify(key)}`);
   }
 }

@@ -32,7 +32,8 @@ export function retorqueState(input: {
   currentRetorque: (Verdict | null)[];
 }): RetorqueState {
   let complete = true;
-  for (let i = 0; i < input.count; i++) if (input.currentRetorque[i] !== 'in-spec') complete = false;
+  for (let i = 0; i < input.count; i++)
+    if (input.currentRetorque[i] !== 'in-spec') complete = false;
   if (input.closed || complete) return 'done';
   return input.signedOff ? 'open' : 'waiting';
 }

@@ -17,7 +17,13 @@ export type SignOffBlocker =
       verdict: Exclude<Verdict, 'in-spec'>;
       message: string;
     }
-  | { kind: 'missing-readings'; specId: string; specName: string; positions: number[]; message: string }
+  | {
+      kind: 'missing-readings';
+      specId: string;
+      specName: string;
+      positions: number[];
+      message: string;
+    }
   | { kind: 'unticked'; itemId: string; label: string; message: string };
 
 export type SignOffInput = {
@@ -64,7 +70,12 @@ export function signOffBlockers(step: SignOffInput): SignOffBlocker[] {
   }
   for (const item of step.checklist) {
     if (!item.done) {
-      blockers.push({ kind: 'unticked', itemId: item.id, label: item.label, message: `Not ticked: ${item.label}` });
+      blockers.push({
+        kind: 'unticked',
+        itemId: item.id,
+        label: item.label,
+        message: `Not ticked: ${item.label}`,
+      });
     }
   }
   return blockers;

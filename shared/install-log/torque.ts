@@ -75,7 +75,8 @@ export function judgeTorque(
   const value = convertTorque(reading.value, reading.unit, spec.targetUnit);
   const { low, high } = toleranceBand(spec);
   const slack = EDGE_EPSILON * Math.abs(spec.targetValue);
-  const verdict: Verdict = value < low - slack ? 'under' : value > high + slack ? 'over' : 'in-spec';
+  const verdict: Verdict =
+    value < low - slack ? 'under' : value > high + slack ? 'over' : 'in-spec';
   const deviation = value - spec.targetValue;
   return {
     valueInSpecUnit: value,

@@ -64,7 +64,10 @@ const stepFields = {
   title: trimmed(160, 'Title').min(1, { message: 'Name the step' }),
   description: trimmed(8000, 'Description').optional(),
   /** Parts of the same build this step fits. */
-  partIds: z.array(idSchema, { message: 'A list of part ids' }).max(50, { message: 'At most 50 parts' }).optional(),
+  partIds: z
+    .array(idSchema, { message: 'A list of part ids' })
+    .max(50, { message: 'At most 50 parts' })
+    .optional(),
   /** The truck or its cab is off the ground for this step (shows the stands caution). */
   liftsVehicle: z.boolean({ message: 'Yes or no' }).optional(),
   /** 1-based place in the job; the others move to make room. Default: last. */
@@ -110,7 +113,9 @@ const torqueValue = (label: string) =>
     .max(100_000, { message: 'That torque is too large' });
 
 export const fastenerSpecFieldsSchema = z.object({
-  name: trimmed(160, 'Name').min(1, { message: 'Name the fastener, e.g. "Injector hold-down bolts"' }),
+  name: trimmed(160, 'Name').min(1, {
+    message: 'Name the fastener, e.g. "Injector hold-down bolts"',
+  }),
   count: z
     .number({ message: 'Enter how many' })
     .int({ message: 'A whole number' })
@@ -124,14 +129,19 @@ export const fastenerSpecFieldsSchema = z.object({
     .min(0, { message: 'Tolerance cannot be negative' })
     .max(100_000, { message: 'That tolerance is too large' }),
   /** Torque stages before the final value, in the spec's unit, in order. */
-  stages: z.array(torqueValue('a stage torque'), { message: 'A list of torques' }).max(10, { message: 'At most 10 stages' }).optional(),
+  stages: z
+    .array(torqueValue('a stage torque'), { message: 'A list of torques' })
+    .max(10, { message: 'At most 10 stages' })
+    .optional(),
   finalAngleDeg: z
     .number({ message: 'Enter degrees' })
     .positive({ message: 'An angle is above zero' })
     .max(1080, { message: 'At most 1080°' })
     .nullable()
     .optional(),
-  threadCondition: z.enum(threadConditions, { message: 'Choose dry, oiled, anti-seize or sealant' }),
+  threadCondition: z.enum(threadConditions, {
+    message: 'Choose dry, oiled, anti-seize or sealant',
+  }),
   sequenceNote: trimmed(2000, 'Sequence').optional(),
   /** Where the spec came from, e.g. "maker's service manual, section 303-04". */
   specSource: trimmed(500, 'Source').min(1, {
@@ -186,7 +196,12 @@ export const updateFastenerSpecInputSchema = fastenerSpecFieldsSchema
 export type UpdateFastenerSpecInput = z.infer<typeof updateFastenerSpecInputSchema>;
 
 /** The fields that decide a reading's verdict; only the owner may change them once readings exist. */
-export const torqueDefiningFields = ['targetValue', 'targetUnit', 'toleranceType', 'toleranceValue'] as const;
+export const torqueDefiningFields = [
+  'targetValue',
+  'targetUnit',
+  'toleranceType',
+  'toleranceValue',
+] as const;
 
 // ---- readings ---------------------------------------------------------------
 
@@ -208,7 +223,9 @@ export type CreateReadingInput = z.infer<typeof createReadingInputSchema>;
 export const signOffInputSchema = z
   .object({
     /** Owner only: sign off although blockers remain, saying why. */
-    overrideReason: trimmed(1000, 'Reason').min(1, { message: 'Say why the step is signed off anyway' }).optional(),
+    overrideReason: trimmed(1000, 'Reason')
+      .min(1, { message: 'Say why the step is signed off anyway' })
+      .optional(),
   })
   .strict();
 export type SignOffInput = z.infer<typeof signOffInputSchema>;

@@ -16,7 +16,12 @@ describe('sign-off blockers', () => {
   });
 
   it('has none when every position reads in spec and every check is ticked', () => {
-    expect(signOffBlockers({ fasteners: [fastener([{ verdict: 'in-spec' }, { verdict: 'in-spec' }])], checklist: [{ id: 'c', label: 'Seals new', done: true }] })).toEqual([]);
+    expect(
+      signOffBlockers({
+        fasteners: [fastener([{ verdict: 'in-spec' }, { verdict: 'in-spec' }])],
+        checklist: [{ id: 'c', label: 'Seals new', done: true }],
+      }),
+    ).toEqual([]);
   });
 
   it('names out-of-spec positions, positions without a reading and unticked checks', () => {
@@ -33,15 +38,42 @@ describe('sign-off blockers', () => {
 
 describe('re-torque checks', () => {
   it('waits for sign-off, is open until every position reads in spec, then done', () => {
-    expect(retorqueState({ signedOff: false, closed: false, count: 2, currentRetorque: [null, null] })).toBe('waiting');
-    expect(retorqueState({ signedOff: true, closed: false, count: 2, currentRetorque: ['in-spec', null] })).toBe('open');
-    expect(retorqueState({ signedOff: true, closed: false, count: 2, currentRetorque: ['in-spec', 'under'] })).toBe('open');
-    expect(retorqueState({ signedOff: true, closed: false, count: 2, currentRetorque: ['in-spec', 'in-spec'] })).toBe('done');
-    expect(retorqueState({ signedOff: true, closed: true, count: 2, currentRetorque: [null, null] })).toBe('done');
+    expect(
+      retorqueState({ signedOff: false, closed: false, count: 2, currentRetorque: [null, null] }),
+    ).toBe('waiting');
+    expect(
+      retorqueState({
+        signedOff: true,
+        closed: false,
+        count: 2,
+        currentRetorque: ['in-spec', null],
+      }),
+    ).toBe('open');
+    expect(
+      retorqueState({
+        signedOff: true,
+        closed: false,
+        count: 2,
+        currentRetorque: ['in-spec', 'under'],
+      }),
+    ).toBe('open');
+    expect(
+      retorqueState({
+        signedOff: true,
+        closed: false,
+        count: 2,
+        currentRetorque: ['in-spec', 'in-spec'],
+      }),
+    ).toBe('done');
+    expect(
+      retorqueState({ signedOff: true, closed: true, count: 2, currentRetorque: [null, null] }),
+    ).toBe('done');
   });
 
   it('says when the check is due', () => {
-    expect(describeRetorque({ retorqueAfterHeatCycles: 3, retorqueAfterMiles: null })).toBe('after 3 heat cycles');
+    expect(describeRetorque({ retorqueAfterHeatCycles: 3, retorqueAfterMiles: null })).toBe(
+      'after 3 heat cycles',
+    );
     expect(describeRetorque({ retorqueAfterHeatCycles: 1, retorqueAfterMiles: 500 })).toBe(
       'after 1 heat cycle or 500 miles, whichever comes first',
     );
@@ -49,17 +81,31 @@ describe('re-torque checks', () => {
 });
 
 describe('cautions', () => {
-  const step = { title: 'Fit', description: '', partCategories: [] as string[], liftsVehicle: false, fastenerCount: 0 };
+  const step = {
+    title: 'Fit',
+    description: '',
+    partCategories: [] as string[],
+    liftsVehicle: false,
+    fastenerCount: 0,
+  };
 
   it('shows the high-pressure fuel caution for fuel-injection parts or injector work', () => {
-    expect(cautionsForStep({ ...step, partCategories: ['fuel-injection'] }).map((c) => c.id)).toEqual(['high-pressure-fuel']);
-    expect(cautionsForStep({ ...step, title: 'Seat the injectors' }).map((c) => c.id)).toEqual(['high-pressure-fuel']);
-    expect(cautionsForStep({ ...step, title: 'Swap the lift pump', partCategories: ['fuel-supply'] })).toEqual([]);
+    expect(
+      cautionsForStep({ ...step, partCategories: ['fuel-injection'] }).map((c) => c.id),
+    ).toEqual(['high-pressure-fuel']);
+    expect(cautionsForStep({ ...step, title: 'Seat the injectors' }).map((c) => c.id)).toEqual([
+      'high-pressure-fuel',
+    ]);
+    expect(
+      cautionsForStep({ ...step, title: 'Swap the lift pump', partCategories: ['fuel-supply'] }),
+    ).toEqual([]);
   });
 
   it('shows the stands caution when the truck or cab is raised, not for a lift pump', () => {
     expect(cautionsForStep({ ...step, liftsVehicle: true }).map((c) => c.id)).toEqual(['lifting']);
-    expect(cautionsForStep({ ...step, description: 'Lift the cab about 4 in.' }).map((c) => c.id)).toEqual(['lifting']);
+    expect(
+      cautionsForStep({ ...step, description: 'Lift the cab about 4 in.' }).map((c) => c.id),
+    ).toEqual(['lifting']);
     expect(cautionsForStep({ ...step, description: 'Prime with the lift pump' })).toEqual([]);
   });
 
@@ -72,9 +118,20 @@ describe('cautions', () => {
 
 describe('fastener spec consistency', () => {
   it('refuses a tolerance as large as the target and stages above the final torque', () => {
-    expect(fastenerSpecIssues({ targetValue: 10, toleranceType: 'value', toleranceValue: 10 })).toHaveProperty('toleranceValue');
-    expect(fastenerSpecIssues({ targetValue: 10, toleranceType: 'percent', toleranceValue: 100 })).toHaveProperty('toleranceValue');
+    expect(
+      fastenerSpecIssues({ targetValue: 10, toleranceType: 'value', toleranceValue: 10 }),
+    ).toHaveProperty('toleranceValue');
+    expect(
+      fastenerSpecIssues({ targetValue: 10, toleranceType: 'percent', toleranceValue: 100 }),
+    ).toHaveProperty('toleranceValue');
     expect(fastenerSpecIssues({ targetValue: 50, stages: [20, 60] })).toHaveProperty('stages');
-    expect(fastenerSpecIssues({ targetValue: 50, toleranceType: 'percent', toleranceValue: 5, stages: [20, 40] })).toEqual({});
+    expect(
+      fastenerSpecIssues({
+        targetValue: 50,
+        toleranceType: 'percent',
+        toleranceValue: 5,
+        stages: [20, 40],
+      }),
+    ).toEqual({});
   });
 });

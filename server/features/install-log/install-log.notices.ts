@@ -6,12 +6,20 @@
  * parts sent to exactly one shop (that shop is named); no money is ever in a notice.
  */
 import type { Knex } from 'knex';
-import { describeTarget, formatTorque, verdictLabels, type TorqueTarget, type TorqueUnit, type Verdict } from '../../../shared/install-log/torque';
+import {
+  describeTarget,
+  formatTorque,
+  verdictLabels,
+  type TorqueTarget,
+  type TorqueUnit,
+  type Verdict,
+} from '../../../shared/install-log/torque';
 import { quoted } from '../mail/mail.format';
 import { actorName, notify } from '../notices/notices.service';
 
 /** Client path of a step's page (the client's route for it must match). */
-export const stepPath = (buildId: string, stepId: string) => `/builds/${buildId}/install/steps/${stepId}`;
+export const stepPath = (buildId: string, stepId: string) =>
+  `/builds/${buildId}/install/steps/${stepId}`;
 
 /** The one shop whose parts the step fits, if exactly one. */
 async function stepShop(trx: Knex, stepId: string): Promise<string | null> {

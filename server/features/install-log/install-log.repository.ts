@@ -1,11 +1,7 @@
 /** The only place the install log's tables are queried; snake_case rows ↔ camelCase records. */
 import type { Knex } from 'knex';
 import type { TorqueUnit } from '../../../shared/install-log/torque';
-import type {
-  Person,
-  StepStatus,
-  ThreadCondition,
-} from '../../../shared/schemas/install-log';
+import type { Person, StepStatus, ThreadCondition } from '../../../shared/schemas/install-log';
 import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
@@ -40,7 +36,13 @@ export async function nextPosition(trx: Knex.Transaction, table: Ordered, parent
 }
 
 /** Moves one row to a 1-based place among its siblings and renumbers them 1..n. */
-export async function moveTo(trx: Knex.Transaction, table: Ordered, parentId: string, id: string, position: number) {
+export async function moveTo(
+  trx: Knex.Transaction,
+  table: Ordered,
+  parentId: string,
+  id: string,
+  position: number,
+) {
   const rows: { id: string }[] = await trx(table)
     .where(parentOf[table].column, parentId)
     .orderBy([{ column: 'position' }, { column: 'created_at' }, { column: 'id' }])
@@ -48,7 +50,10 @@ export async function moveTo(trx: Knex.Transaction, table: Ordered, parentId: st
   const ids = rows.map((r) => r.id).filter((x) => x !== id);
   ids.splice(Math.max(0, Math.min(position - 1, ids.length)), 0, id);
   for (const [i, rowId] of ids.entries()) {
-    await trx(table).where({ id: rowId }).whereNot({ position: i + 1 }).update({ position: i + 1 });
+    await trx(table)
+      .where({ id: rowId })
+      .whereNot({ position: i + 1 })
+      .update({ position: i + 1 });
   }
 }
 
@@ -59,7 +64,10 @@ export async function closeGaps(trx: Knex.Transaction, table: Ordered, parentId:
     .orderBy([{ column: 'position' }, { column: 'created_at' }, { column: 'id' }])
     .select('id', 'position');
   for (const [i, r] of rows.entries()) {
-    if (r.position !== i + 1) await trx(table).where({ id: r.id }).update({ position: i + 1 });
+    if (r.position !== i + 1)
+      await trx(table)
+        .where({ id: r.id })
+        .update({ position: i + 1 });
   }
 }
 
@@ -99,7 +107,10 @@ function jobs(knex: Knex, buildId: string) {
 }
 
 export async function listJobs(knex: Knex, buildId: string) {
-  const rows: JobRow[] = await jobs(knex, buildId).orderBy([{ column: 'j.position' }, { column: 'j.created_at' }]);
+  const rows: JobRow[] = await jobs(knex, buildId).orderBy([
+    { column: 'j.position' },
+    { column: 'j.created_at' },
+  ]);
   return rows.map(toJob);
 }
 
@@ -125,7 +136,11 @@ export async function insertJob(
   return row.id as string;
 }
 
-export async function updateJob(knex: Knex, jobId: string, input: { title?: string; notes?: string }) {
+export async function updateJob(
+  knex: Knex,
+  jobId: string,
+  input: { title?: string; notes?: string },
+) {
   const row: Record<string, unknown> = {};
   if (input.title !== undefined) row.title = input.title;
   if (input.notes !== undefined) row.notes = input.notes;
@@ -241,7 +256,11 @@ export async function markUnderWay(knex: Knex, stepId: string) {
 export async function signOffStep(
   knex: Knex,
   stepId: string,
-  input: { userId: string; overrideReason: string | null; overrideBlockers: SignOffBlocker[] | null },
+  input: {
+    userId: string;
+    overrideReason: string | null;
+    overrideBlockers: SignOffBlocker[] | null;
+  },
 ) {
   await knex('install_steps')
     .where({ id: stepId })
@@ -291,12 +310,18 @@ export type StepPartLink = {
 
 export async function listStepParts(knex: Knex, stepIds: string[]): Promise<StepPartLink[]> {
   if (!stepIds.length) return [];
-  const rows: { step_id: string; id: string; name: string; category: string; status: string; shop_user_id: string | null }[] =
-    await knex('install_step_parts as sp')
-      .join('parts as p', 'p.id', 'sp.part_id')
-      .whereIn('sp.step_id', stepIds)
-      .orderBy([{ column: 'p.category' }, { column: 'p.name' }])
-      .select('sp.step_id', 'p.id', 'p.name', 'p.category', 'p.status', 'p.shop_user_id');
+  const rows: {
+    step_id: string;
+    id: string;
+    name: string;
+    category: string;
+    status: string;
+    shop_user_id: string | null;
+  }[] = await knex('install_step_parts as sp')
+    .join('parts as p', 'p.id', 'sp.part_id')
+    .whereIn('sp.step_id', stepIds)
+    .orderBy([{ column: 'p.category' }, { column: 'p.name' }])
+    .select('sp.step_id', 'p.id', 'p.name', 'p.category', 'p.status', 'p.shop_user_id');
   return rows.map((r) => ({
     stepId: r.step_id,
     id: r.id,
@@ -321,12 +346,18 @@ export async function countBuildParts(knex: Knex, buildId: string, partIds: stri
 export async function setStepParts(trx: Knex.Transaction, stepId: string, partIds: string[]) {
   await trx('install_step_parts').where({ step_id: stepId }).delete();
   if (partIds.length) {
-    await trx('install_step_parts').insert([...new Set(partIds)].map((part_id) => ({ step_id: stepId, part_id })));
+    await trx('install_step_parts').insert(
+      [...new Set(partIds)].map((part_id) => ({ step_id: stepId, part_id })),
+    );
   }
 }
 
 /** Steps a shop member may read: those linked to a part sent to that shop. */
-export async function stepIdsForShop(knex: Knex, buildId: string, shopUserId: string): Promise<Set<string>> {
+export async function stepIdsForShop(
+  knex: Knex,
+  buildId: string,
+  shopUserId: string,
+): Promise<Set<string>> {
   const rows: { step_id: string }[] = await knex('install_step_parts as sp')
     .join('install_steps as s', 's.id', 'sp.step_id')
     .join('parts as p', 'p.id', 'sp.part_id')
@@ -381,8 +412,15 @@ export async function findChecklistItem(knex: Knex, buildId: string, itemId: str
   return row ? toItem(row) : undefined;
 }
 
-export async function insertChecklistItem(trx: Knex.Transaction, stepId: string, label: string, position: number) {
-  const [row] = await trx('install_checklist_items').insert({ step_id: stepId, label, position }).returning('id');
+export async function insertChecklistItem(
+  trx: Knex.Transaction,
+  stepId: string,
+  label: string,
+  position: number,
+) {
+  const [row] = await trx('install_checklist_items')
+    .insert({ step_id: stepId, label, position })
+    .returning('id');
   return row.id as string;
 }
 
@@ -525,7 +563,9 @@ export async function listRetorqueSpecs(knex: Knex, buildId: string) {
     .join('install_steps as s', 's.id', 'f.step_id')
     .join('install_jobs as j', 'j.id', 's.job_id')
     .where('s.build_id', buildId)
-    .where((q) => q.whereNotNull('f.retorque_after_heat_cycles').orWhereNotNull('f.retorque_after_miles'))
+    .where((q) =>
+      q.whereNotNull('f.retorque_after_heat_cycles').orWhereNotNull('f.retorque_after_miles'),
+    )
     .orderBy([{ column: 'j.position' }, { column: 's.position' }, { column: 'f.position' }])
     .select(
       's.title as step_title',
@@ -544,7 +584,12 @@ export async function listRetorqueSpecs(knex: Knex, buildId: string) {
   }));
 }
 
-export async function insertSpec(trx: Knex.Transaction, stepId: string, input: SpecFieldsInput, position: number) {
+export async function insertSpec(
+  trx: Knex.Transaction,
+  stepId: string,
+  input: SpecFieldsInput,
+  position: number,
+) {
   const [row] = await trx('fastener_specs')
     .insert({ ...specRow(input), step_id: stepId, position })
     .returning('id');

@@ -6,7 +6,11 @@
  */
 import type { Knex } from 'knex';
 import { cautionsForStep } from '../../../shared/install-log/cautions';
-import { asksRetorque, describeRetorque, retorqueState } from '../../../shared/install-log/retorque';
+import {
+  asksRetorque,
+  describeRetorque,
+  retorqueState,
+} from '../../../shared/install-log/retorque';
 import { signOffBlockers, type SignOffBlocker } from '../../../shared/install-log/sign-off';
 import {
   judgeTorque,
@@ -58,14 +62,21 @@ function parseId(raw: string, what: string) {
 }
 
 /** Steps a caller may read: all of them, or for a shop only those linked to its parts. */
-export async function visibleSteps(knex: Knex, buildId: string, caller: Caller): Promise<Set<string> | null> {
+export async function visibleSteps(
+  knex: Knex,
+  buildId: string,
+  caller: Caller,
+): Promise<Set<string> | null> {
   return caller.role === 'shop' ? repo.stepIdsForShop(knex, buildId, caller.userId) : null;
 }
 
 async function loadStep(knex: Knex, buildId: string, rawStepId: string, caller: Caller) {
   const step = await repo.findStep(knex, buildId, parseId(rawStepId, 'Step'));
   if (!step) throw new NotFoundError('Step not found');
-  if (caller.role === 'shop' && !(await repo.stepIdsForShop(knex, buildId, caller.userId)).has(step.id)) {
+  if (
+    caller.role === 'shop' &&
+    !(await repo.stepIdsForShop(knex, buildId, caller.userId)).has(step.id)
+  ) {
     // Another step is as invisible to a shop as a step that does not exist.
     throw new NotFoundError('Step not found');
   }
@@ -81,7 +92,9 @@ async function loadJob(knex: Knex, buildId: string, rawJobId: string) {
 async function loadSpec(knex: Knex, buildId: string, rawSpecId: string, caller: Caller) {
   const spec = await repo.findSpec(knex, buildId, parseId(rawSpecId, 'Fastener'));
   if (!spec) throw new NotFoundError('Fastener not found');
-  const step = await loadStep(knex, buildId, spec.stepId, caller).catch(renameNotFound('Fastener not found'));
+  const step = await loadStep(knex, buildId, spec.stepId, caller).catch(
+    renameNotFound('Fastener not found'),
+  );
   return { spec, step };
 }
 
@@ -94,7 +107,10 @@ function renameNotFound(message: string) {
 
 function assertOpen(step: { status: string }) {
   if (step.status === 'signed-off') {
-    throw new ConflictError('step_signed_off', 'This step is signed off. The owner can reopen it to change it.');
+    throw new ConflictError(
+      'step_signed_off',
+      'This step is signed off. The owner can reopen it to change it.',
+    );
   }
 }
 
@@ -116,12 +132,7 @@ function presentSpec(spec: repo.SpecRecord, readings: repo.ReadingRecord[]): Fas
       supersededCount: here.filter((r) => r.supersededAt).length,
     });
   }
-  const {
-    retorqueClosedAt,
-    retorqueClosedBy,
-    retorqueCloseNote,
-    ...fields
-  } = spec;
+  const { retorqueClosedAt, retorqueClosedBy, retorqueCloseNote, ...fields } = spec;
   return {
     ...fields,
     band: toleranceBand(spec),
@@ -150,12 +161,17 @@ async function assembleSteps(knex: Knex, steps: repo.StepRecord[]): Promise<Step
     specs.map((s) => s.id),
   );
   return steps.map((s) => {
-    const parts = links.filter((l) => l.stepId === s.id).map(({ id, name, category, status }) => ({ id, name, category, status }));
+    const parts = links
+      .filter((l) => l.stepId === s.id)
+      .map(({ id, name, category, status }) => ({ id, name, category, status }));
     const items: ChecklistItem[] = checklist.filter((c) => c.stepId === s.id);
     const fasteners = specs.filter((f) => f.stepId === s.id).map((f) => presentSpec(f, readings));
-    const blockers = s.status === 'signed-off' ? [] : signOffBlockers({ fasteners, checklist: items });
+    const blockers =
+      s.status === 'signed-off' ? [] : signOffBlockers({ fasteners, checklist: items });
     const positionsTotal = fasteners.reduce((n, f) => n + f.count, 0);
-    const current = fasteners.flatMap((f) => f.positions.map((p) => p.current).filter((c) => c != null));
+    const current = fasteners.flatMap((f) =>
+      f.positions.map((p) => p.current).filter((c) => c != null),
+    );
     return {
       id: s.id,
       buildId: s.buildId,
@@ -186,7 +202,9 @@ async function assembleSteps(knex: Knex, steps: repo.StepRecord[]): Promise<Step
         ? {
             by: s.signedOffBy,
             at: s.signedOffAt,
-            override: s.overrideReason ? { reason: s.overrideReason, blockers: s.overrideBlockers ?? [] } : null,
+            override: s.overrideReason
+              ? { reason: s.overrideReason, blockers: s.overrideBlockers ?? [] }
+              : null,
           }
         : null,
       signOffBlockers: blockers,
@@ -229,15 +247,27 @@ export async function listJobs(knex: Knex, buildId: string, caller: Caller): Pro
     .filter((j) => !visible || j.steps.length > 0);
 }
 
-export async function getJob(knex: Knex, buildId: string, rawJobId: string, caller: Caller): Promise<Job> {
+export async function getJob(
+  knex: Knex,
+  buildId: string,
+  rawJobId: string,
+  caller: Caller,
+): Promise<Job> {
   const job = await loadJob(knex, buildId, rawJobId);
   const visible = await visibleSteps(knex, buildId, caller);
-  const steps = (await repo.listSteps(knex, buildId, { jobId: job.id })).filter((s) => !visible || visible.has(s.id));
+  const steps = (await repo.listSteps(knex, buildId, { jobId: job.id })).filter(
+    (s) => !visible || visible.has(s.id),
+  );
   if (visible && steps.length === 0) throw new NotFoundError('Job not found');
   return { ...job, steps: (await assembleSteps(knex, steps)).map(summarize) };
 }
 
-export async function createJob(knex: Knex, buildId: string, caller: Caller, input: CreateJobInput) {
+export async function createJob(
+  knex: Knex,
+  buildId: string,
+  caller: Caller,
+  input: CreateJobInput,
+) {
   const id = await knex.transaction(async (trx) => {
     await repo.lockParent(trx, 'install_jobs', buildId);
     const position = await repo.nextPosition(trx, 'install_jobs', buildId);
@@ -246,7 +276,13 @@ export async function createJob(knex: Knex, buildId: string, caller: Caller, inp
   return getJob(knex, buildId, id, caller);
 }
 
-export async function updateJob(knex: Knex, buildId: string, rawJobId: string, caller: Caller, input: UpdateJobInput) {
+export async function updateJob(
+  knex: Knex,
+  buildId: string,
+  rawJobId: string,
+  caller: Caller,
+  input: UpdateJobInput,
+) {
   const job = await loadJob(knex, buildId, rawJobId);
   await knex.transaction(async (trx) => {
     await repo.updateJob(trx, job.id, input);
@@ -261,7 +297,9 @@ export async function updateJob(knex: Knex, buildId: string, rawJobId: string, c
 /** Deletes rows first, then the files of their photos (a failed file delete leaves only an orphan file). */
 async function removeFiles(ctx: FileCtx, keys: string[]) {
   for (const key of keys) {
-    await ctx.storage.delete(key).catch((err) => ctx.logger.error({ err, key }, 'could not delete a photo file'));
+    await ctx.storage
+      .delete(key)
+      .catch((err) => ctx.logger.error({ err, key }, 'could not delete a photo file'));
   }
 }
 
@@ -340,7 +378,13 @@ export async function updateStep(
   return stepDetail(knex, buildId, step.id);
 }
 
-export async function deleteStep(knex: Knex, ctx: FileCtx, buildId: string, rawStepId: string, caller: Caller) {
+export async function deleteStep(
+  knex: Knex,
+  ctx: FileCtx,
+  buildId: string,
+  rawStepId: string,
+  caller: Caller,
+) {
   const step = await loadStep(knex, buildId, rawStepId, caller);
   const keys = await knex.transaction(async (trx) => {
     const photoKeys = await photosRepo.deletePhotos(trx, { stepIds: [step.id] });
@@ -373,7 +417,9 @@ export async function addChecklistItem(
 async function loadItem(knex: Knex, buildId: string, rawItemId: string, caller: Caller) {
   const item = await repo.findChecklistItem(knex, buildId, parseId(rawItemId, 'Checklist item'));
   if (!item) throw new NotFoundError('Checklist item not found');
-  const step = await loadStep(knex, buildId, item.stepId, caller).catch(renameNotFound('Checklist item not found'));
+  const step = await loadStep(knex, buildId, item.stepId, caller).catch(
+    renameNotFound('Checklist item not found'),
+  );
   return { item, step };
 }
 
@@ -393,7 +439,12 @@ export async function updateChecklistItem(
   return (await repo.findChecklistItem(knex, buildId, item.id))!;
 }
 
-export async function deleteChecklistItem(knex: Knex, buildId: string, rawItemId: string, caller: Caller) {
+export async function deleteChecklistItem(
+  knex: Knex,
+  buildId: string,
+  rawItemId: string,
+  caller: Caller,
+) {
   const { item, step } = await loadItem(knex, buildId, rawItemId, caller);
   await knex.transaction(async (trx) => {
     assertOpen({ status: (await repo.lockStep(trx, step.id)) ?? '' });
@@ -406,7 +457,8 @@ export async function deleteChecklistItem(knex: Knex, buildId: string, rawItemId
 
 function checkSpec(merged: Record<string, unknown>) {
   const issues = fastenerSpecIssues(merged);
-  if (Object.keys(issues).length) throw new ValidationError('Some fields contradict each other', issues);
+  if (Object.keys(issues).length)
+    throw new ValidationError('Some fields contradict each other', issues);
 }
 
 async function presentOne(knex: Knex, buildId: string, specId: string) {
@@ -447,9 +499,15 @@ export async function updateFastener(
   checkSpec({ ...spec, ...input });
   await knex.transaction(async (trx) => {
     assertOpen({ status: (await repo.lockStep(trx, step.id)) ?? '' });
-    const changesTorque = torqueDefiningFields.some((k) => input[k] !== undefined && input[k] !== spec[k]);
+    const changesTorque = torqueDefiningFields.some(
+      (k) => input[k] !== undefined && input[k] !== spec[k],
+    );
     // Changing the target under recorded readings changes their verdicts: the owner's call only.
-    if (changesTorque && !can(caller.role, 'install:override') && (await repo.specHasReadings(trx, spec.id))) {
+    if (
+      changesTorque &&
+      !can(caller.role, 'install:override') &&
+      (await repo.specHasReadings(trx, spec.id))
+    ) {
       throw new ForbiddenError(
         'This fastener already has readings; only the owner can change its target or tolerance',
       );
@@ -459,7 +517,12 @@ export async function updateFastener(
   return presentOne(knex, buildId, spec.id);
 }
 
-export async function deleteFastener(knex: Knex, buildId: string, rawSpecId: string, caller: Caller) {
+export async function deleteFastener(
+  knex: Knex,
+  buildId: string,
+  rawSpecId: string,
+  caller: Caller,
+) {
   const { spec, step } = await loadSpec(knex, buildId, rawSpecId, caller);
   await knex.transaction(async (trx) => {
     assertOpen({ status: (await repo.lockStep(trx, step.id)) ?? '' });
@@ -474,7 +537,10 @@ export async function deleteFastener(knex: Knex, buildId: string, rawSpecId: str
 export async function listReadings(knex: Knex, buildId: string, rawSpecId: string, caller: Caller) {
   const { spec } = await loadSpec(knex, buildId, rawSpecId, caller);
   const readings = await repo.listReadings(knex, [spec.id]);
-  return { fastener: presentSpec(spec, readings), readings: readings.map((r) => presentReading(r, spec)) };
+  return {
+    fastener: presentSpec(spec, readings),
+    readings: readings.map((r) => presentReading(r, spec)),
+  };
 }
 
 /**
@@ -493,9 +559,12 @@ export async function recordReading(
 ) {
   const { spec, step } = await loadSpec(knex, buildId, rawSpecId, caller);
   if (input.position > spec.count) {
-    throw new ValidationError(`${spec.name} has ${spec.count} position${spec.count === 1 ? '' : 's'}`, {
-      position: `Choose a position from 1 to ${spec.count}`,
-    });
+    throw new ValidationError(
+      `${spec.name} has ${spec.count} position${spec.count === 1 ? '' : 's'}`,
+      {
+        position: `Choose a position from 1 to ${spec.count}`,
+      },
+    );
   }
   const kind = input.retorque ? 'retorque' : 'install';
   if (kind === 'retorque' && !asksRetorque(spec)) {
@@ -507,7 +576,10 @@ export async function recordReading(
     const status = await repo.lockStep(trx, step.id);
     if (kind === 'install') assertOpen({ status: status ?? '' });
     else if (status !== 'signed-off') {
-      throw new ConflictError('step_not_signed_off', 'Re-torque checks come after the step is signed off');
+      throw new ConflictError(
+        'step_not_signed_off',
+        'Re-torque checks come after the step is signed off',
+      );
     }
     const result = await repo.insertReading(trx, {
       specId: spec.id,
@@ -556,14 +628,21 @@ function blockerField(b: SignOffBlocker): string {
  * check is unticked — unless the owner gives overrideReason, which is stored with
  * the blockers it overrode. Anyone but the owner sending overrideReason gets 403.
  */
-export async function signOff(knex: Knex, buildId: string, rawStepId: string, caller: Caller, input: SignOffInput) {
+export async function signOff(
+  knex: Knex,
+  buildId: string,
+  rawStepId: string,
+  caller: Caller,
+  input: SignOffInput,
+) {
   const step = await loadStep(knex, buildId, rawStepId, caller);
   if (input.overrideReason !== undefined && !can(caller.role, 'install:override')) {
     throw new ForbiddenError('Only the owner can sign off over out-of-spec or missing readings');
   }
   await knex.transaction(async (trx) => {
     const status = await repo.lockStep(trx, step.id);
-    if (status === 'signed-off') throw new ConflictError('already_signed_off', 'This step is already signed off');
+    if (status === 'signed-off')
+      throw new ConflictError('already_signed_off', 'This step is already signed off');
     const [current] = await assembleSteps(trx, [(await repo.findStep(trx, buildId, step.id))!]);
     const blockers = current.signOffBlockers;
     if (blockers.length && input.overrideReason === undefined) {
@@ -598,7 +677,8 @@ export async function reopen(knex: Knex, buildId: string, rawStepId: string, cal
   const step = await loadStep(knex, buildId, rawStepId, caller);
   await knex.transaction(async (trx) => {
     const status = await repo.lockStep(trx, step.id);
-    if (status !== 'signed-off') throw new ConflictError('not_signed_off', 'This step is not signed off');
+    if (status !== 'signed-off')
+      throw new ConflictError('not_signed_off', 'This step is not signed off');
     await repo.reopenStep(trx, step.id);
   });
   return stepDetail(knex, buildId, step.id);
@@ -614,7 +694,10 @@ export async function listRetorqueChecks(
   caller: Caller,
   filter: (typeof retorqueFilters)[number],
 ): Promise<RetorqueCheck[]> {
-  const [rows, visible] = await Promise.all([repo.listRetorqueSpecs(knex, buildId), visibleSteps(knex, buildId, caller)]);
+  const [rows, visible] = await Promise.all([
+    repo.listRetorqueSpecs(knex, buildId),
+    visibleSteps(knex, buildId, caller),
+  ]);
   const shown = visible ? rows.filter((r) => visible.has(r.spec.stepId)) : rows;
   const readings = await repo.listReadings(
     knex,
@@ -625,7 +708,11 @@ export async function listRetorqueChecks(
     const positionsLeft: number[] = [];
     for (let position = 1; position <= r.spec.count; position++) {
       const reading = readings.find(
-        (x) => x.specId === r.spec.id && x.position === position && x.kind === 'retorque' && !x.supersededAt,
+        (x) =>
+          x.specId === r.spec.id &&
+          x.position === position &&
+          x.kind === 'retorque' &&
+          !x.supersededAt,
       );
       const verdict = reading ? judgeTorque(reading, r.spec).verdict : null;
       current.push(verdict);
@@ -668,11 +755,19 @@ export async function closeRetorqueCheck(
 ) {
   const { spec } = await loadSpec(knex, buildId, rawSpecId, caller);
   if (!asksRetorque(spec)) throw new NotFoundError('This fastener has no re-torque check');
-  const check = (await listRetorqueChecks(knex, buildId, caller, 'all')).find((c) => c.specId === spec.id)!;
+  const check = (await listRetorqueChecks(knex, buildId, caller, 'all')).find(
+    (c) => c.specId === spec.id,
+  )!;
   if (check.state === 'waiting') {
-    throw new ConflictError('step_not_signed_off', 'Re-torque checks come after the step is signed off');
+    throw new ConflictError(
+      'step_not_signed_off',
+      'Re-torque checks come after the step is signed off',
+    );
   }
-  if (check.closedAt) throw new ConflictError('already_closed', 'This re-torque check is already closed');
+  if (check.closedAt)
+    throw new ConflictError('already_closed', 'This re-torque check is already closed');
   await repo.closeRetorque(knex, spec.id, caller.userId, input.note);
-  return (await listRetorqueChecks(knex, buildId, caller, 'all')).find((c) => c.specId === spec.id)!;
+  return (await listRetorqueChecks(knex, buildId, caller, 'all')).find(
+    (c) => c.specId === spec.id,
+  )!;
 }

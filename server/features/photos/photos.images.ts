@@ -29,13 +29,20 @@ export function acceptedFormats(): PhotoFormat[] {
 }
 
 const names: Record<PhotoFormat, string> = { jpeg: 'JPEG', png: 'PNG', webp: 'WebP', heif: 'HEIC' };
-const acceptedList = () => acceptedFormats().map((f) => names[f]).join(', ');
+const acceptedList = () =>
+  acceptedFormats()
+    .map((f) => names[f])
+    .join(', ');
 
 function refuse(code: string, message: string): never {
   throw new AppError(400, code, message);
 }
 
-async function render(input: string | Buffer, size: number, quality: number): Promise<ProcessedImage> {
+async function render(
+  input: string | Buffer,
+  size: number,
+  quality: number,
+): Promise<ProcessedImage> {
   const { data, info } = await sharp(input, { failOn: 'truncated' })
     .rotate()
     .resize({ width: size, height: size, fit: 'inside', withoutEnlargement: true })
@@ -47,7 +54,11 @@ async function render(input: string | Buffer, size: number, quality: number): Pr
 }
 
 /** Checks and converts one upload; throws a 400 AppError naming the file when it is not a usable photo. */
-export async function processPhoto(input: string | Buffer, fileName: string, bytes: number): Promise<ProcessedPhoto> {
+export async function processPhoto(
+  input: string | Buffer,
+  fileName: string,
+  bytes: number,
+): Promise<ProcessedPhoto> {
   const label = JSON.stringify(fileName || 'the file');
   let meta: Metadata;
   try {
@@ -57,7 +68,10 @@ export async function processPhoto(input: string | Buffer, fileName: string, byt
   }
   const format = meta.format as string;
   if (!(acceptedFormats() as string[]).includes(format)) {
-    refuse('unsupported_format', `${label} is a ${format.toUpperCase()} file. Send ${acceptedList()}.`);
+    refuse(
+      'unsupported_format',
+      `${label} is a ${format.toUpperCase()} file. Send ${acceptedList()}.`,
+    );
   }
   try {
     const web = await render(input, photoSizes.web, 82);
@@ -77,6 +91,9 @@ export async function processPhoto(input: string | Buffer, fileName: string, byt
       format === 'heif'
         ? ' This server cannot decode this HEIC photo: set the phone camera to "Most compatible" (JPEG) or export it as JPEG.'
         : '';
-    refuse('undecodable_image', `${label} could not be decoded; it may be damaged or cut short.${hint}`);
+    refuse(
+      'undecodable_image',
+      `${label} could not be decoded; it may be damaged or cut short.${hint}`,
+    );
   }
 }

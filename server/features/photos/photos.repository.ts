@@ -35,9 +35,24 @@ function toPhoto(r: PhotoRow): PhotoRecord {
     stepId: r.step_id,
     partId: r.part_id,
     caption: r.caption,
-    original: { format: r.original_format, width: r.original_width, height: r.original_height, bytes: r.original_bytes },
-    web: { url: `${base}/web`, width: r.web_width, height: r.web_height, contentType: r.content_type },
-    thumb: { url: `${base}/thumb`, width: r.thumb_width, height: r.thumb_height, contentType: r.content_type },
+    original: {
+      format: r.original_format,
+      width: r.original_width,
+      height: r.original_height,
+      bytes: r.original_bytes,
+    },
+    web: {
+      url: `${base}/web`,
+      width: r.web_width,
+      height: r.web_height,
+      contentType: r.content_type,
+    },
+    thumb: {
+      url: `${base}/thumb`,
+      width: r.thumb_width,
+      height: r.thumb_height,
+      contentType: r.content_type,
+    },
     uploadedBy: r.uploaded_by ? { id: r.uploaded_by, name: r.uploaded_by_name ?? '' } : null,
     createdAt: r.created_at.toISOString(),
     updatedAt: r.updated_at.toISOString(),
@@ -66,7 +81,12 @@ export type PhotoFilter = {
   shop?: { userId: string; stepIds: string[] };
 };
 
-export async function listPhotos(knex: Knex, buildId: string, filter: PhotoFilter, order: 'asc' | 'desc') {
+export async function listPhotos(
+  knex: Knex,
+  buildId: string,
+  filter: PhotoFilter,
+  order: 'asc' | 'desc',
+) {
   const q = base(knex, buildId).orderBy([
     { column: 'ph.created_at', order },
     { column: 'ph.id', order },
@@ -78,7 +98,10 @@ export async function listPhotos(knex: Knex, buildId: string, filter: PhotoFilte
     q.where((w) =>
       w
         .whereIn('ph.step_id', shop.stepIds)
-        .orWhereIn('ph.part_id', knex('parts').where({ build_id: buildId, shop_user_id: shop.userId }).select('id')),
+        .orWhereIn(
+          'ph.part_id',
+          knex('parts').where({ build_id: buildId, shop_user_id: shop.userId }).select('id'),
+        ),
     );
   }
   const rows: PhotoRow[] = await q;
@@ -131,6 +154,9 @@ export async function insertPhotos(knex: Knex, photos: NewPhoto[]) {
       thumb_width: p.thumbWidth,
       thumb_height: p.thumbHeight,
       uploaded_by: p.uploadedBy,
+      // Per row, not per transaction: photos of one upload keep the order they were sent in.
+      created_at: knex.raw('clock_timestamp()'),
+      updated_at: knex.raw('clock_timestamp()'),
     })),
   );
 }
@@ -145,7 +171,9 @@ export async function deletePhotos(knex: Knex, where: { ids?: string[]; stepIds?
   if (where.ids) q.whereIn('id', where.ids);
   else if (where.stepIds) q.whereIn('step_id', where.stepIds);
   else return [];
-  const rows: { web_key: string; thumb_key: string }[] = await q.delete().returning(['web_key', 'thumb_key']);
+  const rows: { web_key: string; thumb_key: string }[] = await q
+    .delete()
+    .returning(['web_key', 'thumb_key']);
   return rows.flatMap((r) => [r.web_key, r.thumb_key]);
 }
 

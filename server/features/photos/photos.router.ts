@@ -23,7 +23,12 @@ function receivePhotos(deps: AppDeps): RequestHandler {
   const mb = Math.round((deps.config.photoMaxBytes / 1024 / 1024) * 10) / 10;
   const upload = multer({
     storage: multer.diskStorage({ destination: deps.config.uploadTmpDir }),
-    limits: { fileSize: deps.config.photoMaxBytes, files: maxPhotosPerUpload, fields: 5, fieldSize: 10_000 },
+    limits: {
+      fileSize: deps.config.photoMaxBytes,
+      files: maxPhotosPerUpload,
+      fields: 5,
+      fieldSize: 10_000,
+    },
   }).array(photoUploadField, maxPhotosPerUpload);
   return (req, res, next) => {
     upload(req, res, (err: unknown) => {
@@ -34,7 +39,13 @@ function receivePhotos(deps: AppDeps): RequestHandler {
           : err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE'
             ? `Send up to ${maxPhotosPerUpload} photos at a time in the "${photoUploadField}" field`
             : `The upload was refused: ${err.message}`;
-      next(new AppError(400, err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload', message));
+      next(
+        new AppError(
+          400,
+          err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload',
+          message,
+        ),
+      );
     });
   };
 }
@@ -52,38 +63,70 @@ export function photosRouter(deps: AppDeps) {
   const read = buildAccess(knex, 'photos:read');
   const uploadAccess = buildAccess(knex, 'photos:upload');
   const receive = receivePhotos(deps);
-  const caller = (req: Request): service.Caller => ({ userId: req.user!.id, role: req.membership!.role });
+  const caller = (req: Request): service.Caller => ({
+    userId: req.user!.id,
+    role: req.membership!.role,
+  });
   const build = (req: Request) => req.membership!.buildId;
   const param = (req: Request, name: string) => String(req.params[name]);
 
-  const uploadTo = (subject: (req: Request) => service.Subject): RequestHandler => async (req, res) => {
-    try {
-      const fields = uploadPhotoFieldsSchema.parse({ ...req.body });
-      const files = (Array.isArray(req.files) ? req.files : []) as service.UploadedFile[];
-      const photos = await service.upload(ctx, build(req), caller(req), subject(req), files, fields.caption ?? '');
-      res.status(201).json({ photos });
-    } finally {
-      await removeTemp(req);
-    }
-  };
+  const uploadTo =
+    (subject: (req: Request) => service.Subject): RequestHandler =>
+    async (req, res) => {
+      try {
+        const fields = uploadPhotoFieldsSchema.parse({ ...req.body });
+        const files = (Array.isArray(req.files) ? req.files : []) as service.UploadedFile[];
+        const photos = await service.upload(
+          ctx,
+          build(req),
+          caller(req),
+          subject(req),
+          files,
+          fields.caption ?? '',
+        );
+        res.status(201).json({ photos });
+      } finally {
+        await removeTemp(req);
+      }
+    };
 
   router.get('/photos', read, async (req, res) => {
     res.json({ photos: await service.list(knex, build(req), caller(req)) });
   });
   router.get('/steps/:stepId/photos', read, async (req, res) => {
-    res.json({ photos: await service.list(knex, build(req), caller(req), { stepId: param(req, 'stepId') }) });
+    res.json({
+      photos: await service.list(knex, build(req), caller(req), { stepId: param(req, 'stepId') }),
+    });
   });
   router.get('/parts/:partId/photos', read, async (req, res) => {
-    res.json({ photos: await service.list(knex, build(req), caller(req), { partId: param(req, 'partId') }) });
+    res.json({
+      photos: await service.list(knex, build(req), caller(req), { partId: param(req, 'partId') }),
+    });
   });
-  router.post('/steps/:stepId/photos', uploadAccess, receive, uploadTo((req) => ({ stepId: param(req, 'stepId') })));
-  router.post('/parts/:partId/photos', uploadAccess, receive, uploadTo((req) => ({ partId: param(req, 'partId') })));
+  router.post(
+    '/steps/:stepId/photos',
+    uploadAccess,
+    receive,
+    uploadTo((req) => ({ stepId: param(req, 'stepId') })),
+  );
+  router.post(
+    '/parts/:partId/photos',
+    uploadAccess,
+    receive,
+    uploadTo((req) => ({ partId: param(req, 'partId') })),
+  );
   router.get('/photos/:photoId', read, async (req, res) => {
     res.json({ photo: await service.get(knex, build(req), param(req, 'photoId'), caller(req)) });
   });
   for (const size of ['web', 'thumb'] as const satisfies PhotoSize[]) {
     router.get(`/photos/:photoId/${size}`, read, async (req, res) => {
-      const { data, contentType, photo } = await service.file(ctx, build(req), param(req, 'photoId'), caller(req), size);
+      const { data, contentType, photo } = await service.file(
+        ctx,
+        build(req),
+        param(req, 'photoId'),
+        caller(req),
+        size,
+      );
       res
         .type(contentType)
         // Private: only members may see it, so no shared cache may keep it.
@@ -92,9 +135,22 @@ export function photosRouter(deps: AppDeps) {
         .send(data);
     });
   }
-  router.patch('/photos/:photoId', buildAccess(knex, 'photos:update'), validate({ body: updatePhotoInputSchema }), async (req, res) => {
-    res.json({ photo: await service.updateCaption(knex, build(req), param(req, 'photoId'), caller(req), req.body) });
-  });
+  router.patch(
+    '/photos/:photoId',
+    buildAccess(knex, 'photos:update'),
+    validate({ body: updatePhotoInputSchema }),
+    async (req, res) => {
+      res.json({
+        photo: await service.updateCaption(
+          knex,
+          build(req),
+          param(req, 'photoId'),
+          caller(req),
+          req.body,
+        ),
+      });
+    },
+  );
   router.delete('/photos/:photoId', buildAccess(knex, 'photos:delete'), async (req, res) => {
     await service.remove(ctx, build(req), param(req, 'photoId'), caller(req));
     res.status(204).end();

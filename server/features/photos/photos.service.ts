@@ -40,20 +40,33 @@ async function loadSubject(knex: Knex, buildId: string, subject: Subject, caller
   if ('stepId' in subject) {
     const step = await installRepo.findStep(knex, buildId, parseId(subject.stepId, 'Step'));
     const shop = await shopScope(knex, buildId, caller);
-    if (!step || (shop && !shop.stepIds.includes(step.id))) throw new NotFoundError('Step not found');
+    if (!step || (shop && !shop.stepIds.includes(step.id)))
+      throw new NotFoundError('Step not found');
     return { stepId: step.id, partId: null };
   }
   const part = await findPart(knex, buildId, parseId(subject.partId, 'Part'));
-  if (!part || (caller.role === 'shop' && part.shopUserId !== caller.userId)) throw new NotFoundError('Part not found');
+  if (!part || (caller.role === 'shop' && part.shopUserId !== caller.userId))
+    throw new NotFoundError('Part not found');
   return { stepId: null, partId: part.id };
 }
 
-export async function list(knex: Knex, buildId: string, caller: Caller, subject?: Subject): Promise<Photo[]> {
-  const where = subject ? await loadSubject(knex, buildId, subject, caller) : { stepId: null, partId: null };
+export async function list(
+  knex: Knex,
+  buildId: string,
+  caller: Caller,
+  subject?: Subject,
+): Promise<Photo[]> {
+  const where = subject
+    ? await loadSubject(knex, buildId, subject, caller)
+    : { stepId: null, partId: null };
   const photos = await repo.listPhotos(
     knex,
     buildId,
-    { stepId: where.stepId ?? undefined, partId: where.partId ?? undefined, shop: await shopScope(knex, buildId, caller) },
+    {
+      stepId: where.stepId ?? undefined,
+      partId: where.partId ?? undefined,
+      shop: await shopScope(knex, buildId, caller),
+    },
     // A step's or part's photos read as a log, oldest first; the build's gallery shows the newest first.
     subject ? 'asc' : 'desc',
   );
@@ -78,7 +91,13 @@ export async function get(knex: Knex, buildId: string, rawPhotoId: string, calle
 }
 
 /** The bytes of one stored size, for the authenticated image routes. */
-export async function file(ctx: Ctx, buildId: string, rawPhotoId: string, caller: Caller, size: PhotoSize) {
+export async function file(
+  ctx: Ctx,
+  buildId: string,
+  rawPhotoId: string,
+  caller: Caller,
+  size: PhotoSize,
+) {
   const photo = await load(ctx.knex, buildId, rawPhotoId, caller);
   const data = await ctx.storage.get(size === 'web' ? photo.webKey : photo.thumbKey);
   if (!data) {
@@ -143,13 +162,24 @@ export async function upload(
     for (const key of written) await ctx.storage.delete(key).catch(() => undefined);
     throw err;
   }
-  const ids = new Set(rows.map((r) => r.id));
-  const all = await repo.listPhotos(ctx.knex, buildId, target.stepId ? { stepId: target.stepId } : { partId: target.partId! }, 'asc');
-  return all.filter((p) => ids.has(p.id)).map(repo.present);
+  const all = await repo.listPhotos(
+    ctx.knex,
+    buildId,
+    target.stepId ? { stepId: target.stepId } : { partId: target.partId! },
+    'asc',
+  );
+  const byId = new Map(all.map((p) => [p.id, p]));
+  return rows.map((r) => repo.present(byId.get(r.id)!));
 }
 
 /** Owner and crew caption any photo; a shop only the photos it uploaded. */
-export async function updateCaption(knex: Knex, buildId: string, rawPhotoId: string, caller: Caller, input: UpdatePhotoInput) {
+export async function updateCaption(
+  knex: Knex,
+  buildId: string,
+  rawPhotoId: string,
+  caller: Caller,
+  input: UpdatePhotoInput,
+) {
   const photo = await load(knex, buildId, rawPhotoId, caller);
   if (caller.role === 'shop' && photo.uploadedBy?.id !== caller.userId) {
     throw new ForbiddenError('A shop can caption only the photos it uploaded');
@@ -163,6 +193,8 @@ export async function remove(ctx: Ctx, buildId: string, rawPhotoId: string, call
   const photo = await load(ctx.knex, buildId, rawPhotoId, caller);
   const keys = await repo.deletePhotos(ctx.knex, { ids: [photo.id] });
   for (const key of keys) {
-    await ctx.storage.delete(key).catch((err) => ctx.logger.error({ err, key }, 'could not delete a photo file'));
+    await ctx.storage
+      .delete(key)
+      .catch((err) => ctx.logger.error({ err, key }, 'could not delete a photo file'));
   }
 }
