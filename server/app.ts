@@ -19,7 +19,10 @@ import { authRouter, meRouter } from './features/auth/auth.router';
 import { buildsRouter } from './features/builds/builds.router';
 import { estimateRouter } from './features/estimate/estimate.router';
 import { healthRouter } from './features/health/health.router';
-import { buildInvitationsRouter, invitationLinksRouter } from './features/invitations/invitations.router';
+import {
+  buildInvitationsRouter,
+  invitationLinksRouter,
+} from './features/invitations/invitations.router';
 import { devMailRouter } from './features/mail/dev-mail.router';
 import { noticePreferencesRouter } from './features/notices/notices.router';
 import { passwordResetRouter } from './features/password-reset/password-reset.router';
@@ -67,7 +70,10 @@ export function createApp(opts: {
       autoLogging: opts.config.env !== 'test' && { ignore: (req) => req.url === '/api/health' },
       // One short line a request: never headers (cookies) or bodies (passwords).
       serializers: {
-        req: (req: { method: string; url: string }) => ({ method: req.method, url: redactTokens(req.url) }),
+        req: (req: { method: string; url: string }) => ({
+          method: req.method,
+          url: redactTokens(req.url),
+        }),
         res: (res: { statusCode: number }) => ({ status: res.statusCode }),
       },
     }),

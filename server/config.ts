@@ -48,8 +48,7 @@ const envSchema = z.object({
 });
 
 export type SmtpSettings =
-  | { url: string }
-  | { host: string; port: number; secure: boolean; user?: string; pass?: string };
+  { url: string } | { host: string; port: number; secure: boolean; user?: string; pass?: string };
 
 export type MailConfig = {
   from: string;

@@ -17,14 +17,25 @@ let catcher: MailCatcher | null = null;
 if (!config.mail.smtp) {
   try {
     catcher = await startMailCatcher({ port: config.mail.catcherPort, dir: config.mail.dir });
-    logger.info(`mail catcher on 127.0.0.1:${catcher.port}, messages in ${catcher.dir}, listed at ${config.appUrl}/dev/mail`);
+    logger.info(
+      `mail catcher on 127.0.0.1:${catcher.port}, messages in ${catcher.dir}, listed at ${config.appUrl}/dev/mail`,
+    );
   } catch (err) {
-    logger.fatal({ err }, `the mail catcher cannot listen on 127.0.0.1:${config.mail.catcherPort}: set MAIL_CATCHER_PORT to a free port, or SMTP_URL to send real mail`);
+    logger.fatal(
+      { err },
+      `the mail catcher cannot listen on 127.0.0.1:${config.mail.catcherPort}: set MAIL_CATCHER_PORT to a free port, or SMTP_URL to send real mail`,
+    );
     process.exit(1);
   }
 }
 const mailer = createMailer(config.mail);
-const mailWorker = createMailWorker({ knex: db.knex, mailer, logger, appUrl: config.appUrl, pollMs: config.mail.pollMs });
+const mailWorker = createMailWorker({
+  knex: db.knex,
+  mailer,
+  logger,
+  appUrl: config.appUrl,
+  pollMs: config.mail.pollMs,
+});
 mailWorker.start();
 
 const server = app.listen(config.port, config.host, () => {

@@ -28,7 +28,9 @@ export async function up(knex: Knex): Promise<void> {
     add constraint mail_outbox_status check (status in ('queued','sent','failed')),
     add constraint mail_outbox_action_pair check ((action_label is null) = (action_path is null))`);
   // The worker's only question: which queued mail is due?
-  await knex.raw(`create index mail_outbox_due on mail_outbox (next_attempt_at) where status = 'queued'`);
+  await knex.raw(
+    `create index mail_outbox_due on mail_outbox (next_attempt_at) where status = 'queued'`,
+  );
 }
 
 export async function down(knex: Knex): Promise<void> {

@@ -10,7 +10,10 @@ export async function up(knex: Knex): Promise<void> {
     t.boolean('enabled').notNullable();
     t.timestamps(true, true);
     t.primary(['build_id', 'user_id', 'kind']);
-    t.foreign(['build_id', 'user_id']).references(['build_id', 'user_id']).inTable('build_members').onDelete('CASCADE');
+    t.foreign(['build_id', 'user_id'])
+      .references(['build_id', 'user_id'])
+      .inTable('build_members')
+      .onDelete('CASCADE');
   });
 }
 

@@ -29,7 +29,10 @@ export async function hashPassword(password: string): Promise<string> {
 // Checked when no account matches, so a wrong e-mail costs as long as a wrong password.
 let dummyHash: Promise<string> | undefined;
 
-export async function verifyPassword(storedHash: string | null, password: string): Promise<boolean> {
+export async function verifyPassword(
+  storedHash: string | null,
+  password: string,
+): Promise<boolean> {
   if (!storedHash) {
     dummyHash ??= hashPassword('not-a-real-password-for-timing');
     await verify(await dummyHash, password).catch(() => false);
@@ -47,7 +50,11 @@ export function createSessions(pool: pg.Pool) {
     getUserAttributes: (a) => ({ email: a.email, displayName: a.display_name }),
   });
 
-  function writeCookie(req: Request, res: Response, cookie: ReturnType<Lucia['createSessionCookie']>) {
+  function writeCookie(
+    req: Request,
+    res: Response,
+    cookie: ReturnType<Lucia['createSessionCookie']>,
+  ) {
     res.cookie(cookie.name, cookie.value, {
       httpOnly: true,
       sameSite: 'lax',
@@ -65,7 +72,10 @@ export function createSessions(pool: pg.Pool) {
     },
 
     /** Reads the cookie, validates it and refreshes or clears it as lucia says. */
-    async resume(req: Request, res: Response): Promise<{ user: SessionUser; sessionId: string } | null> {
+    async resume(
+      req: Request,
+      res: Response,
+    ): Promise<{ user: SessionUser; sessionId: string } | null> {
       const id = lucia.readSessionCookie(req.headers.cookie ?? '');
       if (!id) return null;
       const { session, user } = await lucia.validateSession(id);
@@ -74,7 +84,10 @@ export function createSessions(pool: pg.Pool) {
         return null;
       }
       if (session.fresh) writeCookie(req, res, lucia.createSessionCookie(session.id));
-      return { user: { id: user.id, email: user.email, displayName: user.displayName }, sessionId: session.id };
+      return {
+        user: { id: user.id, email: user.email, displayName: user.displayName },
+        sessionId: session.id,
+      };
     },
 
     async end(req: Request, res: Response, sessionId: string) {

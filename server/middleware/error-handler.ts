@@ -19,7 +19,9 @@ export function fieldsFromZod(err: ZodError): Record<string, string> {
 }
 
 export const notFoundApi: RequestHandler = (req, res) => {
-  res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.path}` } });
+  res
+    .status(404)
+    .json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.path}` } });
 };
 
 export function errorHandler(logger: Logger): ErrorRequestHandler {
@@ -38,28 +40,47 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     }
     if (err instanceof ZodError) {
       res.status(400).json({
-        error: { code: 'invalid_input', message: 'Some fields need attention', fields: fieldsFromZod(err) },
+        error: {
+          code: 'invalid_input',
+          message: 'Some fields need attention',
+          fields: fieldsFromZod(err),
+        },
       });
       return;
     }
     if (err instanceof MulterError) {
       const message =
-        err.code === 'LIMIT_FILE_SIZE' ? 'The file is too large' : `The upload was refused: ${err.message}`;
-      res.status(400).json({ error: { code: err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload', message } });
+        err.code === 'LIMIT_FILE_SIZE'
+          ? 'The file is too large'
+          : `The upload was refused: ${err.message}`;
+      res
+        .status(400)
+        .json({
+          error: {
+            code: err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload',
+            message,
+          },
+        });
       return;
     }
     // body-parser errors carry a type and a status of their own.
     const type = (err as { type?: string }).type;
     if (type === 'entity.parse.failed') {
-      res.status(400).json({ error: { code: 'malformed_json', message: 'The request body is not valid JSON' } });
+      res
+        .status(400)
+        .json({ error: { code: 'malformed_json', message: 'The request body is not valid JSON' } });
       return;
     }
     if (type === 'entity.too.large') {
-      res.status(413).json({ error: { code: 'too_large', message: 'The request body is too large' } });
+      res
+        .status(413)
+        .json({ error: { code: 'too_large', message: 'The request body is too large' } });
       return;
     }
     if (type === 'charset.unsupported' || type === 'encoding.unsupported') {
-      res.status(415).json({ error: { code: 'unsupported_encoding', message: 'Send the body as UTF-8 JSON' } });
+      res
+        .status(415)
+        .json({ error: { code: 'unsupported_encoding', message: 'Send the body as UTF-8 JSON' } });
       return;
     }
     logger.error({ err, method: req.method, url: req.originalUrl }, 'unhandled error');

@@ -8,6 +8,10 @@ import { stripMoney } from '../lib/money-filter';
 export const moneyFilter: RequestHandler = (_req, res, next) => {
   const json = res.json.bind(res);
   res.json = (body: unknown) =>
-    json(res.locals.hideMoney ? stripMoney(body, res.locals.moneyAllow as Set<string> | undefined) : body);
+    json(
+      res.locals.hideMoney
+        ? stripMoney(body, res.locals.moneyAllow as Set<string> | undefined)
+        : body,
+    );
   next();
 };

@@ -32,7 +32,9 @@ class PostgresStore implements Store {
       .update({ hits: this.knex.raw('greatest(hits - 1, 0)') });
   }
   async resetKey(key: string) {
-    await this.knex('rate_limit_hits').where({ key: this.prefix + key }).delete();
+    await this.knex('rate_limit_hits')
+      .where({ key: this.prefix + key })
+      .delete();
   }
 }
 

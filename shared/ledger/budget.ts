@@ -12,7 +12,12 @@ type BudgetPart = PartMoney & {
 };
 
 /** Money is committed once a part is ordered, and spent once it is in hand. */
-const committedStatuses: ReadonlySet<PartStatus> = new Set(['ordered', 'in-hand', 'at-shop', 'installed']);
+const committedStatuses: ReadonlySet<PartStatus> = new Set([
+  'ordered',
+  'in-hand',
+  'at-shop',
+  'installed',
+]);
 const spentStatuses: ReadonlySet<PartStatus> = new Set(['in-hand', 'at-shop', 'installed']);
 const stageRank = (s: PartStatus) => (spentStatuses.has(s) ? 0 : committedStatuses.has(s) ? 1 : 2);
 
@@ -46,7 +51,10 @@ export function computeBudget(parts: BudgetPart[], budgetCents: number, currency
   // each by date. The part that crosses the budget line is the one to question.
   const dateOf = (p: BudgetPart) => p.orderedOn ?? p.receivedOn ?? p.createdAt.slice(0, 10);
   const ordered = [...live].sort(
-    (a, b) => stageRank(a.status) - stageRank(b.status) || dateOf(a).localeCompare(dateOf(b)) || a.createdAt.localeCompare(b.createdAt),
+    (a, b) =>
+      stageRank(a.status) - stageRank(b.status) ||
+      dateOf(a).localeCompare(dateOf(b)) ||
+      a.createdAt.localeCompare(b.createdAt),
   );
   let running = 0;
   let tippingPart: Budget['tippingPart'] = null;

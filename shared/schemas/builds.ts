@@ -112,9 +112,7 @@ export type Build = {
   updatedAt: string;
 };
 
-export const addMemberInputSchema = z
-  .object({ email: emailSchema, role: roleSchema })
-  .strict();
+export const addMemberInputSchema = z.object({ email: emailSchema, role: roleSchema }).strict();
 export type AddMemberInput = z.infer<typeof addMemberInputSchema>;
 
 export const updateMemberInputSchema = z.object({ role: roleSchema }).strict();

@@ -35,7 +35,14 @@ export const partCategoryLabels: Record<PartCategory, string> = {
 };
 
 /** Where a part is in its life. planned → ordered → in-hand → at-shop → installed; or returned. */
-export const partStatuses = ['planned', 'ordered', 'in-hand', 'at-shop', 'installed', 'returned'] as const;
+export const partStatuses = [
+  'planned',
+  'ordered',
+  'in-hand',
+  'at-shop',
+  'installed',
+  'returned',
+] as const;
 export type PartStatus = (typeof partStatuses)[number];
 export const partStatusLabels: Record<PartStatus, string> = {
   planned: 'On the list',
@@ -114,7 +121,10 @@ export const partFieldsSchema = z.object({
     .max(100_000, { message: 'That rating is too large' })
     .nullable()
     .optional(),
-  ratingUnit: z.enum(ratingUnits, { message: 'Choose a rating unit from the list' }).nullable().optional(),
+  ratingUnit: z
+    .enum(ratingUnits, { message: 'Choose a rating unit from the list' })
+    .nullable()
+    .optional(),
   ratingFor: trimmed(200, 'Rated for').optional(),
 });
 export type PartFields = z.infer<typeof partFieldsSchema>;

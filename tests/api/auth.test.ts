@@ -8,7 +8,9 @@ describe('sign-up', () => {
   it('creates an account, starts a session with a safe cookie and answers /api/me', async () => {
     const agent = app.agent();
     const email = uniqueEmail('new');
-    const res = await agent.post('/api/auth/sign-up').send({ email, password, displayName: '  Ada Welder ' });
+    const res = await agent
+      .post('/api/auth/sign-up')
+      .send({ email, password, displayName: '  Ada Welder ' });
     expect(res.status).toBe(201);
     expect(res.body.user).toMatchObject({ email, displayName: 'Ada Welder' });
     expect(res.body.user).not.toHaveProperty('passwordHash');
@@ -24,10 +26,16 @@ describe('sign-up', () => {
 
   it('trims and lower-cases the e-mail and refuses a second account with it', async () => {
     const email = uniqueEmail('case');
-    const first = await app.agent().post('/api/auth/sign-up').send({ email: `  ${email.toUpperCase()} `, password, displayName: 'A' });
+    const first = await app
+      .agent()
+      .post('/api/auth/sign-up')
+      .send({ email: `  ${email.toUpperCase()} `, password, displayName: 'A' });
     expect(first.status).toBe(201);
     expect(first.body.user.email).toBe(email);
-    const again = await app.agent().post('/api/auth/sign-up').send({ email, password, displayName: 'B' });
+    const again = await app
+      .agent()
+      .post('/api/auth/sign-up')
+      .send({ email, password, displayName: 'B' });
     expect(again.status).toBe(409);
     expect(again.body.error.code).toBe('email_taken');
     expect(again.body.error.fields.email).toBeTruthy();
@@ -35,11 +43,17 @@ describe('sign-up', () => {
 
   it('refuses passwords shorter than 10 or longer than 256 characters', async () => {
     for (const pw of ['short', 'x'.repeat(257)]) {
-      const res = await app.agent().post('/api/auth/sign-up').send({ email: uniqueEmail(), password: pw, displayName: 'A' });
+      const res = await app
+        .agent()
+        .post('/api/auth/sign-up')
+        .send({ email: uniqueEmail(), password: pw, displayName: 'A' });
       expect(res.status).toBe(400);
       expect(res.body.error.fields.password).toBeTruthy();
     }
-    const edge = await app.agent().post('/api/auth/sign-up').send({ email: uniqueEmail(), password: 'x'.repeat(256), displayName: 'A' });
+    const edge = await app
+      .agent()
+      .post('/api/auth/sign-up')
+      .send({ email: uniqueEmail(), password: 'x'.repeat(256), displayName: 'A' });
     expect(edge.status).toBe(201);
   });
 
@@ -55,7 +69,9 @@ describe('sign-in and sign-out', () => {
   it('signs in with the right password, case-insensitive e-mail', async () => {
     const user = await signUp(app, 'signin');
     const agent = app.agent();
-    const res = await agent.post('/api/auth/sign-in').send({ email: user.email.toUpperCase(), password });
+    const res = await agent
+      .post('/api/auth/sign-in')
+      .send({ email: user.email.toUpperCase(), password });
     expect(res.status).toBe(200);
     expect(res.body.user.id).toBe(user.id);
     expect((await agent.get('/api/me')).status).toBe(200);
@@ -63,8 +79,14 @@ describe('sign-in and sign-out', () => {
 
   it('gives the same answer for a wrong password and an unknown e-mail', async () => {
     const user = await signUp(app, 'wrong');
-    const wrongPw = await app.agent().post('/api/auth/sign-in').send({ email: user.email, password: 'not-the-password' });
-    const unknown = await app.agent().post('/api/auth/sign-in').send({ email: uniqueEmail('nobody'), password });
+    const wrongPw = await app
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: 'not-the-password' });
+    const unknown = await app
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: uniqueEmail('nobody'), password });
     expect(wrongPw.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrongPw.body).toEqual(unknown.body);
@@ -85,12 +107,14 @@ describe('sign-in and sign-out', () => {
     expect((await app.agent().get('/api/me')).status).toBe(401);
     expect((await app.agent().post('/api/auth/sign-out')).status).toBe(401);
   });
-
 });
 
 describe('origin check', () => {
   it('refuses a state-changing request with no Origin header', async () => {
-    const res = await app.bare().post('/api/auth/sign-up').send({ email: uniqueEmail(), password, displayName: 'A' });
+    const res = await app
+      .bare()
+      .post('/api/auth/sign-up')
+      .send({ email: uniqueEmail(), password, displayName: 'A' });
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('bad_origin');
   });

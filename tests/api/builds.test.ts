@@ -18,9 +18,21 @@ describe('POST /api/builds', () => {
     const owner = await signUp(app);
     const res = await owner.agent
       .post('/api/builds')
-      .send({ name: 'Bare', cylinders: 6, aspiration: 'single-turbo', targetPowerHp: 500, targetPowerBasis: 'wheel' });
+      .send({
+        name: 'Bare',
+        cylinders: 6,
+        aspiration: 'single-turbo',
+        targetPowerHp: 500,
+        targetPowerBasis: 'wheel',
+      });
     expect(res.status).toBe(201);
-    expect(res.body.build).toMatchObject({ budgetCents: 0, currency: 'USD', targetDate: null, vehicleYear: null, transmission: '' });
+    expect(res.body.build).toMatchObject({
+      budgetCents: 0,
+      currency: 'USD',
+      targetDate: null,
+      vehicleYear: null,
+      transmission: '',
+    });
   });
 
   it('answers 401 when signed out', async () => {
@@ -34,7 +46,9 @@ describe('GET /api/builds', () => {
     const { owner, crew, stranger, build } = await buildWithCast(app);
     const mine = await owner.agent.get('/api/builds');
     expect(mine.body.builds.map((b: { id: string }) => b.id)).toContain(build.id);
-    expect(mine.body.builds.find((b: { id: string }) => b.id === build.id).budgetCents).toBe(buildInput.budgetCents);
+    expect(mine.body.builds.find((b: { id: string }) => b.id === build.id).budgetCents).toBe(
+      buildInput.budgetCents,
+    );
 
     const crews = await crew.agent.get('/api/builds');
     const seen = crews.body.builds.find((b: { id: string }) => b.id === build.id);
@@ -79,7 +93,9 @@ describe('GET /api/builds/:buildId', () => {
   it('answers 404 to a stranger, for a missing build and for a malformed id', async () => {
     const { stranger, build } = await buildWithCast(app);
     expect((await stranger.agent.get(`/api/builds/${build.id}`)).status).toBe(404);
-    expect((await stranger.agent.get('/api/builds/00000000-0000-4000-8000-000000000000')).status).toBe(404);
+    expect(
+      (await stranger.agent.get('/api/builds/00000000-0000-4000-8000-000000000000')).status,
+    ).toBe(404);
     expect((await stranger.agent.get('/api/builds/not-an-id')).status).toBe(404);
   });
 
@@ -92,9 +108,16 @@ describe('GET /api/builds/:buildId', () => {
 describe('PATCH /api/builds/:buildId', () => {
   it('lets the owner change fields and leaves the others alone', async () => {
     const { owner, build } = await buildWithCast(app);
-    const res = await owner.agent.patch(`/api/builds/${build.id}`).send({ targetPowerHp: 720, targetEvent: 'Fall pull' });
+    const res = await owner.agent
+      .patch(`/api/builds/${build.id}`)
+      .send({ targetPowerHp: 720, targetEvent: 'Fall pull' });
     expect(res.status).toBe(200);
-    expect(res.body.build).toMatchObject({ targetPowerHp: 720, targetEvent: 'Fall pull', name: buildInput.name, budgetCents: buildInput.budgetCents });
+    expect(res.body.build).toMatchObject({
+      targetPowerHp: 720,
+      targetEvent: 'Fall pull',
+      name: buildInput.name,
+      budgetCents: buildInput.budgetCents,
+    });
   });
 
   it('refuses crew, shop and viewer with 403 and a stranger with 404', async () => {
@@ -104,8 +127,12 @@ describe('PATCH /api/builds/:buildId', () => {
       expect(res.status).toBe(403);
       expect(moneyKeys(res.body)).toEqual([]);
     }
-    expect((await stranger.agent.patch(`/api/builds/${build.id}`).send({ name: 'x' })).status).toBe(404);
-    expect((await app.agent().patch(`/api/builds/${build.id}`).send({ name: 'x' })).status).toBe(401);
+    expect((await stranger.agent.patch(`/api/builds/${build.id}`).send({ name: 'x' })).status).toBe(
+      404,
+    );
+    expect((await app.agent().patch(`/api/builds/${build.id}`).send({ name: 'x' })).status).toBe(
+      401,
+    );
     const row = await app.db.knex('builds').where({ id: build.id }).first();
     expect(row.name).toBe(buildInput.name);
   });
@@ -122,7 +149,8 @@ describe('PATCH /api/builds/:buildId', () => {
 describe('DELETE /api/builds/:buildId', () => {
   it('lets only the owner delete, and then the build is gone for everyone', async () => {
     const { owner, crew, shop, viewer, stranger, build } = await buildWithCast(app);
-    for (const m of [crew, shop, viewer]) expect((await m.agent.delete(`/api/builds/${build.id}`)).status).toBe(403);
+    for (const m of [crew, shop, viewer])
+      expect((await m.agent.delete(`/api/builds/${build.id}`)).status).toBe(403);
     expect((await stranger.agent.delete(`/api/builds/${build.id}`)).status).toBe(404);
     expect((await app.agent().delete(`/api/builds/${build.id}`)).status).toBe(401);
     expect((await owner.agent.delete(`/api/builds/${build.id}`)).status).toBe(204);

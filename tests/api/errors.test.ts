@@ -9,10 +9,23 @@ describe('bad input gets a clear 400 and changes nothing', () => {
     const owner = await signUp(app);
     const res = await owner.agent
       .post('/api/builds')
-      .send({ ...buildInput, cylinders: 'eight', targetPowerHp: -5, budgetCents: 12.5, currency: 'XXX', targetDate: '31/12/2027' });
+      .send({
+        ...buildInput,
+        cylinders: 'eight',
+        targetPowerHp: -5,
+        budgetCents: 12.5,
+        currency: 'XXX',
+        targetDate: '31/12/2027',
+      });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_input');
-    expect(Object.keys(res.body.error.fields).sort()).toEqual(['budgetCents', 'currency', 'cylinders', 'targetDate', 'targetPowerHp']);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual([
+      'budgetCents',
+      'currency',
+      'cylinders',
+      'targetDate',
+      'targetPowerHp',
+    ]);
     expect((await owner.agent.get('/api/builds')).body.builds).toEqual([]);
   });
 
@@ -27,23 +40,33 @@ describe('bad input gets a clear 400 and changes nothing', () => {
 
   it('refuses a 1 MB string with a field message, not a crash', async () => {
     const owner = await signUp(app);
-    const res = await owner.agent.post('/api/builds').send({ ...buildInput, name: 'x'.repeat(1_000_000) });
+    const res = await owner.agent
+      .post('/api/builds')
+      .send({ ...buildInput, name: 'x'.repeat(1_000_000) });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.name).toMatch(/at most 120/);
-    const signUpRes = await app.agent().post('/api/auth/sign-up').send({ email: 'a@example.test', password: 'p'.repeat(1_000_000), displayName: 'x' });
+    const signUpRes = await app
+      .agent()
+      .post('/api/auth/sign-up')
+      .send({ email: 'a@example.test', password: 'p'.repeat(1_000_000), displayName: 'x' });
     expect(signUpRes.status).toBe(400);
   });
 
   it('answers 400 to malformed JSON', async () => {
     const owner = await signUp(app);
-    const res = await owner.agent.post('/api/builds').set('Content-Type', 'application/json').send('{"name": "half');
+    const res = await owner.agent
+      .post('/api/builds')
+      .set('Content-Type', 'application/json')
+      .send('{"name": "half');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('malformed_json');
   });
 
   it('answers 413 to a body over the size limit', async () => {
     const owner = await signUp(app);
-    const res = await owner.agent.post('/api/builds').send({ ...buildInput, name: 'x'.repeat(3_000_000) });
+    const res = await owner.agent
+      .post('/api/builds')
+      .send({ ...buildInput, name: 'x'.repeat(3_000_000) });
     expect(res.status).toBe(413);
     expect(res.body.error.code).toBe('too_large');
   });
@@ -69,7 +92,10 @@ describe('unknown routes and unexpected failures', () => {
     const { createDatabase } = await import('../../server/lib/database');
     const { createLogger } = await import('../../server/lib/logger');
     const supertest = (await import('supertest')).default;
-    const config = { ...loadConfig({ ...process.env, DATABASE_URL: 'postgres://headroom@127.0.0.1:1/none' }), serveClient: false };
+    const config = {
+      ...loadConfig({ ...process.env, DATABASE_URL: 'postgres://headroom@127.0.0.1:1/none' }),
+      serveClient: false,
+    };
     const db = createDatabase(config.databaseUrl);
     const broken = createApp({ db, config, logger: createLogger('silent') });
     const health = await supertest(broken).get('/api/health');

@@ -9,7 +9,12 @@ describe('GET /api/builds/:buildId/members', () => {
     const { owner, crew, shop, viewer, build } = await buildWithCast(app);
     const o = await owner.agent.get(`/api/builds/${build.id}/members`);
     expect(o.status).toBe(200);
-    expect(o.body.members.map((m: { role: string }) => m.role)).toEqual(['owner', 'crew', 'shop', 'viewer']);
+    expect(o.body.members.map((m: { role: string }) => m.role)).toEqual([
+      'owner',
+      'crew',
+      'shop',
+      'viewer',
+    ]);
     expect(o.body.members.every((m: { email?: string }) => typeof m.email === 'string')).toBe(true);
     for (const m of [crew, shop, viewer]) {
       const res = await m.agent.get(`/api/builds/${build.id}/members`);
@@ -31,7 +36,9 @@ describe('POST /api/builds/:buildId/members', () => {
   it('lets the owner add an existing user by e-mail with a role', async () => {
     const { owner, build } = await buildWithCast(app);
     const friend = await signUp(app, 'friend');
-    const res = await owner.agent.post(`/api/builds/${build.id}/members`).send({ email: ` ${friend.email.toUpperCase()} `, role: 'viewer' });
+    const res = await owner.agent
+      .post(`/api/builds/${build.id}/members`)
+      .send({ email: ` ${friend.email.toUpperCase()} `, role: 'viewer' });
     expect(res.status).toBe(201);
     expect(res.body.member).toMatchObject({ userId: friend.id, role: 'viewer' });
     expect((await friend.agent.get(`/api/builds/${build.id}`)).body.build.myRole).toBe('viewer');
@@ -39,10 +46,14 @@ describe('POST /api/builds/:buildId/members', () => {
 
   it('explains when no account has that e-mail, and when the person is already a member', async () => {
     const { owner, crew, build } = await buildWithCast(app);
-    const none = await owner.agent.post(`/api/builds/${build.id}/members`).send({ email: uniqueEmail('ghost'), role: 'crew' });
+    const none = await owner.agent
+      .post(`/api/builds/${build.id}/members`)
+      .send({ email: uniqueEmail('ghost'), role: 'crew' });
     expect(none.status).toBe(400);
     expect(none.body.error.fields.email).toMatch(/no headroom account/i);
-    const dup = await owner.agent.post(`/api/builds/${build.id}/members`).send({ email: crew.email, role: 'viewer' });
+    const dup = await owner.agent
+      .post(`/api/builds/${build.id}/members`)
+      .send({ email: crew.email, role: 'viewer' });
     expect(dup.status).toBe(409);
     expect(dup.body.error.code).toBe('already_member');
   });
@@ -50,7 +61,9 @@ describe('POST /api/builds/:buildId/members', () => {
   it('refuses an unknown role', async () => {
     const { owner, build } = await buildWithCast(app);
     const friend = await signUp(app);
-    const res = await owner.agent.post(`/api/builds/${build.id}/members`).send({ email: friend.email, role: 'boss' });
+    const res = await owner.agent
+      .post(`/api/builds/${build.id}/members`)
+      .send({ email: friend.email, role: 'boss' });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.role).toBeTruthy();
   });
@@ -59,33 +72,68 @@ describe('POST /api/builds/:buildId/members', () => {
     const { crew, shop, viewer, stranger, build } = await buildWithCast(app);
     const friend = await signUp(app);
     for (const m of [crew, shop, viewer]) {
-      expect((await m.agent.post(`/api/builds/${build.id}/members`).send({ email: friend.email, role: 'crew' })).status).toBe(403);
+      expect(
+        (
+          await m.agent
+            .post(`/api/builds/${build.id}/members`)
+            .send({ email: friend.email, role: 'crew' })
+        ).status,
+      ).toBe(403);
     }
-    expect((await stranger.agent.post(`/api/builds/${build.id}/members`).send({ email: friend.email, role: 'crew' })).status).toBe(404);
-    expect((await app.agent().post(`/api/builds/${build.id}/members`).send({ email: friend.email, role: 'crew' })).status).toBe(401);
-    expect(await app.db.knex('build_members').where({ build_id: build.id, user_id: friend.id })).toEqual([]);
+    expect(
+      (
+        await stranger.agent
+          .post(`/api/builds/${build.id}/members`)
+          .send({ email: friend.email, role: 'crew' })
+      ).status,
+    ).toBe(404);
+    expect(
+      (
+        await app
+          .agent()
+          .post(`/api/builds/${build.id}/members`)
+          .send({ email: friend.email, role: 'crew' })
+      ).status,
+    ).toBe(401);
+    expect(
+      await app.db.knex('build_members').where({ build_id: build.id, user_id: friend.id }),
+    ).toEqual([]);
   });
 });
 
 describe('PATCH and DELETE /api/builds/:buildId/members/:userId', () => {
   it('lets the owner change a role and remove a member', async () => {
     const { owner, crew, build } = await buildWithCast(app);
-    const res = await owner.agent.patch(`/api/builds/${build.id}/members/${crew.id}`).send({ role: 'shop' });
+    const res = await owner.agent
+      .patch(`/api/builds/${build.id}/members/${crew.id}`)
+      .send({ role: 'shop' });
     expect(res.status).toBe(200);
     expect(res.body.member.role).toBe('shop');
-    expect((await owner.agent.delete(`/api/builds/${build.id}/members/${crew.id}`)).status).toBe(204);
+    expect((await owner.agent.delete(`/api/builds/${build.id}/members/${crew.id}`)).status).toBe(
+      204,
+    );
     expect((await crew.agent.get(`/api/builds/${build.id}`)).status).toBe(404);
   });
 
   it('never leaves a build without an owner', async () => {
     const { owner, crew, build } = await buildWithCast(app);
-    const demote = await owner.agent.patch(`/api/builds/${build.id}/members/${owner.id}`).send({ role: 'crew' });
+    const demote = await owner.agent
+      .patch(`/api/builds/${build.id}/members/${owner.id}`)
+      .send({ role: 'crew' });
     expect(demote.status).toBe(409);
     expect(demote.body.error.code).toBe('last_owner');
-    expect((await owner.agent.delete(`/api/builds/${build.id}/members/${owner.id}`)).status).toBe(409);
+    expect((await owner.agent.delete(`/api/builds/${build.id}/members/${owner.id}`)).status).toBe(
+      409,
+    );
     // With a second owner, the first may step down.
     await owner.agent.patch(`/api/builds/${build.id}/members/${crew.id}`).send({ role: 'owner' });
-    expect((await owner.agent.patch(`/api/builds/${build.id}/members/${owner.id}`).send({ role: 'viewer' })).status).toBe(200);
+    expect(
+      (
+        await owner.agent
+          .patch(`/api/builds/${build.id}/members/${owner.id}`)
+          .send({ role: 'viewer' })
+      ).status,
+    ).toBe(200);
     const owners = await app.db.knex('build_members').where({ build_id: build.id, role: 'owner' });
     expect(owners.map((o: { user_id: string }) => o.user_id)).toEqual([crew.id]);
   });
@@ -108,19 +156,43 @@ describe('PATCH and DELETE /api/builds/:buildId/members/:userId', () => {
   it('answers 404 for someone who is not a member and for a malformed id', async () => {
     const { owner, build } = await buildWithCast(app);
     const outsider = await signUp(app);
-    expect((await owner.agent.patch(`/api/builds/${build.id}/members/${outsider.id}`).send({ role: 'crew' })).status).toBe(404);
+    expect(
+      (
+        await owner.agent
+          .patch(`/api/builds/${build.id}/members/${outsider.id}`)
+          .send({ role: 'crew' })
+      ).status,
+    ).toBe(404);
     expect((await owner.agent.delete(`/api/builds/${build.id}/members/nope`)).status).toBe(404);
   });
 
   it('refuses crew, shop and viewer with 403, a stranger with 404, signed out with 401', async () => {
     const { crew, shop, viewer, stranger, build, owner } = await buildWithCast(app);
     for (const m of [crew, shop, viewer]) {
-      expect((await m.agent.patch(`/api/builds/${build.id}/members/${viewer.id}`).send({ role: 'owner' })).status).toBe(403);
-      expect((await m.agent.delete(`/api/builds/${build.id}/members/${owner.id}`)).status).toBe(403);
+      expect(
+        (
+          await m.agent
+            .patch(`/api/builds/${build.id}/members/${viewer.id}`)
+            .send({ role: 'owner' })
+        ).status,
+      ).toBe(403);
+      expect((await m.agent.delete(`/api/builds/${build.id}/members/${owner.id}`)).status).toBe(
+        403,
+      );
     }
-    expect((await stranger.agent.patch(`/api/builds/${build.id}/members/${viewer.id}`).send({ role: 'owner' })).status).toBe(404);
-    expect((await stranger.agent.delete(`/api/builds/${build.id}/members/${viewer.id}`)).status).toBe(404);
-    expect((await app.agent().delete(`/api/builds/${build.id}/members/${viewer.id}`)).status).toBe(401);
+    expect(
+      (
+        await stranger.agent
+          .patch(`/api/builds/${build.id}/members/${viewer.id}`)
+          .send({ role: 'owner' })
+      ).status,
+    ).toBe(404);
+    expect(
+      (await stranger.agent.delete(`/api/builds/${build.id}/members/${viewer.id}`)).status,
+    ).toBe(404);
+    expect((await app.agent().delete(`/api/builds/${build.id}/members/${viewer.id}`)).status).toBe(
+      401,
+    );
     expect((await app.db.knex('build_members').where({ build_id: build.id })).length).toBe(4);
   });
 });

@@ -43,7 +43,17 @@ async function castWithParts() {
     })
   ).body.part;
   const c = (
-    await cast.owner.agent.post(url).send({ category: 'bottom-end', name: 'Forged rods', quantity: 8, unitPriceCents: 31_000, status: 'planned', ratingValue: 900, ratingUnit: 'hp-crank' })
+    await cast.owner.agent
+      .post(url)
+      .send({
+        category: 'bottom-end',
+        name: 'Forged rods',
+        quantity: 8,
+        unitPriceCents: 31_000,
+        status: 'planned',
+        ratingValue: 900,
+        ratingUnit: 'hp-crank',
+      })
   ).body.part;
   return { ...cast, url, parts: [a, b, c] };
 }
@@ -80,10 +90,14 @@ describe('parts: create and read', () => {
   it('never shows one shop the parts of another shop', async () => {
     const { owner, build, url, parts } = await castWithParts();
     const otherShop = await signUp(app, 'othershop');
-    await owner.agent.post(`/api/builds/${build.id}/members`).send({ email: otherShop.email, role: 'shop' });
+    await owner.agent
+      .post(`/api/builds/${build.id}/members`)
+      .send({ email: otherShop.email, role: 'shop' });
     expect((await otherShop.agent.get(url)).body.parts).toEqual([]);
     expect((await otherShop.agent.get(`${url}/${parts[1].id}`)).status).toBe(404);
-    expect((await otherShop.agent.patch(`${url}/${parts[1].id}`).send({ status: 'in-hand' })).status).toBe(404);
+    expect(
+      (await otherShop.agent.patch(`${url}/${parts[1].id}`).send({ status: 'in-hand' })).status,
+    ).toBe(404);
   });
 
   it('answers a stranger with 404 and a signed-out caller with 401 on every parts route', async () => {
@@ -97,7 +111,13 @@ describe('parts: create and read', () => {
       expect((await agent.patch(one).send({ status: 'installed' })).status).toBe(expected);
       expect((await agent.delete(one)).status).toBe(expected);
       expect((await agent.get(`${url}.csv`)).status).toBe(expected);
-      expect((await agent.post(`${url}/import`).attach('file', Buffer.from('category,name\nother,x\n'), 'p.csv')).status).toBe(expected);
+      expect(
+        (
+          await agent
+            .post(`${url}/import`)
+            .attach('file', Buffer.from('category,name\nother,x\n'), 'p.csv')
+        ).status,
+      ).toBe(expected);
       expect((await agent.get(url.replace('/parts', '/budget'))).status).toBe(expected);
     }
   });
@@ -116,19 +136,31 @@ describe('parts: create and read', () => {
 describe('parts: who may change what', () => {
   it('lets crew and the shop change status and dates, nothing else', async () => {
     const { crew, shop, viewer, url, parts } = await castWithParts();
-    const crewRes = await crew.agent.patch(`${url}/${parts[0].id}`).send({ status: 'in-hand', receivedOn: '2026-10-18' });
+    const crewRes = await crew.agent
+      .patch(`${url}/${parts[0].id}`)
+      .send({ status: 'in-hand', receivedOn: '2026-10-18' });
     expect(crewRes.status).toBe(200);
     expect(crewRes.body.part).toMatchObject({ status: 'in-hand', receivedOn: '2026-10-18' });
     expect(moneyKeys(crewRes.body)).toEqual([]);
-    expect((await crew.agent.patch(`${url}/${parts[0].id}`).send({ unitPriceCents: 1 })).status).toBe(403);
-    expect((await crew.agent.patch(`${url}/${parts[0].id}`).send({ name: 'renamed' })).status).toBe(403);
+    expect(
+      (await crew.agent.patch(`${url}/${parts[0].id}`).send({ unitPriceCents: 1 })).status,
+    ).toBe(403);
+    expect((await crew.agent.patch(`${url}/${parts[0].id}`).send({ name: 'renamed' })).status).toBe(
+      403,
+    );
 
-    const shopRes = await shop.agent.patch(`${url}/${parts[1].id}`).send({ status: 'in-hand', backOn: '2026-01-14' });
+    const shopRes = await shop.agent
+      .patch(`${url}/${parts[1].id}`)
+      .send({ status: 'in-hand', backOn: '2026-01-14' });
     expect(shopRes.status).toBe(200);
     expect(moneyKeys(shopRes.body)).toEqual(['labourCents']);
-    expect((await shop.agent.patch(`${url}/${parts[1].id}`).send({ labourCents: 1 })).status).toBe(403);
+    expect((await shop.agent.patch(`${url}/${parts[1].id}`).send({ labourCents: 1 })).status).toBe(
+      403,
+    );
 
-    expect((await viewer.agent.patch(`${url}/${parts[0].id}`).send({ status: 'installed' })).status).toBe(403);
+    expect(
+      (await viewer.agent.patch(`${url}/${parts[0].id}`).send({ status: 'installed' })).status,
+    ).toBe(403);
   });
 
   it('marks a send-out overdue when its promised turnaround has passed', async () => {
@@ -143,15 +175,32 @@ describe('parts: who may change what', () => {
 describe('parts: bad input', () => {
   it('refuses negative quantities and money, unknown category, status and unit', async () => {
     const { owner, url } = await castWithParts();
-    const res = await owner.agent.post(url).send({ ...injectors, quantity: -1, unitPriceCents: -5, category: 'flux-capacitor', status: 'lost', ratingUnit: 'furlongs' });
+    const res = await owner.agent
+      .post(url)
+      .send({
+        ...injectors,
+        quantity: -1,
+        unitPriceCents: -5,
+        category: 'flux-capacitor',
+        status: 'lost',
+        ratingUnit: 'furlongs',
+      });
     expect(res.status).toBe(400);
-    expect(Object.keys(res.body.error.fields).sort()).toEqual(['category', 'quantity', 'ratingUnit', 'status', 'unitPriceCents']);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual([
+      'category',
+      'quantity',
+      'ratingUnit',
+      'status',
+      'unitPriceCents',
+    ]);
     expect((await owner.agent.get(url)).body.parts).toHaveLength(3);
   });
 
   it('refuses dates in impossible order, on create and when an edit would make them so', async () => {
     const { owner, url, parts } = await castWithParts();
-    const create = await owner.agent.post(url).send({ category: 'other', name: 'x', receivedOn: '2026-03-01', installedOn: '2026-02-01' });
+    const create = await owner.agent
+      .post(url)
+      .send({ category: 'other', name: 'x', receivedOn: '2026-03-01', installedOn: '2026-02-01' });
     expect(create.status).toBe(400);
     expect(create.body.error.fields.installedOn).toMatch(/before/);
     const edit = await owner.agent.patch(`${url}/${parts[1].id}`).send({ backOn: '2026-01-01' });
@@ -161,7 +210,9 @@ describe('parts: bad input', () => {
 
   it('refuses a shop that is not a shop member of the build', async () => {
     const { owner, crew, url } = await castWithParts();
-    const res = await owner.agent.post(url).send({ category: 'transmission', name: 'Trans', status: 'at-shop', shopUserId: crew.id });
+    const res = await owner.agent
+      .post(url)
+      .send({ category: 'transmission', name: 'Trans', status: 'at-shop', shopUserId: crew.id });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.shopUserId).toBeTruthy();
   });
@@ -170,27 +221,43 @@ describe('parts: bad input', () => {
 describe('budget', () => {
   it('is for the owner only', async () => {
     const { crew, shop, viewer, build } = await castWithParts();
-    for (const m of [crew, shop, viewer]) expect((await m.agent.get(`/api/builds/${build.id}/budget`)).status).toBe(403);
+    for (const m of [crew, shop, viewer])
+      expect((await m.agent.get(`/api/builds/${build.id}/budget`)).status).toBe(403);
   });
 
   it('adds up planned, committed and spent per category from the rows the test created', async () => {
     const { owner, build, url } = await castWithParts();
     // Move one along and add a returned part, which must not count.
-    await owner.agent.post(url).send({ category: 'turbocharger', name: 'Returned turbo', status: 'returned', unitPriceCents: 250_000 });
+    await owner.agent
+      .post(url)
+      .send({
+        category: 'turbocharger',
+        name: 'Returned turbo',
+        status: 'returned',
+        unitPriceCents: 250_000,
+      });
     const { body } = await owner.agent.get(url);
     const res = await owner.agent.get(`/api/builds/${build.id}/budget`);
     expect(res.status).toBe(200);
     const budget = res.body.budget;
     const live = body.parts.filter((p: { status: string }) => p.status !== 'returned');
     const sum = (pred: (p: { status: string }) => boolean) =>
-      live.filter(pred).reduce((s: number, p: Parameters<typeof partTotalCents>[0]) => s + partTotalCents(p), 0);
+      live
+        .filter(pred)
+        .reduce((s: number, p: Parameters<typeof partTotalCents>[0]) => s + partTotalCents(p), 0);
     expect(budget.totals.plannedCents).toBe(sum(() => true));
     expect(budget.totals.committedCents).toBe(sum((p) => p.status !== 'planned'));
-    expect(budget.totals.spentCents).toBe(sum((p) => ['in-hand', 'at-shop', 'installed'].includes(p.status)));
+    expect(budget.totals.spentCents).toBe(
+      sum((p) => ['in-hand', 'at-shop', 'installed'].includes(p.status)),
+    );
     expect(budget.totals.coreOwedCents).toBe(80_000);
-    const fuel = budget.categories.find((c: { category: string }) => c.category === 'fuel-injection');
+    const fuel = budget.categories.find(
+      (c: { category: string }) => c.category === 'fuel-injection',
+    );
     expect(fuel.plannedCents).toBe(42_500 * 8 + 4_000 + 27_200 + 80_000 + 96_000);
-    expect(budget.categories.some((c: { category: string }) => c.category === 'turbocharger')).toBe(false);
+    expect(budget.categories.some((c: { category: string }) => c.category === 'turbocharger')).toBe(
+      false,
+    );
     expect(budget.remainingAfterPlannedCents).toBe(1_500_000 - budget.totals.plannedCents);
   });
 
@@ -213,20 +280,43 @@ describe('CSV export and import', () => {
     const csv = await owner.agent.get(`${url}.csv`);
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
-    const other = (await owner.agent.post('/api/builds').send({ name: 'Second', cylinders: 8, aspiration: 'single-turbo', targetPowerHp: 500, targetPowerBasis: 'crank' })).body.build;
+    const other = (
+      await owner.agent
+        .post('/api/builds')
+        .send({
+          name: 'Second',
+          cylinders: 8,
+          aspiration: 'single-turbo',
+          targetPowerHp: 500,
+          targetPowerBasis: 'crank',
+        })
+    ).body.build;
     // The shop is not on the second build: drop the shop column value for that row.
     const text = csv.text.replace(/shop-[^,]*@example\.test/g, '');
-    const imp = await owner.agent.post(`/api/builds/${other.id}/parts/import`).attach('file', Buffer.from(text), 'parts.csv');
+    const imp = await owner.agent
+      .post(`/api/builds/${other.id}/parts/import`)
+      .attach('file', Buffer.from(text), 'parts.csv');
     expect(imp.status, JSON.stringify(imp.body)).toBe(201);
     expect(imp.body.saved).toBe(3);
     const strip = (p: Record<string, unknown>) => {
-      const { id: _i, buildId: _b, createdAt: _c, updatedAt: _u, shopUserId: _s, shopName: _n, sendOut: _o, ...rest } = p;
+      const {
+        id: _i,
+        buildId: _b,
+        createdAt: _c,
+        updatedAt: _u,
+        shopUserId: _s,
+        shopName: _n,
+        sendOut: _o,
+        ...rest
+      } = p;
       return rest;
     };
     // Rows imported together share a creation time, so compare in a fixed order.
     const byName = (a: { name: string }, b: { name: string }) => a.name.localeCompare(b.name);
     const before = (await owner.agent.get(url)).body.parts.map(strip).sort(byName);
-    const after = (await owner.agent.get(`/api/builds/${other.id}/parts`)).body.parts.map(strip).sort(byName);
+    const after = (await owner.agent.get(`/api/builds/${other.id}/parts`)).body.parts
+      .map(strip)
+      .sort(byName);
     expect(after).toEqual(before);
   });
 
@@ -239,7 +329,9 @@ describe('CSV export and import', () => {
 
   it('previews with dryRun and saves nothing', async () => {
     const { owner, url } = await castWithParts();
-    const res = await owner.agent.post(`${url}/import?dryRun=1`).attach('file', Buffer.from('category,name,quantity\nExhaust,Down-pipe,1\n'), 'p.csv');
+    const res = await owner.agent
+      .post(`${url}/import?dryRun=1`)
+      .attach('file', Buffer.from('category,name,quantity\nExhaust,Down-pipe,1\n'), 'p.csv');
     expect(res.status).toBe(200);
     expect(res.body.rows).toEqual([{ category: 'exhaust', name: 'Down-pipe', quantity: 1 }]);
     expect((await owner.agent.get(url)).body.parts).toHaveLength(3);
@@ -247,7 +339,8 @@ describe('CSV export and import', () => {
 
   it('saves no row when any row fails, and names the failing rows', async () => {
     const { owner, url } = await castWithParts();
-    const csv = 'category,name,quantity,unitPrice\nexhaust,Good,1,10.00\nexhaust,Bad qty,-2,5\nwarp-drive,Bad cat,1,abc\n';
+    const csv =
+      'category,name,quantity,unitPrice\nexhaust,Good,1,10.00\nexhaust,Bad qty,-2,5\nwarp-drive,Bad cat,1,abc\n';
     const res = await owner.agent.post(`${url}/import`).attach('file', Buffer.from(csv), 'p.csv');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_rows');
@@ -259,10 +352,14 @@ describe('CSV export and import', () => {
 
   it('refuses wrong columns, a 20 MB file and text that is not UTF-8', async () => {
     const { owner, url } = await castWithParts();
-    const wrong = await owner.agent.post(`${url}/import`).attach('file', Buffer.from('colour,size\nred,9\n'), 'p.csv');
+    const wrong = await owner.agent
+      .post(`${url}/import`)
+      .attach('file', Buffer.from('colour,size\nred,9\n'), 'p.csv');
     expect(wrong.status).toBe(400);
     expect(wrong.body.error.message).toMatch(/Unknown columns: colour, size/);
-    const big = await owner.agent.post(`${url}/import`).attach('file', Buffer.alloc(20 * 1024 * 1024, 'a'), 'big.csv');
+    const big = await owner.agent
+      .post(`${url}/import`)
+      .attach('file', Buffer.alloc(20 * 1024 * 1024, 'a'), 'big.csv');
     expect(big.status).toBe(400);
     expect(big.body.error.code).toBe('file_too_large');
     const latin1 = Buffer.from([...Buffer.from('category,name\nother,Caf'), 0xe9, 0x0a]);
@@ -275,7 +372,13 @@ describe('CSV export and import', () => {
   it('lets only the owner import', async () => {
     const { crew, viewer, shop, url } = await castWithParts();
     for (const m of [crew, viewer, shop]) {
-      expect((await m.agent.post(`${url}/import`).attach('file', Buffer.from('category,name\nother,x\n'), 'p.csv')).status).toBe(403);
+      expect(
+        (
+          await m.agent
+            .post(`${url}/import`)
+            .attach('file', Buffer.from('category,name\nother,x\n'), 'p.csv')
+        ).status,
+      ).toBe(403);
     }
   });
 });

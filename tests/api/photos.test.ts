@@ -82,14 +82,12 @@ async function castWithStep(t: TestApp = app) {
   const cast = await buildWithCast(t);
   const base = `/api/builds/${cast.build.id}`;
   const shopPart = (
-    await cast.owner.agent
-      .post(`${base}/parts`)
-      .send({
-        category: 'fuel-injection',
-        name: 'Injectors',
-        status: 'at-shop',
-        shopUserId: cast.shop.id,
-      })
+    await cast.owner.agent.post(`${base}/parts`).send({
+      category: 'fuel-injection',
+      name: 'Injectors',
+      status: 'at-shop',
+      shopUserId: cast.shop.id,
+    })
   ).body.part;
   const otherPart = (
     await cast.owner.agent.post(`${base}/parts`).send({ category: 'exhaust', name: 'Down-pipe' })
@@ -392,6 +390,27 @@ describe('who sees and changes photos', () => {
     expect(filesUnder(app.storageDir).filter((f) => f.includes(photo.id))).toHaveLength(2);
     expect((await owner.agent.delete(`${base}/steps/${step.id}`)).status).toBe(204);
     expect(filesUnder(app.storageDir).filter((f) => f.includes(photo.id))).toEqual([]);
+  });
+
+  it('removes the photo files when their part, or the whole build, is deleted', async () => {
+    const { crew, owner, base, otherPart, step, build } = await castWithStep();
+    const onPart = (
+      await crew.agent
+        .post(`${base}/parts/${otherPart.id}/photos`)
+        .attach('photos', await gpsJpeg(), 'p.jpg')
+    ).body.photos[0];
+    const onStep = (
+      await crew.agent
+        .post(`${base}/steps/${step.id}/photos`)
+        .attach('photos', await png(), 's.png')
+    ).body.photos[0];
+    const filesOf = (id: string) => filesUnder(app.storageDir).filter((f) => f.includes(id));
+    expect(filesOf(onPart.id)).toHaveLength(2);
+    expect((await owner.agent.delete(`${base}/parts/${otherPart.id}`)).status).toBe(204);
+    expect(filesOf(onPart.id)).toEqual([]);
+    expect(filesOf(onStep.id)).toHaveLength(2);
+    expect((await owner.agent.delete(`/api/builds/${build.id}`)).status).toBe(204);
+    expect(filesOf(onStep.id)).toEqual([]);
   });
 
   it('shows a shop only the photos of its parts and of steps linked to them; it adds photos only to its parts', async () => {

@@ -8,7 +8,10 @@ describe('rate limit on sign-in and sign-up', () => {
   it('answers 429 with a clear message after too many attempts', async () => {
     const statuses: number[] = [];
     for (let i = 0; i < 4; i++) {
-      const res = await app.agent().post('/api/auth/sign-in').send({ email: uniqueEmail(), password });
+      const res = await app
+        .agent()
+        .post('/api/auth/sign-in')
+        .send({ email: uniqueEmail(), password });
       statuses.push(res.status);
       if (res.status === 429) {
         expect(res.body.error.code).toBe('rate_limited');
@@ -17,7 +20,10 @@ describe('rate limit on sign-in and sign-up', () => {
     }
     expect(statuses).toEqual([401, 401, 401, 429]);
     // Sign-up shares the counter: the same client is still held back.
-    const signUp = await app.agent().post('/api/auth/sign-up').send({ email: uniqueEmail(), password, displayName: 'A' });
+    const signUp = await app
+      .agent()
+      .post('/api/auth/sign-up')
+      .send({ email: uniqueEmail(), password, displayName: 'A' });
     expect(signUp.status).toBe(429);
   });
 

@@ -36,7 +36,10 @@ export type TestApp = {
  * Starts one app for the test file; `overrides` changes config (e.g. a low rate limit).
  * `{ mail: true }` gives the file its own database, a mail catcher and a worker (see ./mail.ts).
  */
-export function useTestApp(overrides: Partial<AppConfig> = {}, options: { mail?: boolean } = {}): TestApp {
+export function useTestApp(
+  overrides: Partial<AppConfig> = {},
+  options: { mail?: boolean } = {},
+): TestApp {
   const ctx = {} as TestApp & { server: Server };
   let mailSetup: Awaited<ReturnType<typeof prepareTestMail>> | undefined;
   let filesDir: string | undefined;

@@ -15,7 +15,9 @@ export type TestUser = { id: string; email: string; displayName: string; agent: 
 export async function signUp(app: TestApp, prefix = 'user'): Promise<TestUser> {
   const agent = app.agent();
   const email = uniqueEmail(prefix);
-  const res = await agent.post('/api/auth/sign-up').send({ email, password, displayName: `Test ${prefix}` });
+  const res = await agent
+    .post('/api/auth/sign-up')
+    .send({ email, password, displayName: `Test ${prefix}` });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
   return { ...res.body.user, agent };
 }
@@ -46,7 +48,9 @@ export async function createBuild(owner: TestUser, overrides: Record<string, unk
 }
 
 export async function addMember(owner: TestUser, buildId: string, user: TestUser, role: Role) {
-  const res = await owner.agent.post(`/api/builds/${buildId}/members`).send({ email: user.email, role });
+  const res = await owner.agent
+    .post(`/api/builds/${buildId}/members`)
+    .send({ email: user.email, role });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
 }
 

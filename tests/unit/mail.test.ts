@@ -73,7 +73,9 @@ describe('link tokens', () => {
 
   it('are kept out of logged URLs', () => {
     const { token } = newToken();
-    expect(redactTokens(`/api/invitations/${token}/accept`)).toBe('/api/invitations/[token]/accept');
+    expect(redactTokens(`/api/invitations/${token}/accept`)).toBe(
+      '/api/invitations/[token]/accept',
+    );
     expect(redactTokens(`/reset-password/${token}?x=1`)).toBe('/reset-password/[token]?x=1');
     const id = '3f2b8c1e-9d4a-4b7e-8f00-123456789abc';
     expect(redactTokens(`/api/builds/${id}/parts`)).toBe(`/api/builds/${id}/parts`);

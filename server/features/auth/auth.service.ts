@@ -20,7 +20,10 @@ export async function signIn(knex: Knex, input: SignInInput): Promise<SessionUse
   const row = await findUserByEmail(knex, input.email);
   const ok = await verifyPassword(row?.password_hash ?? null, input.password);
   if (!row || !ok) {
-    throw new UnauthorizedError('That e-mail and password do not match an account', 'invalid_credentials');
+    throw new UnauthorizedError(
+      'That e-mail and password do not match an account',
+      'invalid_credentials',
+    );
   }
   return { id: row.id, email: row.email, displayName: row.display_name };
 }

@@ -23,7 +23,13 @@ const columns = {
   currency: 'currency',
 } as const satisfies Record<keyof CreateBuildInput, string>;
 
-type Row = Record<string, unknown> & { id: string; role: Role; member_count: number; created_at: Date; updated_at: Date };
+type Row = Record<string, unknown> & {
+  id: string;
+  role: Role;
+  member_count: number;
+  created_at: Date;
+  updated_at: Date;
+};
 
 function toRow(input: UpdateBuildInput) {
   const row: Record<string, unknown> = {};
@@ -54,7 +60,9 @@ function selectForUser(knex: Knex, userId: string) {
     .select(
       'b.*',
       'me.role',
-      knex.raw('(select count(*)::int from build_members m where m.build_id = b.id) as member_count'),
+      knex.raw(
+        '(select count(*)::int from build_members m where m.build_id = b.id) as member_count',
+      ),
     );
 }
 

@@ -25,11 +25,18 @@ export function buildsRouter(deps: AppDeps) {
   router.get('/:buildId', buildAccess(knex, 'build:read'), async (req, res) => {
     res.json({ build: await service.get(knex, req.membership!.buildId, req.user!.id) });
   });
-  router.patch('/:buildId', buildAccess(knex, 'build:update'), validate({ body: updateBuildInputSchema }), async (req, res) => {
-    res.json({ build: await service.update(knex, req.membership!.buildId, req.user!.id, req.body) });
-  });
+  router.patch(
+    '/:buildId',
+    buildAccess(knex, 'build:update'),
+    validate({ body: updateBuildInputSchema }),
+    async (req, res) => {
+      res.json({
+        build: await service.update(knex, req.membership!.buildId, req.user!.id, req.body),
+      });
+    },
+  );
   router.delete('/:buildId', buildAccess(knex, 'build:delete'), async (req, res) => {
-    await service.remove(knex, req.membership!.buildId);
+    await service.remove(knex, req.membership!.buildId, deps);
     res.status(204).end();
   });
 

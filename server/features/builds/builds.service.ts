@@ -5,6 +5,10 @@ import { stripMoney } from '../../lib/money-filter';
 import { NotFoundError } from '../../lib/errors';
 import { insertMember } from '../members/members.repository';
 import * as repo from './builds.repository';
+import { deletePhotos } from '../photos/photos.repository';
+import { deleteFiles } from '../photos/photos.service';
+
+type FileCtx = Parameters<typeof deleteFiles>[0];
 
 /** My builds, each shown as my role on it allows (money only where I own it). */
 export async function listMine(knex: Knex, userId: string) {
@@ -33,6 +37,12 @@ export async function update(knex: Knex, buildId: string, userId: string, input:
   return get(knex, buildId, userId);
 }
 
-export async function remove(knex: Knex, buildId: string) {
-  await repo.deleteBuild(knex, buildId);
+/** The build, its rows (by cascade) and its photo files. */
+export async function remove(knex: Knex, buildId: string, files: FileCtx) {
+  const keys = await knex.transaction(async (trx) => {
+    const photoKeys = await deletePhotos(trx, { buildId });
+    await repo.deleteBuild(trx, buildId);
+    return photoKeys;
+  });
+  await deleteFiles(files, keys);
 }

@@ -64,17 +64,15 @@ export function installLogRouter(deps: AppDeps) {
     write,
     validate({ body: createStepInputSchema }),
     async (req, res) => {
-      res
-        .status(201)
-        .json({
-          step: await service.createStep(
-            knex,
-            build(req),
-            param(req, 'jobId'),
-            caller(req),
-            req.body,
-          ),
-        });
+      res.status(201).json({
+        step: await service.createStep(
+          knex,
+          build(req),
+          param(req, 'jobId'),
+          caller(req),
+          req.body,
+        ),
+      });
     },
   );
   router.get('/steps/:stepId', read, async (req, res) => {
@@ -122,17 +120,15 @@ export function installLogRouter(deps: AppDeps) {
     write,
     validate({ body: createChecklistItemInputSchema }),
     async (req, res) => {
-      res
-        .status(201)
-        .json({
-          item: await service.addChecklistItem(
-            knex,
-            build(req),
-            param(req, 'stepId'),
-            caller(req),
-            req.body,
-          ),
-        });
+      res.status(201).json({
+        item: await service.addChecklistItem(
+          knex,
+          build(req),
+          param(req, 'stepId'),
+          caller(req),
+          req.body,
+        ),
+      });
     },
   );
   router.patch(
@@ -162,17 +158,15 @@ export function installLogRouter(deps: AppDeps) {
     write,
     validate({ body: createFastenerSpecInputSchema }),
     async (req, res) => {
-      res
-        .status(201)
-        .json({
-          fastener: await service.addFastener(
-            knex,
-            build(req),
-            param(req, 'stepId'),
-            caller(req),
-            req.body,
-          ),
-        });
+      res.status(201).json({
+        fastener: await service.addFastener(
+          knex,
+          build(req),
+          param(req, 'stepId'),
+          caller(req),
+          req.body,
+        ),
+      });
     },
   );
   router.patch(

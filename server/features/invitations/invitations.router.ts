@@ -19,11 +19,9 @@ export function buildInvitationsRouter({ db }: AppDeps) {
     res.json({ invitations: await service.list(knex, req.membership!.buildId) });
   });
   router.post('/', manage, validate({ body: createInvitationInputSchema }), async (req, res) => {
-    res
-      .status(201)
-      .json({
-        invitation: await service.create(knex, req.membership!.buildId, req.user!, req.body),
-      });
+    res.status(201).json({
+      invitation: await service.create(knex, req.membership!.buildId, req.user!, req.body),
+    });
   });
   router.post('/:invitationId/resend', manage, async (req, res) => {
     res.json({

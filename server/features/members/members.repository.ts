@@ -1,10 +1,22 @@
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/permissions';
 
-type MemberRow = { user_id: string; display_name: string; email: string; role: Role; created_at: Date };
+type MemberRow = {
+  user_id: string;
+  display_name: string;
+  email: string;
+  role: Role;
+  created_at: Date;
+};
 
-export async function findRole(knex: Knex, buildId: string, userId: string): Promise<Role | undefined> {
-  const row = await knex('build_members').where({ build_id: buildId, user_id: userId }).first('role');
+export async function findRole(
+  knex: Knex,
+  buildId: string,
+  userId: string,
+): Promise<Role | undefined> {
+  const row = await knex('build_members')
+    .where({ build_id: buildId, user_id: userId })
+    .first('role');
   return row?.role;
 }
 

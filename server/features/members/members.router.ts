@@ -13,12 +13,29 @@ export function membersRouter({ db }: AppDeps) {
   router.get('/', buildAccess(knex, 'members:read'), async (req, res) => {
     res.json({ members: await service.list(knex, req.membership!.buildId, req.membership!.role) });
   });
-  router.post('/', buildAccess(knex, 'members:manage'), validate({ body: addMemberInputSchema }), async (req, res) => {
-    res.status(201).json({ member: await service.add(knex, req.membership!.buildId, req.body) });
-  });
-  router.patch('/:userId', buildAccess(knex, 'members:manage'), validate({ body: updateMemberInputSchema }), async (req, res) => {
-    res.json({ member: await service.changeRole(knex, req.membership!.buildId, String(req.params.userId), req.body) });
-  });
+  router.post(
+    '/',
+    buildAccess(knex, 'members:manage'),
+    validate({ body: addMemberInputSchema }),
+    async (req, res) => {
+      res.status(201).json({ member: await service.add(knex, req.membership!.buildId, req.body) });
+    },
+  );
+  router.patch(
+    '/:userId',
+    buildAccess(knex, 'members:manage'),
+    validate({ body: updateMemberInputSchema }),
+    async (req, res) => {
+      res.json({
+        member: await service.changeRole(
+          knex,
+          req.membership!.buildId,
+          String(req.params.userId),
+          req.body,
+        ),
+      });
+    },
+  );
   router.delete('/:userId', buildAccess(knex, 'members:manage'), async (req, res) => {
     await service.remove(knex, req.membership!.buildId, String(req.params.userId));
     res.status(204).end();

@@ -41,10 +41,18 @@ function memberId(raw: string) {
 }
 
 const lastOwner = () =>
-  new ConflictError('last_owner', 'A build needs at least one owner. Make someone else owner first.');
+  new ConflictError(
+    'last_owner',
+    'A build needs at least one owner. Make someone else owner first.',
+  );
 
 /** Role changes and removals run in a transaction that locks the owners, so a build never loses its last one. */
-export async function changeRole(knex: Knex, buildId: string, rawUserId: string, input: UpdateMemberInput) {
+export async function changeRole(
+  knex: Knex,
+  buildId: string,
+  rawUserId: string,
+  input: UpdateMemberInput,
+) {
   const userId = memberId(rawUserId);
   return knex.transaction(async (trx) => {
     const member = await repo.findMember(trx, buildId, userId);

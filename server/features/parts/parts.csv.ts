@@ -50,14 +50,24 @@ const moneyColumns = {
   coreCharge: 'coreChargeCents',
   coreRefund: 'coreRefundCents',
 } as const;
-const dateColumns = ['orderedOn', 'expectedOn', 'receivedOn', 'sentOutOn', 'backOn', 'installedOn'] as const;
+const dateColumns = [
+  'orderedOn',
+  'expectedOn',
+  'receivedOn',
+  'sentOutOn',
+  'backOn',
+  'installedOn',
+] as const;
 
 /** Stops a spreadsheet from running a cell as a formula (CSV injection). */
 function safeCell(value: string) {
   return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
 }
 
-export function partsToCsv(parts: PartRecord[], opts: { withMoney: boolean; shopEmails: Map<string, string> }) {
+export function partsToCsv(
+  parts: PartRecord[],
+  opts: { withMoney: boolean; shopEmails: Map<string, string> },
+) {
   const columns = csvColumns.filter((c) => opts.withMoney || !(c in moneyColumns));
   const rows = parts.map((p) =>
     columns.map((c): string => {
@@ -70,21 +80,30 @@ export function partsToCsv(parts: PartRecord[], opts: { withMoney: boolean; shop
   return Papa.unparse({ fields: [...columns], data: rows }, { newline: '\r\n' });
 }
 
-function lookup<T extends string>(ids: readonly T[], labels: Record<T, string>, raw: string): T | string {
+function lookup<T extends string>(
+  ids: readonly T[],
+  labels: Record<T, string>,
+  raw: string,
+): T | string {
   const v = raw.trim();
   const lower = v.toLowerCase();
   return ids.find((id) => id === lower || labels[id].toLowerCase() === lower) ?? v;
 }
 
-export type CsvRowResult = { row: number; input: Record<string, unknown>; fields: Record<string, string> };
+export type CsvRowResult = {
+  row: number;
+  input: Record<string, unknown>;
+  fields: Record<string, string>;
+};
 
 /**
  * Turns CSV text into part inputs (not yet validated by the part schema). Header
  * problems are returned as a single message; cell problems per row and field.
  */
-export function parseCsv(text: string, shopIdsByEmail: Map<string, string>):
-  | { ok: false; message: string }
-  | { ok: true; rows: CsvRowResult[] } {
+export function parseCsv(
+  text: string,
+  shopIdsByEmail: Map<string, string>,
+): { ok: false; message: string } | { ok: true; rows: CsvRowResult[] } {
   const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), {
     header: true,
     skipEmptyLines: 'greedy',
@@ -92,14 +111,20 @@ export function parseCsv(text: string, shopIdsByEmail: Map<string, string>):
   });
   const header = parsed.meta.fields ?? [];
   const unknown = header.filter((h) => !(csvColumns as readonly string[]).includes(h));
-  if (unknown.length) return { ok: false, message: `Unknown columns: ${unknown.join(', ')}. Expected: ${csvColumns.join(', ')}` };
+  if (unknown.length)
+    return {
+      ok: false,
+      message: `Unknown columns: ${unknown.join(', ')}. Expected: ${csvColumns.join(', ')}`,
+    };
   for (const required of ['category', 'name'] as const) {
-    if (!header.includes(required)) return { ok: false, message: `The CSV has no "${required}" column` };
+    if (!header.includes(required))
+      return { ok: false, message: `The CSV has no "${required}" column` };
   }
   if (parsed.data.length === 0) return { ok: false, message: 'The CSV has no rows' };
   if (parsed.data.length > 5000) return { ok: false, message: 'At most 5000 rows in one import' };
   const badShape = parsed.errors.find((e) => e.type === 'FieldMismatch' || e.type === 'Quotes');
-  if (badShape) return { ok: false, message: `Row ${(badShape.row ?? 0) + 2}: ${badShape.message}` };
+  if (badShape)
+    return { ok: false, message: `Row ${(badShape.row ?? 0) + 2}: ${badShape.message}` };
 
   const rows = parsed.data.map((cells, i): CsvRowResult => {
     const input: Record<string, unknown> = {};
@@ -107,18 +132,21 @@ export function parseCsv(text: string, shopIdsByEmail: Map<string, string>):
     const get = (c: CsvColumn) => (cells[c] ?? '').trim();
     input.category = lookup(partCategories, partCategoryLabels, get('category'));
     input.name = get('name');
-    for (const c of ['vendor', 'partNumber', 'notes', 'ratingFor'] as const) if (c in cells) input[c] = get(c).replace(/^'(?=[=+\-@])/, '');
+    for (const c of ['vendor', 'partNumber', 'notes', 'ratingFor'] as const)
+      if (c in cells) input[c] = get(c).replace(/^'(?=[=+\-@])/, '');
     if (get('quantity')) input.quantity = Number(get('quantity'));
     if (get('status')) input.status = lookup(partStatuses, partStatusLabels, get('status'));
     if (get('turnaroundDays')) input.turnaroundDays = Number(get('turnaroundDays'));
     if (get('ratingValue')) input.ratingValue = Number(get('ratingValue'));
-    if (get('ratingUnit')) input.ratingUnit = lookup(ratingUnits, ratingUnitLabels, get('ratingUnit'));
+    if (get('ratingUnit'))
+      input.ratingUnit = lookup(ratingUnits, ratingUnitLabels, get('ratingUnit'));
     for (const c of dateColumns) if (get(c)) input[c] = get(c);
     for (const [c, key] of Object.entries(moneyColumns)) {
       const raw = get(c as CsvColumn);
       if (!raw) continue;
       const cents = parseMoneyToCents(raw);
-      if (cents === null || Number.isNaN(cents)) fields[key] = `"${raw}" is not an amount like 1234.56`;
+      if (cents === null || Number.isNaN(cents))
+        fields[key] = `"${raw}" is not an amount like 1234.56`;
       else input[key] = cents;
     }
     const shop = get('shopEmail').toLowerCase();

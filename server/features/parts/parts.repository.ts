@@ -1,5 +1,11 @@
 import type { Knex } from 'knex';
-import type { CreatePartInput, PartCategory, PartStatus, RatingUnit, UpdatePartInput } from '../../../shared/schemas/parts';
+import type {
+  CreatePartInput,
+  PartCategory,
+  PartStatus,
+  RatingUnit,
+  UpdatePartInput,
+} from '../../../shared/schemas/parts';
 
 /** camelCase field → snake_case column, for every writable field. */
 const columns = {
@@ -62,7 +68,13 @@ export type PartRecord = {
   updatedAt: string;
 };
 
-type Row = Record<string, unknown> & { id: string; build_id: string; shop_name: string | null; created_at: Date; updated_at: Date };
+type Row = Record<string, unknown> & {
+  id: string;
+  build_id: string;
+  shop_name: string | null;
+  created_at: Date;
+  updated_at: Date;
+};
 
 function toRecord(row: Row): PartRecord {
   const out: Record<string, unknown> = {
@@ -93,7 +105,12 @@ function base(knex: Knex, buildId: string) {
 }
 
 export async function listParts(knex: Knex, buildId: string, opts: { shopUserId?: string } = {}) {
-  const q = base(knex, buildId).orderBy([{ column: 'p.category' }, { column: 'p.created_at' }, { column: 'p.name' }, { column: 'p.id' }]);
+  const q = base(knex, buildId).orderBy([
+    { column: 'p.category' },
+    { column: 'p.created_at' },
+    { column: 'p.name' },
+    { column: 'p.id' },
+  ]);
   if (opts.shopUserId) q.where('p.shop_user_id', opts.shopUserId);
   const rows: Row[] = await q;
   return rows.map(toRecord);
@@ -112,7 +129,12 @@ export async function insertParts(knex: Knex, buildId: string, inputs: CreatePar
   return rows.map((r: { id: string }) => r.id);
 }
 
-export async function updatePart(knex: Knex, buildId: string, partId: string, input: UpdatePartInput) {
+export async function updatePart(
+  knex: Knex,
+  buildId: string,
+  partId: string,
+  input: UpdatePartInput,
+) {
   await knex('parts')
     .where({ id: partId, build_id: buildId })
     .update({ ...toRow(input), updated_at: knex.fn.now() });
@@ -124,7 +146,9 @@ export async function deletePart(knex: Knex, buildId: string, partId: string) {
 
 /** Shop members of a build by user id, to check a part is sent to a real shop member. */
 export async function shopMembers(knex: Knex, buildId: string) {
-  const rows: { user_id: string; email: string; display_name: string }[] = await knex('build_members as m')
+  const rows: { user_id: string; email: string; display_name: string }[] = await knex(
+    'build_members as m',
+  )
     .join('users as u', 'u.id', 'm.user_id')
     .where({ 'm.build_id': buildId, 'm.role': 'shop' })
     .select('m.user_id', 'u.email', 'u.display_name');

@@ -8,13 +8,20 @@ import { validate } from '../../middleware/validate';
 import * as service from './parts.service';
 
 export const maxCsvBytes = 2 * 1024 * 1024;
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxCsvBytes, files: 1 } });
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: maxCsvBytes, files: 1 },
+});
 
 /** Mounted at /api/builds/:buildId (parts and budget). */
-export function partsRouter({ db }: AppDeps) {
+export function partsRouter(deps: AppDeps) {
+  const { db } = deps;
   const router = Router({ mergeParams: true });
   const knex = db.knex;
-  const caller = (req: Express.Request): service.Caller => ({ userId: req.user!.id, role: req.membership!.role });
+  const caller = (req: Express.Request): service.Caller => ({
+    userId: req.user!.id,
+    role: req.membership!.role,
+  });
 
   router.get('/parts', buildAccess(knex, 'parts:read'), shopQuote, async (req, res) => {
     res.json({ parts: await service.list(knex, req.membership!.buildId, caller(req)) });
@@ -23,23 +30,65 @@ export function partsRouter({ db }: AppDeps) {
     const csv = await service.exportCsv(knex, req.membership!.buildId, caller(req));
     res.type('text/csv; charset=utf-8').attachment('parts.csv').send(csv);
   });
-  router.post('/parts', buildAccess(knex, 'parts:create'), validate({ body: createPartInputSchema }), async (req, res) => {
-    res.status(201).json({ part: await service.create(knex, req.membership!.buildId, req.body) });
-  });
-  router.post('/parts/import', buildAccess(knex, 'parts:import'), upload.single('file'), async (req, res) => {
-    if (!req.file) throw new AppError(400, 'no_file', 'Attach a CSV file in the "file" field');
-    const dryRun = req.query.dryRun === '1' || req.query.dryRun === 'true';
-    const result = await service.importCsv(knex, req.membership!.buildId, req.file.buffer, dryRun);
-    res.status(dryRun ? 200 : 201).json({ dryRun, saved: result.saved, rows: result.rows });
-  });
+  router.post(
+    '/parts',
+    buildAccess(knex, 'parts:create'),
+    validate({ body: createPartInputSchema }),
+    async (req, res) => {
+      res.status(201).json({ part: await service.create(knex, req.membership!.buildId, req.body) });
+    },
+  );
+  router.post(
+    '/parts/import',
+    buildAccess(knex, 'parts:import'),
+    upload.single('file'),
+    async (req, res) => {
+      if (!req.file) throw new AppError(400, 'no_file', 'Attach a CSV file in the "file" field');
+      const dryRun = req.query.dryRun === '1' || req.query.dryRun === 'true';
+      const result = await service.importCsv(
+        knex,
+        req.membership!.buildId,
+        req.file.buffer,
+        dryRun,
+      );
+      res.status(dryRun ? 200 : 201).json({ dryRun, saved: result.saved, rows: result.rows });
+    },
+  );
   router.get('/parts/:partId', buildAccess(knex, 'parts:read'), shopQuote, async (req, res) => {
-    res.json({ part: await service.get(knex, req.membership!.buildId, String(req.params.partId), caller(req)) });
+    res.json({
+      part: await service.get(
+        knex,
+        req.membership!.buildId,
+        String(req.params.partId),
+        caller(req),
+      ),
+    });
   });
-  router.patch('/parts/:partId', buildAccess(knex, 'parts:update'), shopQuote, validate({ body: updatePartInputSchema }), async (req, res) => {
-    res.json({ part: await service.update(knex, req.membership!.buildId, String(req.params.partId), caller(req), req.body) });
-  });
+  router.patch(
+    '/parts/:partId',
+    buildAccess(knex, 'parts:update'),
+    shopQuote,
+    validate({ body: updatePartInputSchema }),
+    async (req, res) => {
+      res.json({
+        part: await service.update(
+          knex,
+          req.membership!.buildId,
+          String(req.params.partId),
+          caller(req),
+          req.body,
+        ),
+      });
+    },
+  );
   router.delete('/parts/:partId', buildAccess(knex, 'parts:delete'), async (req, res) => {
-    await service.remove(knex, req.membership!.buildId, String(req.params.partId), caller(req));
+    await service.remove(
+      knex,
+      req.membership!.buildId,
+      String(req.params.partId),
+      caller(req),
+      deps,
+    );
     res.status(204).end();
   });
   router.get('/budget', buildAccess(knex, 'budget:read'), async (req, res) => {

@@ -18,6 +18,10 @@ import { findBuildForUser } from '../builds/builds.repository';
 import { notifyPartProgress } from '../notices/part-notices';
 import { parseCsv, partsToCsv } from './parts.csv';
 import * as repo from './parts.repository';
+import { deletePhotos } from '../photos/photos.repository';
+import { deleteFiles } from '../photos/photos.service';
+
+type FileCtx = Parameters<typeof deleteFiles>[0];
 
 export type Caller = { userId: string; role: Role };
 
@@ -44,7 +48,8 @@ async function load(knex: Knex, buildId: string, rawPartId: string, caller: Call
   if (!parsed.success) throw new NotFoundError('Part not found');
   const part = await repo.findPart(knex, buildId, parsed.data);
   // Another shop's part is as invisible as a part that does not exist.
-  if (!part || (caller.role === 'shop' && part.shopUserId !== caller.userId)) throw new NotFoundError('Part not found');
+  if (!part || (caller.role === 'shop' && part.shopUserId !== caller.userId))
+    throw new NotFoundError('Part not found');
   return part;
 }
 
@@ -56,13 +61,16 @@ async function checkShop(knex: Knex, buildId: string, shopUserId: string | null 
   if (!shopUserId) return;
   const shops = await repo.shopMembers(knex, buildId);
   if (!shops.some((s) => s.user_id === shopUserId)) {
-    throw new ValidationError('That shop is not on this build', { shopUserId: 'Choose a shop member of this build' });
+    throw new ValidationError('That shop is not on this build', {
+      shopUserId: 'Choose a shop member of this build',
+    });
   }
 }
 
 function checkConsistency(merged: Partial<CreatePartInput>) {
   const issues = partConsistencyIssues(merged);
-  if (Object.keys(issues).length) throw new ValidationError('Some fields contradict each other', issues);
+  if (Object.keys(issues).length)
+    throw new ValidationError('Some fields contradict each other', issues);
 }
 
 export async function create(knex: Knex, buildId: string, input: CreatePartInput) {
@@ -72,13 +80,21 @@ export async function create(knex: Knex, buildId: string, input: CreatePartInput
   return present((await repo.findPart(knex, buildId, id))!);
 }
 
-export async function update(knex: Knex, buildId: string, rawPartId: string, caller: Caller, input: UpdatePartInput) {
+export async function update(
+  knex: Knex,
+  buildId: string,
+  rawPartId: string,
+  caller: Caller,
+  input: UpdatePartInput,
+) {
   const existing = await load(knex, buildId, rawPartId, caller);
   if (caller.role !== 'owner') {
     const allowed: readonly string[] = partProgressFields;
     const refused = Object.keys(input).filter((k) => !allowed.includes(k));
     if (refused.length) {
-      throw new ForbiddenError(`Your role may change only a part's status and dates (not ${refused.join(', ')})`);
+      throw new ForbiddenError(
+        `Your role may change only a part's status and dates (not ${refused.join(', ')})`,
+      );
     }
   }
   checkConsistency({ ...existing, ...input });
@@ -91,9 +107,21 @@ export async function update(knex: Knex, buildId: string, rawPartId: string, cal
   return present((await repo.findPart(knex, buildId, existing.id))!);
 }
 
-export async function remove(knex: Knex, buildId: string, rawPartId: string, caller: Caller) {
+/** The part, its photos' rows and then their files. */
+export async function remove(
+  knex: Knex,
+  buildId: string,
+  rawPartId: string,
+  caller: Caller,
+  files: FileCtx,
+) {
   const part = await load(knex, buildId, rawPartId, caller);
-  await repo.deletePart(knex, buildId, part.id);
+  const keys = await knex.transaction(async (trx) => {
+    const photoKeys = await deletePhotos(trx, { partIds: [part.id] });
+    await repo.deletePart(trx, buildId, part.id);
+    return photoKeys;
+  });
+  await deleteFiles(files, keys);
 }
 
 export async function budget(knex: Knex, buildId: string, userId: string) {
@@ -123,7 +151,11 @@ export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dry
   try {
     text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
   } catch {
-    throw new AppError(400, 'not_utf8', 'The file is not UTF-8 text. Save the CSV as UTF-8 and try again.');
+    throw new AppError(
+      400,
+      'not_utf8',
+      'The file is not UTF-8 text. Save the CSV as UTF-8 and try again.',
+    );
   }
   const shops = await repo.shopMembers(knex, buildId);
   const parsed = parseCsv(text, new Map(shops.map((s) => [s.email, s.user_id])));
@@ -133,12 +165,19 @@ export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dry
   const failures: ImportRowReport[] = [];
   for (const r of parsed.rows) {
     const result = createPartInputSchema.safeParse(r.input);
-    const fields = { ...r.fields, ...(result.success ? partConsistencyIssues(result.data) : fieldsFromZod(result.error)) };
+    const fields = {
+      ...r.fields,
+      ...(result.success ? partConsistencyIssues(result.data) : fieldsFromZod(result.error)),
+    };
     if (Object.keys(fields).length) failures.push({ row: r.row, fields });
     else if (result.success) valid.push(result.data);
   }
   if (failures.length) {
-    const err = new AppError(400, 'invalid_rows', `${failures.length} of ${parsed.rows.length} rows need fixing; nothing was saved`);
+    const err = new AppError(
+      400,
+      'invalid_rows',
+      `${failures.length} of ${parsed.rows.length} rows need fixing; nothing was saved`,
+    );
     Object.assign(err, { rows: failures });
     throw err;
   }

@@ -166,10 +166,15 @@ export async function updateCaption(knex: Knex, photoId: string, caption: string
 }
 
 /** Deletes rows and returns the storage keys their files live under. */
-export async function deletePhotos(knex: Knex, where: { ids?: string[]; stepIds?: string[] }) {
+export async function deletePhotos(
+  knex: Knex,
+  where: { ids?: string[]; stepIds?: string[]; partIds?: string[]; buildId?: string },
+) {
   const q = knex('photos');
   if (where.ids) q.whereIn('id', where.ids);
   else if (where.stepIds) q.whereIn('step_id', where.stepIds);
+  else if (where.partIds) q.whereIn('part_id', where.partIds);
+  else if (where.buildId) q.where('build_id', where.buildId);
   else return [];
   const rows: { web_key: string; thumb_key: string }[] = await q
     .delete()

@@ -188,6 +188,15 @@ export async function updateCaption(
   return get(knex, buildId, photo.id, caller);
 }
 
+/** Removes stored files after their rows are gone; a file that will not go is logged, not fatal. */
+export async function deleteFiles(ctx: Omit<Ctx, 'knex'>, keys: string[]) {
+  for (const key of keys) {
+    await ctx.storage
+      .delete(key)
+      .catch((err) => ctx.logger.error({ err, key }, 'could not delete a photo file'));
+  }
+}
+
 /** Owner only: the row goes, then its files. */
 export async function remove(ctx: Ctx, buildId: string, rawPhotoId: string, caller: Caller) {
   const photo = await load(ctx.knex, buildId, rawPhotoId, caller);
