@@ -53,14 +53,12 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
         err.code === 'LIMIT_FILE_SIZE'
           ? 'The file is too large'
           : `The upload was refused: ${err.message}`;
-      res
-        .status(400)
-        .json({
-          error: {
-            code: err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload',
-            message,
-          },
-        });
+      res.status(400).json({
+        error: {
+          code: err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload',
+          message,
+        },
+      });
       return;
     }
     // body-parser errors carry a type and a status of their own.

@@ -16,15 +16,13 @@ describe('POST /api/builds', () => {
 
   it('fills optional fields with their defaults', async () => {
     const owner = await signUp(app);
-    const res = await owner.agent
-      .post('/api/builds')
-      .send({
-        name: 'Bare',
-        cylinders: 6,
-        aspiration: 'single-turbo',
-        targetPowerHp: 500,
-        targetPowerBasis: 'wheel',
-      });
+    const res = await owner.agent.post('/api/builds').send({
+      name: 'Bare',
+      cylinders: 6,
+      aspiration: 'single-turbo',
+      targetPowerHp: 500,
+      targetPowerBasis: 'wheel',
+    });
     expect(res.status).toBe(201);
     expect(res.body.build).toMatchObject({
       budgetCents: 0,

@@ -7,16 +7,14 @@ const app = useTestApp();
 describe('bad input gets a clear 400 and changes nothing', () => {
   it('names each wrong-typed field', async () => {
     const owner = await signUp(app);
-    const res = await owner.agent
-      .post('/api/builds')
-      .send({
-        ...buildInput,
-        cylinders: 'eight',
-        targetPowerHp: -5,
-        budgetCents: 12.5,
-        currency: 'XXX',
-        targetDate: '31/12/2027',
-      });
+    const res = await owner.agent.post('/api/builds').send({
+      ...buildInput,
+      cylinders: 'eight',
+      targetPowerHp: -5,
+      budgetCents: 12.5,
+      currency: 'XXX',
+      targetDate: '31/12/2027',
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_input');
     expect(Object.keys(res.body.error.fields).sort()).toEqual([

@@ -43,17 +43,15 @@ async function castWithParts() {
     })
   ).body.part;
   const c = (
-    await cast.owner.agent
-      .post(url)
-      .send({
-        category: 'bottom-end',
-        name: 'Forged rods',
-        quantity: 8,
-        unitPriceCents: 31_000,
-        status: 'planned',
-        ratingValue: 900,
-        ratingUnit: 'hp-crank',
-      })
+    await cast.owner.agent.post(url).send({
+      category: 'bottom-end',
+      name: 'Forged rods',
+      quantity: 8,
+      unitPriceCents: 31_000,
+      status: 'planned',
+      ratingValue: 900,
+      ratingUnit: 'hp-crank',
+    })
   ).body.part;
   return { ...cast, url, parts: [a, b, c] };
 }
@@ -175,16 +173,14 @@ describe('parts: who may change what', () => {
 describe('parts: bad input', () => {
   it('refuses negative quantities and money, unknown category, status and unit', async () => {
     const { owner, url } = await castWithParts();
-    const res = await owner.agent
-      .post(url)
-      .send({
-        ...injectors,
-        quantity: -1,
-        unitPriceCents: -5,
-        category: 'flux-capacitor',
-        status: 'lost',
-        ratingUnit: 'furlongs',
-      });
+    const res = await owner.agent.post(url).send({
+      ...injectors,
+      quantity: -1,
+      unitPriceCents: -5,
+      category: 'flux-capacitor',
+      status: 'lost',
+      ratingUnit: 'furlongs',
+    });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual([
       'category',
@@ -228,14 +224,12 @@ describe('budget', () => {
   it('adds up planned, committed and spent per category from the rows the test created', async () => {
     const { owner, build, url } = await castWithParts();
     // Move one along and add a returned part, which must not count.
-    await owner.agent
-      .post(url)
-      .send({
-        category: 'turbocharger',
-        name: 'Returned turbo',
-        status: 'returned',
-        unitPriceCents: 250_000,
-      });
+    await owner.agent.post(url).send({
+      category: 'turbocharger',
+      name: 'Returned turbo',
+      status: 'returned',
+      unitPriceCents: 250_000,
+    });
     const { body } = await owner.agent.get(url);
     const res = await owner.agent.get(`/api/builds/${build.id}/budget`);
     expect(res.status).toBe(200);
@@ -281,15 +275,13 @@ describe('CSV export and import', () => {
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     const other = (
-      await owner.agent
-        .post('/api/builds')
-        .send({
-          name: 'Second',
-          cylinders: 8,
-          aspiration: 'single-turbo',
-          targetPowerHp: 500,
-          targetPowerBasis: 'crank',
-        })
+      await owner.agent.post('/api/builds').send({
+        name: 'Second',
+        cylinders: 8,
+        aspiration: 'single-turbo',
+        targetPowerHp: 500,
+        targetPowerBasis: 'crank',
+      })
     ).body.build;
     // The shop is not on the second build: drop the shop column value for that row.
     const text = csv.text.replace(/shop-[^,]*@example\.test/g, '');

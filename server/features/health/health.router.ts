@@ -8,12 +8,10 @@ export function healthRouter({ db }: AppDeps) {
       await db.knex.raw('select 1');
       res.json({ ok: true });
     } catch {
-      res
-        .status(503)
-        .json({
-          ok: false,
-          error: { code: 'database_unavailable', message: 'The database is not answering' },
-        });
+      res.status(503).json({
+        ok: false,
+        error: { code: 'database_unavailable', message: 'The database is not answering' },
+      });
     }
   });
   return router;
