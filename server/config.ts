@@ -119,7 +119,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       .map((s) => s.trim())
       .filter(Boolean),
     authRateLimit: e.AUTH_RATE_LIMIT,
-    rateLimitPrefix: 'auth:',
+    rateLimitPrefix: 'rl:',
     trustProxy: e.TRUST_PROXY === '1',
     logLevel: e.LOG_LEVEL,
     serveClient: e.SERVE_CLIENT === '1',

@@ -9,7 +9,7 @@ import * as service from './auth.service';
 export function authRouter({ db, config, sessions }: AppDeps) {
   const router = Router();
   const limit = createRateLimit(db.knex, {
-    prefix: config.rateLimitPrefix,
+    prefix: `${config.rateLimitPrefix}auth:`,
     limit: config.authRateLimit,
     windowMs: 15 * 60_000,
     message: 'Too many sign-in attempts from here. Wait 15 minutes and try again.',

@@ -46,7 +46,7 @@ export function invitationLinksRouter({ db, config, sessions }: AppDeps) {
   const knex = db.knex;
   // Accepting may create an account: it shares the sign-in/sign-up counter.
   const limit = createRateLimit(knex, {
-    prefix: config.rateLimitPrefix,
+    prefix: `${config.rateLimitPrefix}auth:`,
     limit: config.authRateLimit,
     windowMs: 15 * 60_000,
     message: 'Too many sign-in attempts from here. Wait 15 minutes and try again.',

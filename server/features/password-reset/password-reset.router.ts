@@ -21,7 +21,7 @@ export function passwordResetRouter({ db, config, sessions }: AppDeps) {
   });
   // Choosing the new password shares the sign-in/sign-up counter.
   const authLimit = createRateLimit(knex, {
-    prefix: config.rateLimitPrefix,
+    prefix: `${config.rateLimitPrefix}auth:`,
     limit: config.authRateLimit,
     windowMs: 15 * 60_000,
     message: 'Too many sign-in attempts from here. Wait 15 minutes and try again.',
