@@ -18,6 +18,18 @@ const SignInRoute = lazy(() =>
 const SignUpRoute = lazy(() =>
   import('./routes/auth/sign-up').then((m) => ({ default: m.SignUpRoute })),
 );
+const ForgotPasswordRoute = lazy(() =>
+  import('./routes/auth/forgot-password').then((m) => ({ default: m.ForgotPasswordRoute })),
+);
+const ResetPasswordRoute = lazy(() =>
+  import('./routes/auth/reset-password').then((m) => ({ default: m.ResetPasswordRoute })),
+);
+const InviteRoute = lazy(() =>
+  import('./routes/auth/invite').then((m) => ({ default: m.InviteRoute })),
+);
+const NoticesRoute = lazy(() =>
+  import('./routes/builds/notices').then((m) => ({ default: m.NoticesRoute })),
+);
 const BuildsListRoute = lazy(() =>
   import('./routes/builds/builds-list').then((m) => ({ default: m.BuildsListRoute })),
 );
@@ -31,6 +43,20 @@ const EditBuildRoute = lazy(() =>
   import('./routes/builds/edit-build').then((m) => ({ default: m.EditBuildRoute })),
 );
 
+const EstimateRoute = lazy(() =>
+  import('./routes/builds/estimate').then((m) => ({ default: m.EstimateRoute })),
+);
+
+const PartsRoute = lazy(() =>
+  import('./routes/builds/parts').then((m) => ({ default: m.PartsRoute })),
+);
+const BudgetRoute = lazy(() =>
+  import('./routes/builds/budget').then((m) => ({ default: m.BudgetRoute })),
+);
+const SendOutsRoute = lazy(() =>
+  import('./routes/builds/send-outs').then((m) => ({ default: m.SendOutsRoute })),
+);
+
 const router = createBrowserRouter([
   {
     element: <RootLayout />,
@@ -42,6 +68,9 @@ const router = createBrowserRouter([
           { path: paths.home.path, element: <LandingRoute /> },
           { path: paths.auth.signIn.path, element: <SignInRoute /> },
           { path: paths.auth.signUp.path, element: <SignUpRoute /> },
+          { path: paths.auth.forgotPassword.path, element: <ForgotPasswordRoute /> },
+          { path: paths.auth.resetPassword.path, element: <ResetPasswordRoute /> },
+          { path: paths.auth.invite.path, element: <InviteRoute /> },
           {
             element: <RequireAuth />,
             children: [
@@ -58,6 +87,11 @@ const router = createBrowserRouter([
                       { index: true, element: <BuildOverviewRoute /> },
                       { path: 'edit', element: <EditBuildRoute /> },
                       // Section pages (parts, budget, send-outs, estimate, install, photos, notices) go here.
+                      { path: 'parts', element: <PartsRoute /> },
+                      { path: 'budget', element: <BudgetRoute /> },
+                      { path: 'send-outs', element: <SendOutsRoute /> },
+                      { path: 'estimate', element: <EstimateRoute /> },
+                      { path: 'notices', element: <NoticesRoute /> },
                     ],
                   },
                 ],

@@ -17,6 +17,15 @@ export const paths = {
   auth: {
     signIn: { path: '/sign-in', getHref: (next?: string | null) => withNext('/sign-in', next) },
     signUp: { path: '/sign-up', getHref: (next?: string | null) => withNext('/sign-up', next) },
+    forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+    resetPassword: {
+      path: '/reset-password/:token',
+      getHref: (token: string) => `/reset-password/${encodeURIComponent(token)}`,
+    },
+    invite: {
+      path: '/invite/:token',
+      getHref: (token: string) => `/invite/${encodeURIComponent(token)}`,
+    },
   },
   builds: {
     list: { path: '/builds', getHref: () => '/builds' },

@@ -1,5 +1,5 @@
 import { useParams } from 'react-router-dom';
-import { Pencil } from 'lucide-react';
+import { Bell, Pencil } from 'lucide-react';
 import { can } from '../../../../shared/permissions';
 import { paths } from '../../../config/paths';
 import { useBuild } from '../../../features/builds/api/get-build';
@@ -12,6 +12,7 @@ import { vehicleLine } from '../../../features/builds/components/build-text';
 import { DeleteBuild } from '../../../features/builds/components/delete-build';
 import { RoleBadge } from '../../../features/builds/components/role-badge';
 import { MembersPanel } from '../../../features/members/components/members-panel';
+import { InvitationsPanel } from '../../../features/invitations/components/invitations-panel';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { ButtonLink } from '../../../components/ui/button';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -41,6 +42,13 @@ export function BuildOverviewRoute() {
         badges={<RoleBadge role={b.myRole} prefix="You: " />}
         actions={
           <>
+            <ButtonLink
+              to={paths.builds.notices.getHref(b.id)}
+              variant="secondary"
+              icon={<Bell aria-hidden className="size-4" />}
+            >
+              Notices
+            </ButtonLink>
             {isOwner && (
               <ButtonLink
                 to={paths.builds.edit.getHref(b.id)}
@@ -60,8 +68,16 @@ export function BuildOverviewRoute() {
           <TruckSection build={b} />
           <BudgetSection build={b} />
         </div>
-        <div className="lg:col-span-2">
+        {/* Owners get the invitations beside the crew; everyone else, the crew at full width. */}
+        <div
+          className={
+            can(b.myRole, 'invitations:manage')
+              ? 'grid gap-5 lg:col-span-2 lg:grid-cols-2 lg:items-start'
+              : 'lg:col-span-2'
+          }
+        >
           <MembersPanel build={b} />
+          <InvitationsPanel build={b} />
         </div>
       </div>
     </>

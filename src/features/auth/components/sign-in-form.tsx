@@ -21,6 +21,7 @@ export function SignInForm({ next }: { next: string | null }) {
     register,
     handleSubmit,
     setError,
+    watch,
     formState: { errors, isSubmitting },
   } = useForm<Input, unknown, Output>({
     resolver: zodResolver(signInInputSchema),
@@ -58,6 +59,13 @@ export function SignInForm({ next }: { next: string | null }) {
           />
         )}
       </FormField>
+      <Link
+        to={paths.auth.forgotPassword.getHref()}
+        state={{ email: watch('email') }}
+        className="-mt-3 inline-flex min-h-11 items-center self-start font-semibold text-accent-700 underline"
+      >
+        Forgot your password?
+      </Link>
       <FormError message={errors.root?.server?.message} />
       <Button type="submit" pending={isSubmitting} className="w-full">
         Sign in

@@ -66,6 +66,15 @@ export function MembersPanel({ build }: { build: Build }) {
     >
       <div className="flex flex-col gap-5">
         {body}
+        {canManage && (
+          <p className="-mb-3 text-sm text-ink-2">
+            Not on Headroom yet?{' '}
+            <a href="#invitations" className="font-semibold text-accent-700 underline">
+              Invite them by e-mail
+            </a>
+            . Below, add someone who already has an account.
+          </p>
+        )}
         {canManage && <AddMemberForm buildId={build.id} />}
         {canManage && (
           <details className="text-sm text-ink-2">

@@ -1,0 +1,128 @@
+import { expect, test, type Page } from '@playwright/test';
+import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
+import { linkTo, waitForMail } from './mail';
+
+async function startBuild(page: Page, name: string) {
+  await page.getByRole('link', { name: 'Start a build' }).first().click();
+  await page.getByLabel('Build name').fill(name);
+  await page.getByLabel('Cylinders').fill('8');
+  await page.getByLabel('Target power', { exact: true }).fill('700');
+  await page.getByLabel('Budget').fill('9800');
+  await page.getByRole('button', { name: 'Create build' }).click();
+  await expect(page.getByRole('heading', { level: 1, name })).toBeVisible();
+}
+
+async function invite(page: Page, email: string, role: string) {
+  await page.getByLabel('Address to invite').fill(email);
+  await page.getByLabel('Invite as').selectOption(role);
+  await page.getByRole('button', { name: 'Send invitation' }).click();
+  await expect(page.getByText(`Invitation sent to ${email}`)).toBeVisible();
+  await expect(
+    page.getByRole('list', { name: 'Pending invitations' }).getByText(email),
+  ).toBeVisible();
+}
+
+test('the owner invites a crew member by e-mail; they sign up from the mail and land on the build', async ({
+  browser,
+}) => {
+  const owner = await browser.newContext();
+  const page = await owner.newPage();
+  await signUpThroughPage(page, 'Dale Kowalski', uniqueEmail('owner'));
+  await startBuild(page, 'Blue Oval Puller');
+  const buildUrl = new URL(page.url()).pathname;
+
+  const crewEmail = uniqueEmail('crew');
+  await invite(page, crewEmail, 'crew');
+
+  const mail = await waitForMail(page.request, crewEmail, /invited you to .*Blue Oval Puller/);
+  const invitePath = linkTo(mail, '/invite/');
+
+  const crew = await browser.newContext();
+  const crewPage = await crew.newPage();
+  await crewPage.goto(invitePath);
+  await expect(
+    crewPage.getByRole('heading', { level: 1, name: 'Join Blue Oval Puller' }),
+  ).toBeVisible();
+  await expect(crewPage.getByText('Dale Kowalski invited you')).toBeVisible();
+  await expect(crewPage.getByText(crewEmail)).toBeVisible();
+  await crewPage.getByLabel('Your name').fill('Marisol Ortega');
+  await crewPage.getByLabel('Password').fill(password);
+  await crewPage.getByRole('button', { name: 'Join the build' }).click();
+
+  await expect(crewPage).toHaveURL(buildUrl);
+  await expect(crewPage.getByRole('heading', { level: 1, name: 'Blue Oval Puller' })).toBeVisible();
+  await expect(crewPage.getByTestId('signed-in-user')).toHaveText('Marisol Ortega');
+  await expect(crewPage.getByText('You: Crew')).toBeVisible();
+  // Crew never see money, and have no invitations to manage.
+  await expect(crewPage.getByRole('heading', { name: 'Invite by e-mail' })).toHaveCount(0);
+  expect(await crewPage.locator('body').innerText()).not.toMatch(/\$|9,800|budget/i);
+
+  // The link is single-use.
+  await crewPage.goto(invitePath);
+  await expect(
+    crewPage.getByRole('heading', { level: 1, name: 'This invitation has already been used' }),
+  ).toBeVisible();
+  await crew.close();
+
+  // The owner sees them on the crew, and the invitation gone from the pending list.
+  await page.reload();
+  await expect(
+    page.getByRole('list', { name: 'Members' }).getByText('Marisol Ortega'),
+  ).toBeVisible();
+  await expect(page.getByText('None waiting')).toBeVisible();
+  await owner.close();
+});
+
+test('an existing user signs in from the invitation and accepts with one click', async ({
+  browser,
+}) => {
+  const viewerEmail = uniqueEmail('viewer');
+  const viewer = await browser.newContext();
+  const viewerPage = await viewer.newPage();
+  await signUpThroughPage(viewerPage, 'Priya Natarajan', viewerEmail);
+  await viewerPage.getByRole('button', { name: 'Sign out' }).click();
+  await expect(viewerPage.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+
+  const owner = await browser.newContext();
+  const page = await owner.newPage();
+  await signUpThroughPage(page, 'Wes Harlow', uniqueEmail('owner'));
+  await startBuild(page, 'Cummins Sled');
+  await invite(page, viewerEmail, 'viewer');
+  const mail = await waitForMail(page.request, viewerEmail, /invited you to .*Cummins Sled/);
+  await owner.close();
+
+  await viewerPage.goto(linkTo(mail, '/invite/'));
+  await viewerPage.getByRole('link', { name: 'Sign in to accept' }).click();
+  await viewerPage.getByLabel('E-mail').fill(viewerEmail);
+  await viewerPage.getByLabel('Password').fill(password);
+  await viewerPage.getByRole('button', { name: 'Sign in' }).click();
+
+  await viewerPage.getByRole('button', { name: 'Accept and open the build' }).click();
+  await expect(viewerPage.getByRole('heading', { level: 1, name: 'Cummins Sled' })).toBeVisible();
+  await expect(viewerPage.getByText('You: Viewer')).toBeVisible();
+  await viewer.close();
+});
+
+test('a forgotten password is replaced through the link in the mail', async ({ page }) => {
+  const email = uniqueEmail('forgetful');
+  await signUpThroughPage(page, 'Tomas Reyes', email);
+  await page.getByRole('button', { name: 'Sign out' }).click();
+
+  await page.getByRole('link', { name: 'Forgot your password?' }).click();
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByRole('button', { name: 'E-mail me a link' }).click();
+  await expect(page.getByText(/a link to set a new password is on its way/)).toBeVisible();
+
+  const mail = await waitForMail(page.request, email, /Set a new Headroom password/);
+  await page.goto(linkTo(mail, '/reset-password/'));
+  await expect(page.getByText(email)).toBeVisible();
+  const newPassword = 'new-glow-plugs-2028';
+  await page.getByLabel('New password').fill(newPassword);
+  await page.getByRole('button', { name: 'Set new password' }).click();
+  await expect(page.getByRole('heading', { name: 'My builds' })).toBeVisible();
+  await expect(page.getByTestId('signed-in-user')).toHaveText('Tomas Reyes');
+
+  // The new password is the one that works now.
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await signInThroughPage(page, email, newPassword);
+});

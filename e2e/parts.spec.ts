@@ -1,0 +1,121 @@
+import { expect, test, type Page } from '@playwright/test';
+import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
+
+type NewPart = { name: string; category: string; status: string; price: string };
+
+async function addPart(page: Page, part: NewPart) {
+  await page.getByRole('button', { name: 'Add part' }).first().click();
+  const dialog = page.getByRole('dialog', { name: 'Add a part' });
+  await expect(dialog).toBeVisible();
+  await dialog.getByLabel('Name').fill(part.name);
+  await dialog.getByLabel('Category').selectOption({ label: part.category });
+  await dialog.getByLabel('Status').selectOption({ label: part.status });
+  await dialog.getByLabel('Unit price').fill(part.price);
+  await dialog.getByRole('button', { name: 'Add part' }).click();
+  await expect(dialog).toBeHidden();
+  await expect(page.getByRole('status').filter({ hasText: `Added “${part.name}”.` })).toBeVisible();
+}
+
+/** The Spent figure of one category in the budget's table (the data the bar chart draws). */
+function spentIn(page: Page, category: string) {
+  // Cells after the row header: parts, planned, committed, spent, core owed.
+  return page.getByRole('row', { name: new RegExp(`^${category}`) }).getByRole('cell').nth(3);
+}
+
+test('the owner builds a ledger, moves a part in its row and the budget follows; crew sees no money', async ({
+  browser,
+}) => {
+  const crewEmail = uniqueEmail('crew');
+  const crewContext = await browser.newContext();
+  await signUpThroughPage(await crewContext.newPage(), 'Dale Okonkwo', crewEmail);
+  await crewContext.close();
+
+  const ownerContext = await browser.newContext();
+  const page = await ownerContext.newPage();
+  await signUpThroughPage(page, 'June Calloway', uniqueEmail('owner'));
+  await page.getByRole('link', { name: 'Start a build' }).first().click();
+  await page.getByLabel('Build name').fill('Salt Flat Shuttle');
+  await page.getByLabel('Cylinders').fill('6');
+  await page.getByLabel('Target power', { exact: true }).fill('700');
+  await page.getByLabel('Budget').fill('10000');
+  await page.getByRole('button', { name: 'Create build' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Salt Flat Shuttle' })).toBeVisible();
+
+  // The overview's member form adds someone who already has an account.
+  const addMember = page.getByRole('form', { name: 'Add someone' });
+  await addMember.getByLabel('E-mail').fill(crewEmail);
+  await addMember.getByLabel('Role').selectOption('crew');
+  await addMember.getByRole('button', { name: 'Add member' }).click();
+  await expect(page.getByText('Dale Okonkwo')).toBeVisible();
+
+  const sections = page.getByRole('navigation', { name: 'Build sections' });
+  await sections.getByRole('link', { name: 'Parts' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Parts' })).toBeVisible();
+  await expect(page.getByText('No parts yet')).toBeVisible();
+
+  await addPart(page, {
+    name: 'Injector set, stage 2',
+    category: 'Fuel injection',
+    status: 'On order',
+    price: '1800.00',
+  });
+  await addPart(page, {
+    name: 'Head studs, 12-point',
+    category: 'Cylinder head & studs',
+    status: 'In the garage',
+    price: '850',
+  });
+  await addPart(page, {
+    name: 'Lift pump, 220 L/h',
+    category: 'Fuel supply',
+    status: 'On the list',
+    price: '640.50',
+  });
+
+  const ledger = page.getByRole('table', { name: /Parts ledger/ });
+  for (const name of ['Injector set, stage 2', 'Head studs, 12-point', 'Lift pump, 220 L/h']) {
+    await expect(ledger.getByRole('rowheader', { name })).toBeVisible();
+  }
+  await expect(page.getByText('Total: $3,290.50')).toBeVisible();
+
+  // Before: the injectors are only ordered, so nothing is spent on fuel injection.
+  await sections.getByRole('link', { name: 'Budget' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Budget' })).toBeVisible();
+  await expect(spentIn(page, 'Fuel injection')).toHaveText('$0.00');
+  await expect(page.getByRole('row', { name: /^All categories/ }).getByRole('cell').nth(3)).toHaveText(
+    '$850.00',
+  );
+
+  // The injectors arrive: their status is changed right in the ledger row.
+  await sections.getByRole('link', { name: 'Parts' }).click();
+  const status = page.getByLabel('Status of Injector set, stage 2');
+  await status.selectOption({ label: 'In the garage' });
+  await expect(status).toBeEnabled();
+  await expect(status).toHaveValue('in-hand');
+
+  await sections.getByRole('link', { name: 'Budget' }).click();
+  await expect(spentIn(page, 'Fuel injection')).toHaveText('$1,800.00');
+  await expect(page.getByRole('row', { name: /^All categories/ }).getByRole('cell').nth(3)).toHaveText(
+    '$2,650.00',
+  );
+  await ownerContext.close();
+
+  // The crew member reads the same ledger without a single amount of money.
+  const crew = await browser.newContext();
+  const crewPage = await crew.newPage();
+  await signInThroughPage(crewPage, crewEmail, password);
+  await crewPage.getByText('Salt Flat Shuttle').click();
+  const crewSections = crewPage.getByRole('navigation', { name: 'Build sections' });
+  await expect(crewSections.getByRole('link', { name: 'Budget' })).toHaveCount(0);
+  await crewSections.getByRole('link', { name: 'Parts' }).click();
+  const crewLedger = crewPage.getByRole('table', { name: /Parts ledger/ });
+  await expect(crewLedger.getByRole('rowheader', { name: 'Injector set, stage 2' })).toBeVisible();
+  await expect(crewLedger.getByRole('rowheader', { name: 'Lift pump, 220 L/h' })).toBeVisible();
+  await expect(crewPage.getByLabel('Status of Injector set, stage 2')).toHaveValue('in-hand');
+  for (const header of ['Total', 'Unit price', 'Labour', 'Your quote']) {
+    await expect(crewLedger.getByRole('columnheader', { name: header })).toHaveCount(0);
+  }
+  const text = await crewPage.locator('body').innerText();
+  expect(text).not.toMatch(/\$|1,800|3,290|subtotal/i);
+  await crew.close();
+});

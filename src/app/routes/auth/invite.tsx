@@ -1,0 +1,113 @@
+import { useState } from 'react';
+import { flushSync } from 'react-dom';
+import { useNavigate, useParams } from 'react-router-dom';
+import { roleDescriptions } from '../../../../shared/permissions';
+import { invitationErrorCodes as codes } from '../../../../shared/schemas/invitations';
+import { formatTimestampDate } from '../../../../shared/format';
+import { paths } from '../../../config/paths';
+import { useMe } from '../../../features/auth/api/get-me';
+import { AuthCard } from '../../../features/auth/components/auth-card';
+import { RoleBadge } from '../../../features/builds/components/role-badge';
+import type { AcceptInvitationResult } from '../../../features/invitations/api/accept-invitation';
+import { useInvitationLink } from '../../../features/invitations/api/get-invitation-link';
+import { InvitationAnswer } from '../../../features/invitations/components/invitation-answer';
+import { isApiError } from '../../../lib/api-client';
+import { ButtonLink } from '../../../components/ui/button';
+import { PageSpinner } from '../../../components/ui/spinner';
+import { ErrorState, NotFoundState } from '../../../components/ui/states';
+
+const refusalTitles: Record<string, string> = {
+  [codes.notFound]: 'This invitation link is not valid',
+  [codes.expired]: 'This invitation has expired',
+  [codes.revoked]: 'This invitation was withdrawn',
+  [codes.used]: 'This invitation has already been used',
+};
+
+function Invitation({
+  token,
+  onJoined,
+}: {
+  token: string;
+  onJoined: (result: AcceptInvitationResult) => void;
+}) {
+  const link = useInvitationLink(token);
+  const me = useMe();
+
+  if (link.isPending || me.isPending) return <PageSpinner label="Opening the invitation…" />;
+
+  if (link.isError) {
+    const { error } = link;
+    const next = me.data ? (
+      <ButtonLink to={paths.builds.list.getHref()}>Go to My builds</ButtonLink>
+    ) : (
+      <ButtonLink to={paths.auth.signIn.getHref()}>Sign in</ButtonLink>
+    );
+    if (isApiError(error) && error.status === 404) {
+      return (
+        <NotFoundState
+          title={refusalTitles[error.code] ?? 'This invitation cannot be used'}
+          titleAs="h1"
+          actions={next}
+        >
+          {error.message}
+        </NotFoundState>
+      );
+    }
+    return (
+      <ErrorState
+        title="Could not open the invitation"
+        titleAs="h1"
+        error={error}
+        onRetry={() => void link.refetch()}
+      />
+    );
+  }
+
+  const inv = link.data;
+  return (
+    <AuthCard
+      wide
+      title={`Join ${inv.buildName}`}
+      lead={`${inv.inviterName ?? 'The owner'} invited you to this build on Headroom.`}
+    >
+      <dl className="mb-5 grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 rounded-md border border-rule bg-paper/60 px-4 py-3 text-[15px]">
+        <dt className="text-muted">Your role</dt>
+        <dd>
+          <RoleBadge role={inv.role} />
+          <span className="mt-1 block text-sm text-ink-2">{roleDescriptions[inv.role]}</span>
+        </dd>
+        <dt className="text-muted">Sent to</dt>
+        <dd className="break-all">{inv.email}</dd>
+        <dt className="text-muted">Link works until</dt>
+        <dd>{formatTimestampDate(inv.expiresAt)}</dd>
+      </dl>
+      <InvitationAnswer token={token} invitation={inv} user={me.data ?? null} onJoined={onJoined} />
+    </AuthCard>
+  );
+}
+
+/** "/invite/:token": the page behind the link in an invitation mail; public. */
+export function InviteRoute() {
+  const { token = '' } = useParams();
+  const navigate = useNavigate();
+  const [opening, setOpening] = useState<string | null>(null);
+
+  return (
+    <>
+      <title>Invitation · Headroom</title>
+      {opening ? (
+        <PageSpinner label={`Opening ${opening}…`} />
+      ) : (
+        <Invitation
+          token={token}
+          onJoined={({ build }) => {
+            // The link is used now: drop its view before the new session's cache reset
+            // re-renders it into a refetch (which would answer "already used").
+            flushSync(() => setOpening(build.name));
+            void navigate(paths.builds.overview.getHref(build.id), { replace: true });
+          }}
+        />
+      )}
+    </>
+  );
+}

@@ -1,0 +1,305 @@
+import { useCallback, useMemo, useState } from 'react';
+import { useParams, useSearchParams } from 'react-router-dom';
+import { Download, FileUp, Package, Plus } from 'lucide-react';
+import { can } from '../../../../shared/permissions';
+import type { Build } from '../../../../shared/schemas/builds';
+import type { Part, PartStatus, UpdatePartInput } from '../../../../shared/schemas/parts';
+import { PageHeader } from '../../../components/layouts/page-header';
+import { Alert } from '../../../components/ui/alert';
+import { Button, buttonClasses } from '../../../components/ui/button';
+import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
+import { PageSpinner } from '../../../components/ui/spinner';
+import { EmptyState, ErrorState } from '../../../components/ui/states';
+import { isApiError } from '../../../lib/api-client';
+import { useBuild } from '../../../features/builds/api/get-build';
+import { useMembers } from '../../../features/members/api/get-members';
+import { useCreatePart } from '../../../features/parts/api/create-part';
+import { useDeletePart } from '../../../features/parts/api/delete-part';
+import { getPartsCsvHref } from '../../../features/parts/api/export-parts-csv';
+import { useParts } from '../../../features/parts/api/get-parts';
+import { useUpdatePart } from '../../../features/parts/api/update-part';
+import { ImportPartsDialog } from '../../../features/parts/components/import-parts';
+import { Modal } from '../../../features/parts/components/modal';
+import { PartForm } from '../../../features/parts/components/part-form';
+import type { LedgerActions } from '../../../features/parts/components/parts-columns';
+import { PartsLedger } from '../../../features/parts/components/parts-ledger';
+import { statusChange } from '../../../features/parts/lib/status';
+import { BuildLoadError } from './build-states';
+
+type Editing = { mode: 'create' } | { mode: 'edit' | 'progress'; part: Part } | null;
+
+/** "/builds/:buildId/parts" — the ledger of every part of the build. */
+export function PartsRoute() {
+  const { buildId = '' } = useParams();
+  const build = useBuild(buildId);
+
+  if (build.isPending) return <PageSpinner label="Loading the build…" />;
+  if (build.isError) {
+    return <BuildLoadError error={build.error} onRetry={() => void build.refetch()} />;
+  }
+  return <PartsPage build={build.data} />;
+}
+
+function PartsPage({ build }: { build: Build }) {
+  const [searchParams] = useSearchParams();
+  const parts = useParts(build.id);
+  const createPart = useCreatePart();
+  const updatePart = useUpdatePart();
+  const deletePart = useDeletePart();
+  const role = build.myRole;
+  const isOwner = can(role, 'parts:create');
+  const canUpdate = can(role, 'parts:update');
+  const canDelete = can(role, 'parts:delete');
+  const canImport = can(role, 'parts:import');
+  const members = useMembers(build.id);
+
+  const [editing, setEditing] = useState<Editing>(null);
+  const [deleting, setDeleting] = useState<Part | null>(null);
+  const [importing, setImporting] = useState(false);
+  const [notice, setNotice] = useState<string | null>(null);
+
+  const shops = useMemo(
+    () =>
+      (members.data ?? [])
+        .filter((m) => m.role === 'shop')
+        .map((m) => ({ userId: m.userId, displayName: m.displayName })),
+    [members.data],
+  );
+
+  const { mutateAsync: update } = updatePart;
+  const onStatusChange = useCallback(
+    async (part: Part, status: PartStatus) => {
+      setNotice(null);
+      await update({ buildId: build.id, partId: part.id, input: statusChange(part, status) });
+    },
+    [update, build.id],
+  );
+  const onEdit = useCallback(
+    (part: Part) => setEditing({ mode: isOwner ? 'edit' : 'progress', part }),
+    [isOwner],
+  );
+  const { reset: resetDelete } = deletePart;
+  const onDelete = useCallback(
+    (part: Part) => {
+      resetDelete();
+      setDeleting(part);
+    },
+    [resetDelete],
+  );
+
+  const actions = useMemo<LedgerActions>(
+    () => ({
+      currency: build.currency,
+      onStatusChange: canUpdate ? onStatusChange : undefined,
+      onEdit: canUpdate ? onEdit : undefined,
+      onDelete: canDelete ? onDelete : undefined,
+    }),
+    [build.currency, canUpdate, canDelete, onStatusChange, onEdit, onDelete],
+  );
+
+  async function save(input: UpdatePartInput) {
+    if (!editing) return;
+    if (editing.mode === 'create') {
+      const part = await createPart.mutateAsync({
+        buildId: build.id,
+        input: input as Parameters<typeof createPart.mutateAsync>[0]['input'],
+      });
+      setNotice(`Added “${part.name}”.`);
+    } else {
+      const part = await updatePart.mutateAsync({
+        buildId: build.id,
+        partId: editing.part.id,
+        input,
+      });
+      setNotice(`Saved “${part.name}”.`);
+    }
+    setEditing(null);
+  }
+
+  const addButton = isOwner && (
+    <Button
+      icon={<Plus aria-hidden className="size-5" />}
+      onClick={() => {
+        setNotice(null);
+        setEditing({ mode: 'create' });
+      }}
+    >
+      Add part
+    </Button>
+  );
+  const importButton = canImport && (
+    <Button
+      variant="secondary"
+      icon={<FileUp aria-hidden className="size-4" />}
+      onClick={() => {
+        setNotice(null);
+        setImporting(true);
+      }}
+    >
+      Import CSV
+    </Button>
+  );
+  const exportLink = (
+    <a
+      href={getPartsCsvHref(build.id)}
+      download
+      className={buttonClasses('secondary', 'md')}
+    >
+      <Download aria-hidden className="size-4" />
+      Export CSV
+    </a>
+  );
+
+  let body;
+  if (parts.isPending) {
+    body = <PageSpinner label="Loading the parts…" />;
+  } else if (parts.isError) {
+    body = (
+      <ErrorState
+        title="Could not load the parts"
+        error={parts.error}
+        onRetry={() => void parts.refetch()}
+      />
+    );
+  } else if (parts.data.length === 0) {
+    body = (
+      <EmptyState
+        icon={<Package aria-hidden className="size-6" />}
+        title={role === 'shop' ? 'Nothing has been sent to you yet' : 'No parts yet'}
+        actions={
+          isOwner ? (
+            <>
+              {addButton}
+              {importButton}
+            </>
+          ) : undefined
+        }
+      >
+        {isOwner
+          ? 'List every part the build needs: what it is, what it costs, where it is.'
+          : role === 'shop'
+            ? 'Parts the owner sends to your shop appear here.'
+            : 'The owner has not listed any parts yet.'}
+      </EmptyState>
+    );
+  } else {
+    body = (
+      <PartsLedger
+        parts={parts.data}
+        actions={actions}
+        moneyFallback={isOwner ? 'full' : 'none'}
+        initialSearch={searchParams.get('q') ?? ''}
+        toolbarActions={
+          <>
+            {exportLink}
+            {importButton}
+            {addButton}
+          </>
+        }
+      />
+    );
+  }
+
+  const editingPart = editing && editing.mode !== 'create' ? editing.part : undefined;
+
+  return (
+    <>
+      <title>{`Parts · ${build.name} · Headroom`}</title>
+      <PageHeader
+        title="Parts"
+        subtitle={<span>{build.name}</span>}
+        badges={
+          !isOwner && (
+            <span className="text-base text-muted">
+              {role === 'shop'
+                ? 'Parts sent to your shop'
+                : canUpdate
+                  ? 'You can change status and dates'
+                  : 'Read only'}
+            </span>
+          )
+        }
+      />
+
+      {notice && (
+        <Alert tone="ok" className="mb-4">
+          {notice}
+        </Alert>
+      )}
+
+      {body}
+
+      <Modal
+        open={editing !== null}
+        onClose={() => setEditing(null)}
+        busy={createPart.isPending || updatePart.isPending}
+        title={
+          editing?.mode === 'create'
+            ? 'Add a part'
+            : editing?.mode === 'progress'
+              ? `Status and dates: ${editingPart?.name ?? ''}`
+              : `Edit ${editingPart?.name ?? 'part'}`
+        }
+        description={
+          editing?.mode === 'progress'
+            ? 'Your role may change where the part is and when; the owner edits the rest.'
+            : undefined
+        }
+      >
+        {editing && (
+          <PartForm
+            key={editingPart?.id ?? 'new'}
+            mode={editing.mode}
+            part={editingPart}
+            currency={build.currency}
+            shops={shops}
+            submitLabel={editing.mode === 'create' ? 'Add part' : 'Save changes'}
+            onSubmit={save}
+            onCancel={() => setEditing(null)}
+          />
+        )}
+      </Modal>
+
+      <ConfirmDialog
+        open={deleting !== null}
+        title={`Delete “${deleting?.name ?? ''}”?`}
+        confirmLabel="Delete part"
+        pending={deletePart.isPending}
+        onClose={() => setDeleting(null)}
+        onConfirm={() => {
+          if (!deleting) return;
+          deletePart.mutate(
+            { buildId: build.id, partId: deleting.id },
+            {
+              onSuccess: () => {
+                setNotice(`Deleted “${deleting.name}”.`);
+                setDeleting(null);
+              },
+            },
+          );
+        }}
+      >
+        <p>It leaves the ledger and the budget. This cannot be undone.</p>
+        {deletePart.isError && (
+          <Alert tone="error" className="mt-3">
+            {isApiError(deletePart.error) ? deletePart.error.message : 'Could not delete it. Try again.'}
+          </Alert>
+        )}
+      </ConfirmDialog>
+
+      {canImport && (
+        <ImportPartsDialog
+          open={importing}
+          buildId={build.id}
+          currency={build.currency}
+          onClose={() => setImporting(false)}
+          onImported={(count) => {
+            setImporting(false);
+            setNotice(`Imported ${count} ${count === 1 ? 'part' : 'parts'}.`);
+          }}
+        />
+      )}
+
+    </>
+  );
+}

@@ -1,0 +1,99 @@
+import { useState } from 'react';
+import { useForm, type Path } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { Send } from 'lucide-react';
+import { roleDescriptions, roleLabels, roles, type Role } from '../../../../shared/permissions';
+import {
+  createInvitationInputSchema,
+  invitationValidDays,
+} from '../../../../shared/schemas/invitations';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
+import { FormError } from '../../../components/ui/form-error';
+import { applyServerErrors } from '../../../lib/form-errors';
+import { useCreateInvitation } from '../api/create-invitation';
+
+type Input = z.input<typeof createInvitationInputSchema>;
+type Output = z.output<typeof createInvitationInputSchema>;
+const fieldNames: Path<Input>[] = ['email', 'role'];
+
+/**
+ * The owner's main way to bring someone in: an e-mail with a link; no account needed.
+ * Labels avoid the words "E-mail" and "Role", which the members panel's add form owns.
+ */
+export function InviteForm({ buildId }: { buildId: string }) {
+  const createInvitation = useCreateInvitation();
+  const [sent, setSent] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    watch,
+    reset,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(createInvitationInputSchema),
+    defaultValues: { email: '', role: 'crew' },
+  });
+  const role = (watch('role') ?? 'crew') as Role;
+
+  const submit = handleSubmit(async (values) => {
+    setSent(null);
+    try {
+      const invitation = await createInvitation.mutateAsync({ buildId, input: values });
+      reset({ email: '', role: values.role });
+      setSent(
+        `Invitation sent to ${invitation.email}. The link works for ${invitationValidDays} days.`,
+      );
+    } catch (error) {
+      applyServerErrors(error, setError, fieldNames);
+    }
+  });
+
+  return (
+    <form
+      onSubmit={submit}
+      noValidate
+      aria-label="Invite by e-mail"
+      className="flex flex-col gap-3"
+    >
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-[1fr_11rem]">
+        <FormField label="Address to invite" error={errors.email?.message}>
+          {(c) => (
+            <TextInput
+              {...c}
+              {...register('email')}
+              type="email"
+              autoComplete="off"
+              inputMode="email"
+              placeholder="name@example.com"
+            />
+          )}
+        </FormField>
+        <FormField label="Invite as" error={errors.role?.message}>
+          {(c) => (
+            <SelectInput {...c} {...register('role')}>
+              {roles.map((value) => (
+                <option key={value} value={value}>
+                  {roleLabels[value]}
+                </option>
+              ))}
+            </SelectInput>
+          )}
+        </FormField>
+      </div>
+      <p className="text-sm text-ink-2">
+        <span className="font-semibold">{roleLabels[role]}:</span> {roleDescriptions[role]}
+      </p>
+      <FormError message={errors.root?.server?.message} />
+      {sent && <Alert tone="ok">{sent}</Alert>}
+      <div>
+        <Button type="submit" pending={isSubmitting} icon={<Send aria-hidden className="size-4" />}>
+          Send invitation
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,85 @@
+import { memo } from 'react';
+import { formatIsoDate, formatMoney } from '../../../../shared/format';
+import { partCategoryLabels, type Part } from '../../../../shared/schemas/parts';
+import { cn } from '../../../components/ui/cn';
+import { StatusBadge } from './status-badge';
+import { StatusSelect } from './status-select';
+import { RatingText, RowActions, useLedgerActions, type MoneyView } from './parts-columns';
+
+function Fact({ term, children }: { term: string; children: React.ReactNode }) {
+  return (
+    <div className="min-w-0">
+      <dt className="text-xs font-semibold tracking-wide text-muted uppercase">{term}</dt>
+      <dd className="break-words text-ink">{children}</dd>
+    </div>
+  );
+}
+
+/** One part in the phone list: the facts a person in the garage needs, status changeable. */
+export const PartCard = memo(function PartCard({ part, money }: { part: Part; money: MoneyView }) {
+  const { currency, onStatusChange } = useLedgerActions();
+  const sub = [partCategoryLabels[part.category], part.vendor, part.partNumber]
+    .filter(Boolean)
+    .join(' · ');
+  const date =
+    part.status === 'installed' && part.installedOn
+      ? { term: 'Installed', value: part.installedOn }
+      : part.status === 'at-shop' && part.sendOut?.dueOn
+        ? { term: 'Due back', value: part.sendOut.dueOn }
+        : part.expectedOn && (part.status === 'planned' || part.status === 'ordered')
+          ? { term: 'Expected', value: part.expectedOn }
+          : part.receivedOn
+            ? { term: 'Received', value: part.receivedOn }
+            : null;
+  return (
+    <li
+      className={cn(
+        'rounded-lg border border-rule bg-sheet p-3 shadow-[0_1px_0_rgba(27,34,48,0.04)]',
+        part.status === 'returned' && 'opacity-80',
+      )}
+    >
+      <div className="flex items-start justify-between gap-2">
+        <div className="min-w-0 pt-1">
+          <h3 className="text-base leading-snug font-bold break-words text-ink">{part.name}</h3>
+          {sub && <p className="text-sm break-words text-muted">{sub}</p>}
+        </div>
+        <RowActions part={part} className="-mt-1 -mr-1 shrink-0" />
+      </div>
+      <div className="mt-2">
+        {onStatusChange ? (
+          <StatusSelect part={part} onChange={onStatusChange} />
+        ) : (
+          <StatusBadge status={part.status} />
+        )}
+        {part.status === 'at-shop' && part.shopName && (
+          <p className="mt-1 text-sm text-muted">with {part.shopName}</p>
+        )}
+      </div>
+      <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-2 text-[15px]">
+        <Fact term="Quantity">{part.quantity}</Fact>
+        {date && (
+          <Fact term={date.term}>
+            <time dateTime={date.value}>{formatIsoDate(date.value)}</time>
+          </Fact>
+        )}
+        {part.ratingValue != null && (
+          <Fact term="Rating">
+            <RatingText part={part} />
+          </Fact>
+        )}
+        {money === 'full' && part.totalCents !== undefined && (
+          <Fact term="Total">
+            <span className={cn('font-bold tabular-nums', part.status === 'returned' && 'line-through')}>
+              {formatMoney(part.totalCents, currency)}
+            </span>
+          </Fact>
+        )}
+        {money === 'quote' && part.labourCents !== undefined && (
+          <Fact term="Your quote">
+            <span className="font-bold tabular-nums">{formatMoney(part.labourCents, currency)}</span>
+          </Fact>
+        )}
+      </dl>
+    </li>
+  );
+});
