@@ -1,7 +1,9 @@
 import { expect, test } from '@playwright/test';
 import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
 
-test('an owner signs up, starts a build, adds crew; the crew member sees it without money', async ({ browser }) => {
+test('an owner signs up, starts a build, adds crew; the crew member sees it without money', async ({
+  browser,
+}) => {
   // The crew member-to-be makes an account first (adding members needs an existing account).
   const crewEmail = uniqueEmail('crew');
   const crewContext = await browser.newContext();
@@ -28,9 +30,10 @@ test('an owner signs up, starts a build, adds crew; the crew member sees it with
   await expect(page.getByText('Red Dust Runner')).toBeVisible();
   await page.getByText('Red Dust Runner').click();
 
-  await page.getByLabel('E-mail').fill(crewEmail);
-  await page.getByLabel('Role').selectOption('crew');
-  await page.getByRole('button', { name: 'Add member' }).click();
+  const addForm = page.getByRole('form', { name: 'Add someone' });
+  await addForm.getByLabel('E-mail', { exact: true }).fill(crewEmail);
+  await addForm.getByLabel('Role', { exact: true }).selectOption('crew');
+  await addForm.getByRole('button', { name: 'Add member' }).click();
   await expect(page.getByText('Rosa Tillman')).toBeVisible();
   const buildUrl = page.url();
   await ownerContext.close();

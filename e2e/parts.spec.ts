@@ -19,7 +19,10 @@ async function addPart(page: Page, part: NewPart) {
 /** The Spent figure of one category in the budget's table (the data the bar chart draws). */
 function spentIn(page: Page, category: string) {
   // Cells after the row header: parts, planned, committed, spent, core owed.
-  return page.getByRole('row', { name: new RegExp(`^${category}`) }).getByRole('cell').nth(3);
+  return page
+    .getByRole('row', { name: new RegExp(`^${category}`) })
+    .getByRole('cell')
+    .nth(3);
 }
 
 test('the owner builds a ledger, moves a part in its row and the budget follows; crew sees no money', async ({
@@ -82,9 +85,12 @@ test('the owner builds a ledger, moves a part in its row and the budget follows;
   await sections.getByRole('link', { name: 'Budget' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Budget' })).toBeVisible();
   await expect(spentIn(page, 'Fuel injection')).toHaveText('$0.00');
-  await expect(page.getByRole('row', { name: /^All categories/ }).getByRole('cell').nth(3)).toHaveText(
-    '$850.00',
-  );
+  await expect(
+    page
+      .getByRole('row', { name: /^All categories/ })
+      .getByRole('cell')
+      .nth(3),
+  ).toHaveText('$850.00');
 
   // The injectors arrive: their status is changed right in the ledger row.
   await sections.getByRole('link', { name: 'Parts' }).click();
@@ -95,9 +101,12 @@ test('the owner builds a ledger, moves a part in its row and the budget follows;
 
   await sections.getByRole('link', { name: 'Budget' }).click();
   await expect(spentIn(page, 'Fuel injection')).toHaveText('$1,800.00');
-  await expect(page.getByRole('row', { name: /^All categories/ }).getByRole('cell').nth(3)).toHaveText(
-    '$2,650.00',
-  );
+  await expect(
+    page
+      .getByRole('row', { name: /^All categories/ })
+      .getByRole('cell')
+      .nth(3),
+  ).toHaveText('$2,650.00');
   await ownerContext.close();
 
   // The crew member reads the same ledger without a single amount of money.

@@ -36,7 +36,16 @@ const things = [
   'Billet input shaft',
   'Exhaust manifold',
 ];
-const qualifiers = ['stage 2', 'billet', 'stainless', 'forged', 'high-flow', 'new', 'rebuilt', '12-point'];
+const qualifiers = [
+  'stage 2',
+  'billet',
+  'stainless',
+  'forged',
+  'high-flow',
+  'new',
+  'rebuilt',
+  '12-point',
+];
 const vendors = [
   'Dustline Turbo Works',
   'Quarry Road Diesel',

@@ -50,7 +50,8 @@ function sortButton(label: string) {
 
 /** Types into a React-controlled input as a person would (the input event React listens to). */
 function setInput(el: HTMLInputElement | HTMLSelectElement, value: string, event: string) {
-  const proto = el instanceof HTMLSelectElement ? HTMLSelectElement.prototype : HTMLInputElement.prototype;
+  const proto =
+    el instanceof HTMLSelectElement ? HTMLSelectElement.prototype : HTMLInputElement.prototype;
   Object.getOwnPropertyDescriptor(proto, 'value')!.set!.call(el, value);
   el.dispatchEvent(new Event(event, { bubbles: true }));
 }

@@ -57,6 +57,16 @@ const SendOutsRoute = lazy(() =>
   import('./routes/builds/send-outs').then((m) => ({ default: m.SendOutsRoute })),
 );
 
+const InstallRoute = lazy(() =>
+  import('./routes/builds/install').then((m) => ({ default: m.InstallRoute })),
+);
+const StepRoute = lazy(() =>
+  import('./routes/builds/step').then((m) => ({ default: m.StepRoute })),
+);
+const PhotosRoute = lazy(() =>
+  import('./routes/builds/photos').then((m) => ({ default: m.PhotosRoute })),
+);
+
 const router = createBrowserRouter([
   {
     element: <RootLayout />,
@@ -87,6 +97,9 @@ const router = createBrowserRouter([
                       { index: true, element: <BuildOverviewRoute /> },
                       { path: 'edit', element: <EditBuildRoute /> },
                       // Section pages (parts, budget, send-outs, estimate, install, photos, notices) go here.
+                      { path: 'install', element: <InstallRoute /> },
+                      { path: 'install/steps/:stepId', element: <StepRoute /> },
+                      { path: 'photos', element: <PhotosRoute /> },
                       { path: 'parts', element: <PartsRoute /> },
                       { path: 'budget', element: <BudgetRoute /> },
                       { path: 'send-outs', element: <SendOutsRoute /> },

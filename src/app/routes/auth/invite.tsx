@@ -2,7 +2,10 @@ import { useState } from 'react';
 import { flushSync } from 'react-dom';
 import { useNavigate, useParams } from 'react-router-dom';
 import { roleDescriptions } from '../../../../shared/permissions';
-import { invitationErrorCodes as codes } from '../../../../shared/schemas/invitations';
+import {
+  invitationErrorCodes as codes,
+  invitationValidDays,
+} from '../../../../shared/schemas/invitations';
 import { formatTimestampDate } from '../../../../shared/format';
 import { paths } from '../../../config/paths';
 import { useMe } from '../../../features/auth/api/get-me';
@@ -16,11 +19,24 @@ import { ButtonLink } from '../../../components/ui/button';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { ErrorState, NotFoundState } from '../../../components/ui/states';
 
-const refusalTitles: Record<string, string> = {
-  [codes.notFound]: 'This invitation link is not valid',
-  [codes.expired]: 'This invitation has expired',
-  [codes.revoked]: 'This invitation was withdrawn',
-  [codes.used]: 'This invitation has already been used',
+// The server's message repeats the title; the page says what to do next instead.
+const refusals: Record<string, { title: string; text: string }> = {
+  [codes.notFound]: {
+    title: 'This invitation link is not valid',
+    text: 'Check that the whole link was copied from the mail, or ask the owner of the build for a new one.',
+  },
+  [codes.expired]: {
+    title: 'This invitation has expired',
+    text: `Invitations work for ${invitationValidDays} days. Ask the owner of the build to send it again.`,
+  },
+  [codes.revoked]: {
+    title: 'This invitation was withdrawn',
+    text: 'The owner of the build took it back. Ask them if you think that is a mistake.',
+  },
+  [codes.used]: {
+    title: 'This invitation has already been used',
+    text: 'Each link works once. If it was you who accepted it, sign in to open the build.',
+  },
 };
 
 function Invitation({
@@ -45,11 +61,11 @@ function Invitation({
     if (isApiError(error) && error.status === 404) {
       return (
         <NotFoundState
-          title={refusalTitles[error.code] ?? 'This invitation cannot be used'}
+          title={refusals[error.code]?.title ?? 'This invitation cannot be used'}
           titleAs="h1"
           actions={next}
         >
-          {error.message}
+          {refusals[error.code]?.text ?? error.message}
         </NotFoundState>
       );
     }
@@ -77,8 +93,8 @@ function Invitation({
           <span className="mt-1 block text-sm text-ink-2">{roleDescriptions[inv.role]}</span>
         </dd>
         <dt className="text-muted">Sent to</dt>
-        <dd className="break-all">{inv.email}</dd>
-        <dt className="text-muted">Link works until</dt>
+        <dd className="break-words">{inv.email}</dd>
+        <dt className="text-muted">Expires</dt>
         <dd>{formatTimestampDate(inv.expiresAt)}</dd>
       </dl>
       <InvitationAnswer token={token} invitation={inv} user={me.data ?? null} onJoined={onJoined} />

@@ -1,7 +1,10 @@
 import { useState } from 'react';
 import { flushSync } from 'react-dom';
 import { useNavigate, useParams } from 'react-router-dom';
-import { passwordResetErrorCodes as codes } from '../../../../shared/schemas/password-reset';
+import {
+  passwordResetErrorCodes as codes,
+  passwordResetValidMinutes,
+} from '../../../../shared/schemas/password-reset';
 import { paths } from '../../../config/paths';
 import { usePasswordReset } from '../../../features/auth/api/get-password-reset';
 import { AuthCard } from '../../../features/auth/components/auth-card';
@@ -11,10 +14,20 @@ import { ButtonLink } from '../../../components/ui/button';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { ErrorState, NotFoundState } from '../../../components/ui/states';
 
-const refusalTitles: Record<string, string> = {
-  [codes.notFound]: 'This link is not valid',
-  [codes.expired]: 'This link has expired',
-  [codes.used]: 'This link has been used',
+// The server's message repeats the title; the page says what to do next instead.
+const refusals: Record<string, { title: string; text: string }> = {
+  [codes.notFound]: {
+    title: 'This link is not valid',
+    text: 'Check that the whole link was copied from the mail, or ask for a new one.',
+  },
+  [codes.expired]: {
+    title: 'This link has expired',
+    text: `Links to set a new password work for ${passwordResetValidMinutes} minutes. Ask for a new one.`,
+  },
+  [codes.used]: {
+    title: 'This link has been used',
+    text: 'Each link works once. Ask for a new one if you still need to set a password.',
+  },
 };
 
 function ResetLink({ token, onDone }: { token: string; onDone: () => void }) {
@@ -26,7 +39,7 @@ function ResetLink({ token, onDone }: { token: string; onDone: () => void }) {
     if (isApiError(error) && error.status === 404) {
       return (
         <NotFoundState
-          title={refusalTitles[error.code] ?? 'This link cannot be used'}
+          title={refusals[error.code]?.title ?? 'This link cannot be used'}
           titleAs="h1"
           actions={
             <>
@@ -37,7 +50,7 @@ function ResetLink({ token, onDone }: { token: string; onDone: () => void }) {
             </>
           }
         >
-          {error.message}
+          {refusals[error.code]?.text ?? error.message}
         </NotFoundState>
       );
     }
@@ -56,7 +69,7 @@ function ResetLink({ token, onDone }: { token: string; onDone: () => void }) {
       title="Set a new password"
       lead={
         <>
-          For <span className="font-semibold break-all">{reset.data.email}</span>
+          For <span className="font-semibold break-words">{reset.data.email}</span>
         </>
       }
     >

@@ -46,8 +46,8 @@ function OwnerOnly({ build }: { build: Build }) {
           </ButtonLink>
         }
       >
-        The budget of this build is visible to its owners only. Parts, their status and dates are
-        on the Parts page.
+        The budget of this build is visible to its owners only. Parts, their status and dates are on
+        the Parts page.
       </EmptyState>
     </>
   );
@@ -87,7 +87,9 @@ function BudgetPage({ build }: { build: Build }) {
           icon={<PiggyBank aria-hidden className="size-6" />}
           title="Nothing to add up yet"
           actions={
-            <ButtonLink to={paths.builds.parts.getHref(build.id)}>Add parts to the ledger</ButtonLink>
+            <ButtonLink to={paths.builds.parts.getHref(build.id)}>
+              Add parts to the ledger
+            </ButtonLink>
           }
         >
           The budget is built from the parts ledger: planned, committed and spent money per

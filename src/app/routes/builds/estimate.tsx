@@ -12,6 +12,8 @@ import {
   TriangleAlert,
 } from 'lucide-react';
 import { can } from '../../../../shared/permissions';
+import { powerBasisLabels } from '../../../../shared/schemas/builds';
+import { formatNumber } from '../../../../shared/format';
 import type { EstimateResult } from '../../../../shared/schemas/estimate';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
@@ -19,7 +21,10 @@ import { useBuild } from '../../../features/builds/api/get-build';
 import { useUpdateBuild } from '../../../features/builds/api/update-build';
 import { getEstimateQueryOptions, useEstimate } from '../../../features/estimate/api/get-estimate';
 import { AssumptionsPanel } from '../../../features/estimate/components/assumptions-panel';
-import { EstimateSummary } from '../../../features/estimate/components/estimate-summary';
+import {
+  EstimateSummary,
+  PreviewAnswer,
+} from '../../../features/estimate/components/estimate-summary';
 import {
   PartsHeadroom,
   UnknownCategories,
@@ -163,8 +168,6 @@ function EstimatePage({
       />
 
       <div className="flex flex-col gap-5">
-        <Caution />
-
         <Section
           id="target"
           title="Target"
@@ -184,10 +187,18 @@ function EstimatePage({
             onSaveTarget={isOwner ? (hp) => void saveTarget(hp).catch(() => {}) : undefined}
             savingTarget={updateBuild.isPending}
             saveError={updateBuild.isError ? updateBuild.error.message : undefined}
+            previewAnswer={previewResult ? <PreviewAnswer result={previewResult} /> : undefined}
           />
         </Section>
 
-        <BottomEndBanner result={shown} preview={isPreview} />
+        <BottomEndBanner
+          result={shown}
+          preview={
+            isPreview && preview !== null
+              ? `${formatNumber(preview, 1)} ${powerBasisLabels[saved.target.basis]}`
+              : null
+          }
+        />
 
         <Section
           id="answer"
@@ -214,6 +225,8 @@ function EstimatePage({
             </EmptyState>
           )}
         </Section>
+
+        <Caution />
 
         <Section
           id="warnings"

@@ -140,11 +140,7 @@ function PartsPage({ build }: { build: Build }) {
     </Button>
   );
   const exportLink = (
-    <a
-      href={getPartsCsvHref(build.id)}
-      download
-      className={buttonClasses('secondary', 'md')}
-    >
+    <a href={getPartsCsvHref(build.id)} download className={buttonClasses('secondary', 'md')}>
       <Download aria-hidden className="size-4" />
       Export CSV
     </a>
@@ -282,7 +278,9 @@ function PartsPage({ build }: { build: Build }) {
         <p>It leaves the ledger and the budget. This cannot be undone.</p>
         {deletePart.isError && (
           <Alert tone="error" className="mt-3">
-            {isApiError(deletePart.error) ? deletePart.error.message : 'Could not delete it. Try again.'}
+            {isApiError(deletePart.error)
+              ? deletePart.error.message
+              : 'Could not delete it. Try again.'}
           </Alert>
         )}
       </ConfirmDialog>
@@ -299,7 +297,6 @@ function PartsPage({ build }: { build: Build }) {
           }}
         />
       )}
-
     </>
   );
 }

@@ -38,7 +38,8 @@ function SendOutsPage({ build }: { build: Build }) {
   const { mutateAsync: update } = useUpdatePart();
   const role = build.myRole;
   const canUpdate = can(role, 'parts:update');
-  const quoteLabel = role === 'shop' ? 'Your quote' : can(role, 'money:read') ? 'Labour quote' : null;
+  const quoteLabel =
+    role === 'shop' ? 'Your quote' : can(role, 'money:read') ? 'Labour quote' : null;
 
   const onBack = useCallback(
     (part: Part) =>
@@ -62,9 +63,7 @@ function SendOutsPage({ build }: { build: Build }) {
       <PageHeader
         title="Send-outs"
         subtitle={
-          <span>
-            {role === 'shop' ? `Parts of ${build.name} at your shop` : build.name}
-          </span>
+          <span>{role === 'shop' ? `Parts of ${build.name} at your shop` : build.name}</span>
         }
       />
     </>
@@ -96,7 +95,9 @@ function SendOutsPage({ build }: { build: Build }) {
         {header}
         <EmptyState
           icon={<Truck aria-hidden className="size-6" />}
-          title={role === 'shop' ? 'Nothing of this build is at your shop' : 'Nothing is out at a shop'}
+          title={
+            role === 'shop' ? 'Nothing of this build is at your shop' : 'Nothing is out at a shop'
+          }
           actions={
             role !== 'shop' ? (
               <ButtonLink to={paths.builds.parts.getHref(build.id)} variant="secondary">
@@ -126,9 +127,7 @@ function SendOutsPage({ build }: { build: Build }) {
           actions={
             <span className="text-[15px] text-ink-2">
               {atShop.length} {atShop.length === 1 ? 'part' : 'parts'}
-              {overdue > 0 && (
-                <span className="font-semibold text-over">, {overdue} overdue</span>
-              )}
+              {overdue > 0 && <span className="font-semibold text-over">, {overdue} overdue</span>}
             </span>
           }
         >

@@ -71,7 +71,7 @@ export function ForgotPasswordForm({ initialEmail = '' }: { initialEmail?: strin
             setTimeout(() => setFocus('email'), 0);
           }}
         >
-          Use another address
+          Check the address and resend
         </Button>
         {backToSignIn}
       </div>

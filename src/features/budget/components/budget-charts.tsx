@@ -58,7 +58,12 @@ export function CategoryChart({ budget }: { budget: Budget }) {
   return (
     <div style={{ height }} className="w-full">
       <ResponsiveContainer width="100%" height="100%">
-        <BarChart data={data} layout="vertical" margin={{ top: 4, right: 16, bottom: 4, left: 4 }} barGap={2}>
+        <BarChart
+          data={data}
+          layout="vertical"
+          margin={{ top: 4, right: 16, bottom: 4, left: 4 }}
+          barGap={2}
+        >
           <CartesianGrid horizontal={false} stroke={colours.grid} />
           <XAxis
             type="number"

@@ -162,7 +162,11 @@ export function CategoryTable({ budget }: { budget: Budget }) {
   // rest under the category name, so nothing hides off the right edge.
   const wideOnly = 'hidden sm:table-cell';
   const rows = [
-    ...budget.categories.map((line) => ({ key: line.category, label: partCategoryLabels[line.category], line })),
+    ...budget.categories.map((line) => ({
+      key: line.category,
+      label: partCategoryLabels[line.category],
+      line,
+    })),
     { key: 'all', label: 'All categories', line: budget.totals },
   ];
   return (

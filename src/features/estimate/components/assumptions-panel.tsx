@@ -115,6 +115,8 @@ export function AssumptionsPanel({
 
 function AssumptionsEditor({ buildId, cylinders }: { buildId: string; cylinders: number }) {
   const query = useAssumptions(buildId);
+  // Kept here: the form below starts afresh after each save, the note should outlive it.
+  const [savedNote, setSavedNote] = useState<string | null>(null);
   if (query.isPending) return <PageSpinner label="Loading the assumptions…" />;
   if (query.isError) {
     return (
@@ -133,6 +135,8 @@ function AssumptionsEditor({ buildId, cylinders }: { buildId: string; cylinders:
       values={query.data.assumptions}
       isDefault={query.data.isDefault}
       cylinders={cylinders}
+      savedNote={savedNote}
+      setSavedNote={setSavedNote}
     />
   );
 }
@@ -149,14 +153,17 @@ function AssumptionsForm({
   values,
   isDefault,
   cylinders,
+  savedNote,
+  setSavedNote,
 }: {
   buildId: string;
   values: Assumptions;
   isDefault: boolean;
   cylinders: number;
+  savedNote: string | null;
+  setSavedNote: (note: string | null) => void;
 }) {
   const update = useUpdateAssumptions();
-  const [savedNote, setSavedNote] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -218,36 +225,39 @@ function AssumptionsForm({
           >
             {(control) => (
               <div className="flex gap-2">
-                <TextInput
-                  {...control}
-                  {...register('bsfc', numeric)}
-                  inputMode="decimal"
-                  className="min-w-0 flex-1 tabular-nums"
-                />
-                <SelectInput
-                  aria-label="Unit of brake specific fuel consumption"
-                  className="w-36 shrink-0"
-                  {...register('bsfcUnit', {
-                    onChange: (e: { target: { value: BsfcUnit } }) => {
-                      // Same fuel, other unit: convert the figure in the box rather than reinterpret it.
-                      const to = e.target.value;
-                      const from: BsfcUnit = to === 'g-per-kwh' ? 'lb-per-hp-h' : 'g-per-kwh';
-                      const value = toNumber(getValues('bsfc'));
-                      if (Number.isFinite(value)) {
-                        setValue('bsfc', roundBsfc(convertBsfc(value, from, to), to), {
-                          shouldDirty: true,
-                          shouldValidate: true,
-                        });
-                      }
-                    },
-                  })}
-                >
-                  {bsfcUnits.map((u) => (
-                    <option key={u} value={u}>
-                      {bsfcUnitLabels[u]}
-                    </option>
-                  ))}
-                </SelectInput>
+                <div className="min-w-0 flex-1">
+                  <TextInput
+                    {...control}
+                    {...register('bsfc', numeric)}
+                    inputMode="decimal"
+                    className="tabular-nums"
+                  />
+                </div>
+                <div className="w-36 shrink-0">
+                  <SelectInput
+                    aria-label="Unit of brake specific fuel consumption"
+                    {...register('bsfcUnit', {
+                      onChange: (e: { target: { value: BsfcUnit } }) => {
+                        // Same fuel, other unit: convert the figure in the box rather than reinterpret it.
+                        const to = e.target.value;
+                        const from: BsfcUnit = to === 'g-per-kwh' ? 'lb-per-hp-h' : 'g-per-kwh';
+                        const value = toNumber(getValues('bsfc'));
+                        if (Number.isFinite(value)) {
+                          setValue('bsfc', roundBsfc(convertBsfc(value, from, to), to), {
+                            shouldDirty: true,
+                            shouldValidate: true,
+                          });
+                        }
+                      },
+                    })}
+                  >
+                    {bsfcUnits.map((u) => (
+                      <option key={u} value={u}>
+                        {bsfcUnitLabels[u]}
+                      </option>
+                    ))}
+                  </SelectInput>
+                </div>
               </div>
             )}
           </FormField>

@@ -87,3 +87,33 @@ function SupportedFigure({
     </div>
   );
 }
+
+/** The what-if's answer in one line, shown beside the slider so a phone sees it while sliding. */
+export function PreviewAnswer({ result }: { result: EstimateResult }) {
+  const weakest = result.weakestLink;
+  const part = weakest ? result.components.find((c) => c.id === weakest.componentId) : undefined;
+  if (!part || !result.supported) {
+    return <p className="text-ink-2">No rated parts: nothing to check the what-if against.</p>;
+  }
+  const who = capitalise(categoryPhrase(part.category) ?? part.name);
+  return (
+    <p
+      className="flex flex-wrap items-center gap-x-2 gap-y-1 text-ink"
+      data-testid="preview-answer"
+    >
+      <StatusBadge status={part.status} />
+      <span>
+        <strong>{who}</strong>{' '}
+        {part.status === 'over' ? 'gives out before the target' : 'gives out first'}:{' '}
+        <strong className={cn('tabular-nums', statusText[part.status])}>
+          {formatHeadroom(part.headroomPct.value)}
+        </strong>{' '}
+        headroom. The parts support about{' '}
+        <strong className="tabular-nums">
+          {formatFigure(result.supported.crankPower.value, 'hp-crank')}
+        </strong>
+        .
+      </span>
+    </p>
+  );
+}

@@ -54,6 +54,26 @@ function truncate(text: string, max: number): string {
   return text.length > max ? `${text.slice(0, max - 1).trimEnd()}…` : text;
 }
 
+/** A part name over at most `lines` lines of about `max` characters, the last one cut short. */
+function wrap(text: string, max: number, lines: number): string[] {
+  const out: string[] = [];
+  let line = '';
+  for (const word of text.split(/\s+/)) {
+    const next = line ? `${line} ${word}` : word;
+    if (next.length <= max || !line) {
+      line = next;
+    } else {
+      out.push(line);
+      line = word;
+    }
+  }
+  if (line) out.push(line);
+  if (out.length <= lines) return out.map((l) => truncate(l, max));
+  const kept = out.slice(0, lines);
+  kept[lines - 1] = truncate(`${kept[lines - 1]} ${out.slice(lines).join(' ')}`, max);
+  return kept;
+}
+
 /**
  * One bar per rated part: its headroom at the target in %, least first. The line at zero is
  * the target. Each bar's label says the figure and the status in words, so colour is never
@@ -79,15 +99,17 @@ export function HeadroomChart({
   const clipped = data.some((d) => d.shown !== d.headroom);
   const lo = Math.min(0, ...data.map((d) => d.shown));
   const hi = Math.max(tightMarginPct * 2, ...data.map((d) => d.shown));
-  const step = hi - lo > 120 ? 50 : hi - lo > 60 ? 20 : 10;
+  const narrow = width < 560;
+  // Fewer, wider-spaced ticks on a phone, where the bars have about 180 px.
+  const step = (hi - lo > 120 ? 50 : hi - lo > 60 ? 20 : 10) * (narrow ? 2 : 1);
   const domain: [number, number] = [Math.floor(lo / step) * step, Math.ceil(hi / step) * step];
   const ticks: number[] = [];
   for (let t = domain[0]; t <= domain[1]; t += step) ticks.push(t);
 
-  const narrow = width < 560;
-  const axisWidth = narrow ? 148 : 260;
-  const nameChars = narrow ? 19 : 34;
-  const rowHeight = 52;
+  const axisWidth = narrow ? 148 : 300;
+  const nameChars = narrow ? 19 : 40;
+  const nameLines = narrow ? 2 : 1;
+  const rowHeight = narrow ? 66 : 52;
   const height = data.length * rowHeight + 44;
 
   const summary = data
@@ -135,15 +157,21 @@ export function HeadroomChart({
               tick={(props: YAxisTickContentProps) => {
                 const d = data.find((item) => item.id === props.payload?.value);
                 if (!d) return <g />;
+                const lines = wrap(d.name, nameChars, nameLines);
+                const top = -4 - (lines.length - 1) * 8;
                 return (
                   <g transform={`translate(${Number(props.x) - 8},${Number(props.y)})`}>
-                    <text textAnchor="end" y={-4} fill="#1b2230" fontSize={14} fontWeight={600}>
+                    <text textAnchor="end" y={top} fill="#1b2230" fontSize={14} fontWeight={600}>
                       <title>{d.name}</title>
-                      {truncate(d.name, nameChars)}
+                      {lines.map((l, i) => (
+                        <tspan key={i} x={0} dy={i === 0 ? 0 : 16}>
+                          {l}
+                        </tspan>
+                      ))}
                     </text>
                     <text
                       textAnchor="end"
-                      y={14}
+                      y={top + lines.length * 16 + 2}
                       fill={colours[d.status]}
                       fontSize={13}
                       fontWeight={700}

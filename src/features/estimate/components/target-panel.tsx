@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { Eye, Save, Undo2 } from 'lucide-react';
 import { powerBasisLabels } from '../../../../shared/schemas/builds';
 import type { EstimateResult } from '../../../../shared/schemas/estimate';
@@ -20,6 +20,7 @@ export function TargetPanel({
   onSaveTarget,
   savingTarget,
   saveError,
+  previewAnswer,
 }: {
   saved: EstimateResult;
   /** The what-if target, or null at the saved target. */
@@ -29,6 +30,8 @@ export function TargetPanel({
   onSaveTarget?: (powerHp: number) => void;
   savingTarget?: boolean;
   saveError?: string;
+  /** The what-if's answer in brief, shown while a preview is on. */
+  previewAnswer?: ReactNode;
 }) {
   const id = useId();
   const { target, assumptions: a } = saved;
@@ -89,23 +92,25 @@ export function TargetPanel({
             className="h-11 w-full min-w-0 flex-1 accent-accent-600"
           />
           <div className="flex items-center gap-2">
-            <TextInput
-              id={`${id}-number`}
-              aria-label={`What-if target in ${basis}`}
-              aria-invalid={typedInvalid || undefined}
-              inputMode="decimal"
-              className="w-28 tabular-nums"
-              value={text}
-              onChange={(e) => {
-                setText(e.target.value);
-                const v = e.target.value.trim() === '' ? Number.NaN : Number(e.target.value);
-                if (v > 0 && v <= 5000) {
-                  setTextFor(v);
-                  set(v);
-                }
-              }}
-            />
-            <span className="font-semibold text-ink-2">{basis}</span>
+            <div className="w-28 shrink-0">
+              <TextInput
+                id={`${id}-number`}
+                aria-label={`What-if target in ${basis}`}
+                aria-invalid={typedInvalid || undefined}
+                inputMode="decimal"
+                className="tabular-nums"
+                value={text}
+                onChange={(e) => {
+                  setText(e.target.value);
+                  const v = e.target.value.trim() === '' ? Number.NaN : Number(e.target.value);
+                  if (v > 0 && v <= 5000) {
+                    setTextFor(v);
+                    set(v);
+                  }
+                }}
+              />
+            </div>
+            <span className="font-semibold whitespace-nowrap text-ink-2">{basis}</span>
           </div>
         </div>
         {typedInvalid && (
@@ -120,6 +125,7 @@ export function TargetPanel({
               Preview at {formatNumber(preview, 1)} {basis}: not saved. The figures below are this
               what-if; the saved target is {formatNumber(target.powerHp, 1)} {basis}.
             </p>
+            {previewAnswer}
             <div className="flex flex-col gap-2 sm:flex-row sm:flex-wrap">
               <Button
                 variant="secondary"

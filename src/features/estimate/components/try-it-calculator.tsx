@@ -11,9 +11,9 @@ import {
   type PartCategory,
   type RatingUnit,
 } from '../../../../shared/schemas/parts';
-import { formatNumber } from '../../../../shared/format';
 import { paths } from '../../../config/paths';
 import { ButtonLink } from '../../../components/ui/button';
+import { cn } from '../../../components/ui/cn';
 import { SelectInput, TextInput } from '../../../components/ui/form-field';
 import { useStatelessEstimate } from '../api/post-estimate';
 import { capitalise, categoryPhrase, formatFigure, formatHeadroom } from '../format';
@@ -160,7 +160,6 @@ export function TryItCalculator() {
 
   const set = (key: keyof Fields) => (e: { target: { value: string } }) =>
     setFields((f) => ({ ...f, [key]: e.target.value }));
-  const basisLabel = fields.basis === 'crank' ? 'crank hp' : 'wheel hp';
 
   return (
     <section
@@ -176,29 +175,37 @@ export function TryItCalculator() {
       </p>
       <div className="mt-5 grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.1fr)]">
         <form
-          className="grid grid-cols-1 gap-4 sm:grid-cols-2"
+          className="grid grid-cols-1 content-start gap-4 sm:grid-cols-2"
           onSubmit={(e) => e.preventDefault()}
           noValidate
         >
-          <Box label="Target power" error={errors?.powerHp} htmlFor={`${id}-power`}>
+          <Box
+            label="Target power"
+            error={errors?.powerHp}
+            htmlFor={`${id}-power`}
+            className="sm:col-span-2"
+          >
             <div className="flex gap-2">
-              <TextInput
-                id={`${id}-power`}
-                inputMode="decimal"
-                value={fields.powerHp}
-                onChange={set('powerHp')}
-                aria-invalid={errors?.powerHp ? true : undefined}
-                className="min-w-0 flex-1 tabular-nums"
-              />
-              <SelectInput
-                aria-label="Target measured at"
-                value={fields.basis}
-                onChange={set('basis')}
-                className="w-32 shrink-0"
-              >
-                <option value="crank">crank hp</option>
-                <option value="wheel">wheel hp</option>
-              </SelectInput>
+              <div className="min-w-0 flex-1">
+                <TextInput
+                  id={`${id}-power`}
+                  inputMode="decimal"
+                  value={fields.powerHp}
+                  onChange={set('powerHp')}
+                  aria-invalid={errors?.powerHp ? true : undefined}
+                  className="tabular-nums"
+                />
+              </div>
+              <div className="w-32 shrink-0">
+                <SelectInput
+                  aria-label="Target measured at"
+                  value={fields.basis}
+                  onChange={set('basis')}
+                >
+                  <option value="crank">crank hp</option>
+                  <option value="wheel">wheel hp</option>
+                </SelectInput>
+              </div>
             </div>
           </Box>
           <Box label="Cylinders" error={errors?.cylinders} htmlFor={`${id}-cylinders`}>
@@ -241,7 +248,7 @@ export function TryItCalculator() {
 
         <div aria-live="polite" className="flex min-w-0 flex-col gap-3">
           {result ? (
-            <TryItResult result={result} basisLabel={basisLabel} />
+            <TryItResult result={result} />
           ) : (
             <p className="rounded-md border border-dashed border-rule-strong px-4 py-6 text-center text-muted">
               Fix the boxes marked in red to see the estimate.
@@ -278,15 +285,17 @@ function Box({
   label,
   error,
   htmlFor,
+  className,
   children,
 }: {
   label: string;
   error?: string;
   htmlFor: string;
+  className?: string;
   children: ReactNode;
 }) {
   return (
-    <div className="flex min-w-0 flex-col gap-1">
+    <div className={cn('flex min-w-0 flex-col gap-1', className)}>
       <label htmlFor={htmlFor} className="text-[15px] font-semibold text-ink">
         {label}
       </label>
@@ -296,7 +305,7 @@ function Box({
   );
 }
 
-function TryItResult({ result, basisLabel }: { result: EstimateResult; basisLabel: string }) {
+function TryItResult({ result }: { result: EstimateResult }) {
   const weakest = result.weakestLink;
   const part = weakest ? result.components.find((c) => c.id === weakest.componentId) : undefined;
   const bottomEnd = result.warnings.find((w) => w.code === 'target-exceeds-bottom-end');
@@ -356,18 +365,9 @@ function TryItResult({ result, basisLabel }: { result: EstimateResult; basisLabe
           );
         })}
       </ul>
-      <p className="text-sm text-ink-2">
-        Target {basisLabel === 'wheel hp' ? 'at the wheels' : 'at the crank'}:{' '}
-        {formatNumber(result.target.powerHp, 1)} {basisLabel}.{' '}
-        <ButtonLink
-          to={paths.auth.signUp.getHref()}
-          variant="ghost"
-          size="sm"
-          className="-ml-3 text-accent-700"
-        >
-          Keep a whole build’s ratings: create an account
-        </ButtonLink>
-      </p>
+      <ButtonLink to={paths.auth.signUp.getHref()} variant="secondary" className="self-start">
+        Keep a whole build’s ratings: create an account
+      </ButtonLink>
     </div>
   );
 }

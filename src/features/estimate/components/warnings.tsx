@@ -12,8 +12,8 @@ export function BottomEndBanner({
   preview,
 }: {
   result: EstimateResult;
-  /** The figures come from the what-if, not from the saved target. */
-  preview: boolean;
+  /** The what-if target in words ("700 wheel hp") when the figures are a preview, not the saved target. */
+  preview: string | null;
 }) {
   const warnings = result.warnings.filter((w) => w.code === 'target-exceeds-bottom-end');
   if (warnings.length === 0) return null;
@@ -30,8 +30,9 @@ export function BottomEndBanner({
             <OctagonAlert aria-hidden className="mt-0.5 size-7 shrink-0 text-over" />
             <div className="min-w-0">
               <p className="text-xl leading-snug font-bold">
-                {preview ? 'At the what-if target, the' : 'The'} target is past the bottom-end
-                rating
+                {preview
+                  ? `At the what-if target of ${preview}, the bottom end is past its rating`
+                  : 'The target is past the bottom-end rating'}
                 {w.shortfall && (
                   <>
                     {' '}
@@ -42,7 +43,7 @@ export function BottomEndBanner({
               </p>
               {part && w.shortfall && (
                 <p className="mt-1 text-base">
-                  {part.name} is rated {formatFigure(part.capacity.value, part.capacity.unit)}; the
+                  {part.name}: rated {formatFigure(part.capacity.value, part.capacity.unit)}; the
                   target needs {formatFigure(part.requirement.value, part.requirement.unit)}. It
                   supports about{' '}
                   <strong>{formatFigure(part.supportedCrankPower.value, 'hp-crank')}</strong>,{' '}

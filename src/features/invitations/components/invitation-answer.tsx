@@ -52,8 +52,8 @@ function WrongAccount({ invitedEmail, user }: { invitedEmail: string; user: User
   return (
     <div className="flex flex-col gap-3">
       <Alert tone="warning" title="This invitation is for another address">
-        It was sent to <span className="font-semibold break-all">{invitedEmail}</span>, and you're
-        signed in as <span className="font-semibold break-all">{user.email}</span>. Sign out, then
+        It was sent to <span className="font-semibold break-words">{invitedEmail}</span>, and you're
+        signed in as <span className="font-semibold break-words">{user.email}</span>. Sign out, then
         sign in with the invited address (or create its account) to accept.
       </Alert>
       {signOut.isError && (
@@ -81,9 +81,8 @@ function SignInToAccept({ token, email }: { token: string; email: string }) {
   return (
     <div className="flex flex-col gap-3">
       <p className="text-[15px] text-ink-2">
-        There is already a Headroom account for{' '}
-        <span className="font-semibold break-all">{email}</span>. Sign in with it, and you come back
-        here to accept.
+        This address already has a Headroom account. Sign in with it, and you come back here to
+        accept.
       </p>
       <ButtonLink
         to={paths.auth.signIn.getHref(here)}

@@ -38,7 +38,7 @@ export function InvitationRow({
       <div className="flex flex-wrap items-center gap-x-3 gap-y-2">
         <div className="min-w-0 flex-1 basis-52">
           <p className="flex flex-wrap items-center gap-x-2 gap-y-1">
-            <span className="font-semibold break-all text-ink">{email}</span>
+            <span className="font-semibold break-words text-ink">{email}</span>
             <RoleBadge role={invitation.role} />
           </p>
           <p className="text-sm text-muted">{sentLine}</p>
@@ -106,8 +106,8 @@ export function InvitationRow({
           )
         }
       >
-        The link sent to <span className="font-semibold break-all">{email}</span> stops working. You
-        can invite them again later.
+        The link sent to <span className="font-semibold break-words">{email}</span> stops working.
+        You can invite them again later.
       </ConfirmDialog>
     </li>
   );

@@ -9,7 +9,7 @@ import { InvitationRow } from './invitation-row';
 import { InviteForm } from './invite-form';
 
 /**
- * "Invite by e-mail": the owner's form and the invitations still waiting for an answer.
+ * "Invitations": the owner's invite-by-e-mail form and the invitations still waiting for an answer.
  * Renders nothing for other roles (the API would refuse them anyway).
  */
 export function InvitationsPanel({ build }: { build: Build }) {
@@ -47,13 +47,13 @@ export function InvitationsPanel({ build }: { build: Build }) {
   return (
     <Section
       id="invitations"
-      title="Invite by e-mail"
+      title="Invitations"
       icon={<MailPlus aria-hidden className="size-5 text-ink-3" />}
     >
       <div className="flex flex-col gap-5">
         <p className="-mb-1 text-ink-2">
-          They get a link by e-mail and join with the role you choose. No Headroom account needed:
-          they create one on the way.
+          Invite someone by e-mail: they get a link and join with the role you choose. No Headroom
+          account needed: they create one on the way.
         </p>
         <InviteForm buildId={build.id} />
         <div className="flex flex-col gap-3 border-t border-rule pt-4">

@@ -21,7 +21,8 @@ const fieldNames: Path<Input>[] = ['email', 'role'];
 
 /**
  * The owner's main way to bring someone in: an e-mail with a link; no account needed.
- * Labels avoid the words "E-mail" and "Role", which the members panel's add form owns.
+ * No label, aria-label or heading here may contain "E-mail" or "Role": the members panel's add
+ * form owns those (Playwright's getByLabel matches substrings, aria-labelledby regions too).
  */
 export function InviteForm({ buildId }: { buildId: string }) {
   const createInvitation = useCreateInvitation();
@@ -56,7 +57,7 @@ export function InviteForm({ buildId }: { buildId: string }) {
     <form
       onSubmit={submit}
       noValidate
-      aria-label="Invite by e-mail"
+      aria-label="Send an invitation"
       className="flex flex-col gap-3"
     >
       <div className="grid grid-cols-1 gap-3 sm:grid-cols-[1fr_11rem]">

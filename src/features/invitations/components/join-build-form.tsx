@@ -61,8 +61,7 @@ export function JoinBuildForm({
           Create your account
         </h2>
         <p className="text-[15px] text-ink-2">
-          For <span className="font-semibold break-all">{email}</span>, the address this invitation
-          was sent to.
+          It uses the address this invitation was sent to; choose a name and a password.
         </p>
       </div>
       {/* For password managers: the account the new password belongs to. */}

@@ -94,7 +94,7 @@ export function NoticePreferencesForm({
       onSubmit={submit}
       onChange={() => setSaved(false)}
       noValidate
-      aria-label="Notices by e-mail"
+      aria-label="Notices"
       className="flex flex-col gap-4"
     >
       <ul className="divide-y divide-rule">

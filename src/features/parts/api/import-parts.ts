@@ -63,7 +63,11 @@ export async function importParts({
       headers: { Accept: 'application/json' },
     });
   } catch {
-    throw new ImportError(0, 'network', 'Could not reach Headroom. Check your connection and try again.');
+    throw new ImportError(
+      0,
+      'network',
+      'Could not reach Headroom. Check your connection and try again.',
+    );
   }
   let json: unknown = null;
   try {

@@ -129,7 +129,11 @@ export function ImportPartsDialog({
           />
           <p className="text-sm text-muted">
             UTF-8, at most 2 MB. Columns named as in the{' '}
-            <a href={getPartsCsvHref(buildId)} download className="font-semibold text-accent-700 underline">
+            <a
+              href={getPartsCsvHref(buildId)}
+              download
+              className="font-semibold text-accent-700 underline"
+            >
               exported ledger
             </a>
             ; only <code>category</code> and <code>name</code> are required. Money as plain amounts
@@ -173,7 +177,10 @@ export function ImportPartsDialog({
                 <tbody>
                   {checked.rows.flatMap((r) =>
                     Object.entries(r.fields).map(([field, message], i) => (
-                      <tr key={`${r.row}-${field}`} className="border-b border-rule last:border-b-0">
+                      <tr
+                        key={`${r.row}-${field}`}
+                        className="border-b border-rule last:border-b-0"
+                      >
                         <td className="px-3 py-2 align-top font-semibold tabular-nums">
                           {i === 0 ? r.row : ''}
                         </td>

@@ -1,7 +1,7 @@
 import { memo } from 'react';
-import { formatIsoDate, formatMoney } from '../../../../shared/format';
 import { partCategoryLabels, type Part } from '../../../../shared/schemas/parts';
 import { cn } from '../../../components/ui/cn';
+import { cachedDate, cachedMoney } from '../lib/format-cache';
 import { StatusBadge } from './status-badge';
 import { StatusSelect } from './status-select';
 import { RatingText, RowActions, useLedgerActions, type MoneyView } from './parts-columns';
@@ -59,7 +59,7 @@ export const PartCard = memo(function PartCard({ part, money }: { part: Part; mo
         <Fact term="Quantity">{part.quantity}</Fact>
         {date && (
           <Fact term={date.term}>
-            <time dateTime={date.value}>{formatIsoDate(date.value)}</time>
+            <time dateTime={date.value}>{cachedDate(date.value)}</time>
           </Fact>
         )}
         {part.ratingValue != null && (
@@ -69,14 +69,18 @@ export const PartCard = memo(function PartCard({ part, money }: { part: Part; mo
         )}
         {money === 'full' && part.totalCents !== undefined && (
           <Fact term="Total">
-            <span className={cn('font-bold tabular-nums', part.status === 'returned' && 'line-through')}>
-              {formatMoney(part.totalCents, currency)}
+            <span
+              className={cn('font-bold tabular-nums', part.status === 'returned' && 'line-through')}
+            >
+              {cachedMoney(part.totalCents, currency)}
             </span>
           </Fact>
         )}
         {money === 'quote' && part.labourCents !== undefined && (
           <Fact term="Your quote">
-            <span className="font-bold tabular-nums">{formatMoney(part.labourCents, currency)}</span>
+            <span className="font-bold tabular-nums">
+              {cachedMoney(part.labourCents, currency)}
+            </span>
           </Fact>
         )}
       </dl>

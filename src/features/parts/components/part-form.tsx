@@ -129,7 +129,8 @@ export const newPartDefaults: DefaultValues<PartFormInput> = {
 function pick<T extends object>(values: T, keys: readonly string[]): Partial<T> {
   const out: Partial<T> = {};
   for (const key of keys) {
-    if (key in values) (out as Record<string, unknown>)[key] = (values as Record<string, unknown>)[key];
+    if (key in values)
+      (out as Record<string, unknown>)[key] = (values as Record<string, unknown>)[key];
   }
   return out;
 }
@@ -139,20 +140,34 @@ function pick<T extends object>(values: T, keys: readonly string[]): Partial<T> 
  * cross-field checks the server makes (dates in order, rating value with its unit, refund
  * not above the charge), on the part as it will be after the change.
  */
-function partResolver(mode: PartFormMode, existing?: Part): Resolver<PartFormInput, unknown, PartFormValues> {
-  const schemaResolver = (
-    mode === 'create' ? zodResolver(createPartInputSchema) : zodResolver(updatePartInputSchema)
-  ) as unknown as Resolver<PartFormInput, unknown, PartFormValues>;
+function partResolver(
+  mode: PartFormMode,
+  existing?: Part,
+): Resolver<PartFormInput, unknown, PartFormValues> {
+  const schemaResolver = (mode === 'create'
+    ? zodResolver(createPartInputSchema)
+    : zodResolver(updatePartInputSchema)) as unknown as Resolver<
+    PartFormInput,
+    unknown,
+    PartFormValues
+  >;
   return async (values, context, options) => {
     const input = mode === 'progress' ? (pick(values, progressFields) as PartFormInput) : values;
     const result = await schemaResolver(input, context, options);
-    if (Object.keys(result.errors).length) return result;
-    const issues = partConsistencyIssues({ ...(existing ?? {}), ...result.values });
-    const fields = Object.keys(issues).filter((f) =>
-      (mode === 'progress' ? progressFields : allFields).includes(f as Path<PartFormInput>),
+    // Checked on the typed values even when other fields still fail, so every problem shows
+    // at once; an unreadable amount (NaN) simply compares false.
+    const merged = {
+      ...(existing ?? {}),
+      ...(Object.keys(result.errors).length ? input : result.values),
+    };
+    const issues = partConsistencyIssues(merged as Parameters<typeof partConsistencyIssues>[0]);
+    const fields = Object.keys(issues).filter(
+      (f) =>
+        (mode === 'progress' ? progressFields : allFields).includes(f as Path<PartFormInput>) &&
+        !(f in result.errors),
     );
     if (!fields.length) return result;
-    const errors: FieldErrors<PartFormInput> = {};
+    const errors: FieldErrors<PartFormInput> = { ...result.errors };
     for (const f of fields) {
       (errors as Record<string, { type: string; message: string }>)[f] = {
         type: 'consistency',
@@ -208,7 +223,9 @@ function MoneyField({
           hint={hint}
           error={
             error &&
-            (Number.isNaN(field.value) ? 'Enter an amount like 1234.56 (at most two decimals)' : error)
+            (Number.isNaN(field.value)
+              ? 'Enter an amount like 1234.56 (at most two decimals)'
+              : error)
           }
         >
           {(c) => (
@@ -476,7 +493,12 @@ export function PartForm({
           </FieldGroup>
 
           <FieldGroup legend="Notes">
-            <FormField label="Notes" optional error={errors.notes?.message} className="sm:col-span-2">
+            <FormField
+              label="Notes"
+              optional
+              error={errors.notes?.message}
+              className="sm:col-span-2"
+            >
               {(c) => <TextArea {...c} {...register('notes')} rows={3} />}
             </FormField>
           </FieldGroup>

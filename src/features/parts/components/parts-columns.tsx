@@ -20,7 +20,7 @@ import {
   type SortFn,
 } from '@tanstack/react-table';
 import { Pencil, Trash2 } from 'lucide-react';
-import { formatIsoDate, formatMoney, formatNumber } from '../../../../shared/format';
+import { formatNumber } from '../../../../shared/format';
 import {
   partCategories,
   partCategoryLabels,
@@ -30,6 +30,7 @@ import {
   type PartStatus,
 } from '../../../../shared/schemas/parts';
 import { cn } from '../../../components/ui/cn';
+import { cachedDate, cachedMoney } from '../lib/format-cache';
 import { StatusBadge } from './status-badge';
 import { StatusSelect } from './status-select';
 
@@ -87,8 +88,7 @@ const numberSort: SortFn<PartsFeatures, Part> = (a, b, id) =>
 const dateSort: SortFn<PartsFeatures, Part> = (a, b, id) =>
   String(a.getValue(id)).localeCompare(String(b.getValue(id)));
 
-const equalsFilter: FilterFn<PartsFeatures, Part> = (row, id, value) =>
-  row.getValue(id) === value;
+const equalsFilter: FilterFn<PartsFeatures, Part> = (row, id, value) => row.getValue(id) === value;
 
 /** Lower-cased text a part is found by; built once per part object (parts are immutable). */
 const searchText = new WeakMap<Part, string>();
@@ -142,7 +142,7 @@ function Money({ cents, muted }: { cents: number | undefined; muted?: boolean })
   if (cents === undefined) return null;
   return (
     <span className={cn('tabular-nums', muted && 'text-muted line-through')}>
-      {formatMoney(cents, currency)}
+      {cachedMoney(cents, currency)}
     </span>
   );
 }
@@ -151,7 +151,7 @@ function DateCell({ value }: { value: string | null | undefined }) {
   if (!value) return <span className="text-muted">—</span>;
   return (
     <time dateTime={value} className="whitespace-nowrap tabular-nums">
-      {formatIsoDate(value)}
+      {cachedDate(value)}
     </time>
   );
 }

@@ -16,7 +16,6 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown, ChevronDown, ChevronRight, SearchX } from 'lucide-react';
-import { formatMoney } from '../../../../shared/format';
 import {
   partCategories,
   partCategoryLabels,
@@ -28,6 +27,7 @@ import {
 } from '../../../../shared/schemas/parts';
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
+import { cachedMoney } from '../lib/format-cache';
 import { EmptyState } from '../../../components/ui/states';
 import {
   loadColumnVisibility,
@@ -51,6 +51,9 @@ import {
   type PartRow,
 } from './parts-columns';
 import { LedgerToolbar, type LedgerFilters } from './ledger-toolbar';
+
+/** Rows listed at first, and added by each "Show more". */
+const rowsPerStep = 40;
 
 const categoryRank = Object.fromEntries(partCategories.map((c, i) => [c, i]));
 
@@ -110,6 +113,7 @@ export function PartsLedger({
   const [sorting, setSorting] = useState<SortingState>([]);
   const [grouped, setGrouped] = useState(() => loadGrouped(true));
   const [expanded, setExpanded] = useState<ExpandedState>(true);
+  const [limit, setLimit] = useState(rowsPerStep);
   const [columnVisibility, setColumnVisibility] = useState<ColumnVisibilityState>(() =>
     loadColumnVisibility(defaultColumnVisibility),
   );
@@ -158,7 +162,11 @@ export function PartsLedger({
   });
 
   const filteredRows = table.getFilteredRowModel().rows;
-  const rows = table.getRowModel().rows;
+  const allRows = table.getRowModel().rows;
+  // The browser lays out only what is listed: a few hundred rows of form controls cost far
+  // more to lay out and paint than to sort, so the list grows on request.
+  const rows = allRows.length > limit ? allRows.slice(0, limit) : allRows;
+  const leavesListed = rows.reduce((n, r) => (r.getIsGrouped() ? n : n + 1), 0);
   const visibleKey = table
     .getVisibleLeafColumns()
     .map((c) => c.id)
@@ -199,10 +207,16 @@ export function PartsLedger({
           onGrouped={setGrouped}
           categoryOptions={partCategories
             .filter((c) => categoryCounts.has(c) || filters.category === c)
-            .map((c) => ({ value: c, label: `${partCategoryLabels[c]} (${categoryCounts.get(c) ?? 0})` }))}
+            .map((c) => ({
+              value: c,
+              label: `${partCategoryLabels[c]} (${categoryCounts.get(c) ?? 0})`,
+            }))}
           statusOptions={partStatuses
             .filter((s) => statusCounts.has(s) || filters.status === s)
-            .map((s) => ({ value: s, label: `${partStatusLabels[s]} (${statusCounts.get(s) ?? 0})` }))}
+            .map((s) => ({
+              value: s,
+              label: `${partStatusLabels[s]} (${statusCounts.get(s) ?? 0})`,
+            }))}
           sort={
             wide
               ? undefined
@@ -226,7 +240,7 @@ export function PartsLedger({
             <p className="text-ink-2">
               {anyFilter ? 'Total shown' : 'Total'}:{' '}
               <span className="font-bold text-ink tabular-nums">
-                {formatMoney(liveTotalOf(filteredRows), actions.currency)}
+                {cachedMoney(liveTotalOf(filteredRows), actions.currency)}
               </span>
               {filteredRows.some((r) => r.original.status === 'returned') && (
                 <span className="text-muted"> (sent-back parts not counted)</span>
@@ -265,7 +279,11 @@ export function PartsLedger({
                           key={header.id}
                           scope="col"
                           aria-sort={
-                            sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined
+                            sorted === 'asc'
+                              ? 'ascending'
+                              : sorted === 'desc'
+                                ? 'descending'
+                                : undefined
                           }
                           className={cn(
                             'px-3 py-1 text-sm font-semibold whitespace-nowrap text-ink-2',
@@ -336,6 +354,23 @@ export function PartsLedger({
               ),
             )}
           </ul>
+        )}
+
+        {allRows.length > rows.length && (
+          <div className="flex flex-col items-center gap-2 rounded-lg border border-dashed border-rule-strong px-4 py-4 text-center sm:flex-row sm:justify-between sm:text-left">
+            <p className="text-ink-2">
+              Listing {leavesListed} of {filteredRows.length} parts. Search or filter to find one
+              quickly.
+            </p>
+            <div className="flex flex-wrap justify-center gap-2">
+              <Button variant="secondary" onClick={() => setLimit((l) => l + rowsPerStep)}>
+                Show {Math.min(rowsPerStep, allRows.length - rows.length)} more
+              </Button>
+              <Button variant="ghost" onClick={() => setLimit(Number.POSITIVE_INFINITY)}>
+                Show all
+              </Button>
+            </div>
+          </div>
         )}
       </div>
     </LedgerActionsContext.Provider>
@@ -423,7 +458,7 @@ const GroupRow = memo(function GroupRow({
   const cells = row.getVisibleCells();
   const totalIndex = cells.findIndex((c) => c.column.id === 'totalCents');
   const subtotal =
-    money === 'full' ? formatMoney(Number(row.getValue('totalCents') ?? 0), currency) : null;
+    money === 'full' ? cachedMoney(Number(row.getValue('totalCents') ?? 0), currency) : null;
   const label = groupLabel(row);
   return (
     <tr className="border-b border-rule bg-paper">
@@ -477,7 +512,7 @@ function GroupHeading({
       {money === 'full' && (
         <p className="font-bold tabular-nums">
           <span className="font-normal text-muted">Subtotal </span>
-          {formatMoney(Number(row.getValue('totalCents') ?? 0), currency)}
+          {cachedMoney(Number(row.getValue('totalCents') ?? 0), currency)}
         </p>
       )}
     </li>

@@ -121,7 +121,9 @@ export function AtShopCard({
         </div>
         {quoteLabel && part.labourCents !== undefined && (
           <div>
-            <dt className="text-xs font-semibold tracking-wide text-muted uppercase">{quoteLabel}</dt>
+            <dt className="text-xs font-semibold tracking-wide text-muted uppercase">
+              {quoteLabel}
+            </dt>
             <dd className="tabular-nums">{formatMoney(part.labourCents, currency)}</dd>
           </div>
         )}
@@ -189,7 +191,12 @@ export function BackFromShopRow({ part }: { part: Part }) {
       </div>
       <div className="flex flex-wrap items-center gap-2">
         {took != null && (
-          <span className={cn('text-[15px] tabular-nums', late ? 'font-semibold text-over' : 'text-ink-2')}>
+          <span
+            className={cn(
+              'text-[15px] tabular-nums',
+              late ? 'font-semibold text-over' : 'text-ink-2',
+            )}
+          >
             Took {plural(took, 'day')}
             {part.turnaroundDays != null && ` (promised ${part.turnaroundDays})`}
           </span>

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { ChevronDown, LoaderCircle } from 'lucide-react';
+import { LoaderCircle } from 'lucide-react';
 import { partStatuses, type Part, type PartStatus } from '../../../../shared/schemas/parts';
 import { cn } from '../../../components/ui/cn';
 import { isApiError } from '../../../lib/api-client';
@@ -57,9 +57,24 @@ export function StatusSelect({
           ))}
         </select>
         {draft !== null ? (
-          <LoaderCircle aria-hidden className="pointer-events-none absolute right-2 size-4 animate-spin" />
+          <LoaderCircle
+            aria-hidden
+            className="pointer-events-none absolute right-2 size-4 animate-spin"
+          />
         ) : (
-          <ChevronDown aria-hidden className="pointer-events-none absolute right-2 size-4" />
+          // A plain SVG, not an icon component: one of these sits in every ledger row.
+          <svg
+            aria-hidden
+            viewBox="0 0 24 24"
+            className="pointer-events-none absolute right-2 size-4"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth="2"
+            strokeLinecap="round"
+            strokeLinejoin="round"
+          >
+            <path d="m6 9 6 6 6-6" />
+          </svg>
         )}
       </div>
       {error && (

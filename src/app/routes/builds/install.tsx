@@ -1,0 +1,215 @@
+import { useEffect, useMemo, useState } from 'react';
+import { useParams } from 'react-router-dom';
+import { useQueries, useQuery } from '@tanstack/react-query';
+import { ClipboardList, Plus } from 'lucide-react';
+import { can } from '../../../../shared/permissions';
+import type { Build } from '../../../../shared/schemas/builds';
+import type { Job, Person } from '../../../../shared/schemas/install-log';
+import { PageHeader } from '../../../components/layouts/page-header';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { PageSpinner } from '../../../components/ui/spinner';
+import { EmptyState, ErrorState } from '../../../components/ui/states';
+import { useBuild } from '../../../features/builds/api/get-build';
+import { useCreateJob } from '../../../features/install-log/api/create-job';
+import { useCreateStep } from '../../../features/install-log/api/create-step';
+import { useJobs } from '../../../features/install-log/api/get-jobs';
+import { useRetorqueChecks } from '../../../features/install-log/api/get-retorque-checks';
+import { getStepQueryOptions } from '../../../features/install-log/api/get-step';
+import { JobCard } from '../../../features/install-log/components/job-card';
+import { JobForm } from '../../../features/install-log/components/job-form';
+import { RetorqueChecks } from '../../../features/install-log/components/retorque-checks';
+import { SheetDialog } from '../../../features/install-log/components/sheet-dialog';
+import { StepForm } from '../../../features/install-log/components/step-form';
+import { getPartsQueryOptions } from '../../../features/parts/api/get-parts';
+import { BuildLoadError } from './build-states';
+
+/** "/builds/:buildId/install" — the jobs of a build, their steps and progress. */
+export function InstallRoute() {
+  const { buildId = '' } = useParams();
+  const build = useBuild(buildId);
+  if (build.isPending) return <PageSpinner label="Loading the build…" />;
+  if (build.isError) {
+    return <BuildLoadError error={build.error} onRetry={() => void build.refetch()} />;
+  }
+  return <InstallPage build={build.data} />;
+}
+
+/**
+ * Who signed off each signed-off step. The jobs list gives only when; the step itself says
+ * who. Few steps per build, and the step pages reuse what is fetched here.
+ */
+function useSignedOffBy(buildId: string, jobs: Job[] | undefined) {
+  const ids = (jobs ?? []).flatMap((j) =>
+    j.steps.filter((s) => s.status === 'signed-off').map((s) => s.id),
+  );
+  const steps = useQueries({
+    queries: ids.map((id) => ({ ...getStepQueryOptions(buildId, id), staleTime: 60_000 })),
+  });
+  const byId = new Map<string, Person | null>();
+  for (const q of steps) if (q.data?.signOff) byId.set(q.data.id, q.data.signOff.by);
+  return byId;
+}
+
+function InstallPage({ build }: { build: Build }) {
+  // The app keeps no scroll position between pages: open at the top, not where the last page was.
+  useEffect(() => {
+    window.scrollTo(0, 0);
+  }, []);
+  const jobs = useJobs(build.id);
+  const checks = useRetorqueChecks(build.id, 'open');
+  const createJob = useCreateJob();
+  const createStep = useCreateStep();
+  const canWrite = can(build.myRole, 'install:write');
+  const [addingJob, setAddingJob] = useState(false);
+  const [addingStepTo, setAddingStepTo] = useState<Job | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
+  const parts = useQuery({ ...getPartsQueryOptions(build.id), enabled: addingStepTo !== null });
+  const signedOffBy = useSignedOffBy(build.id, jobs.data);
+
+  const totals = useMemo(() => {
+    const steps = (jobs.data ?? []).flatMap((j) => j.steps);
+    return {
+      steps: steps.length,
+      signedOff: steps.filter((s) => s.status === 'signed-off').length,
+    };
+  }, [jobs.data]);
+
+  const newJobButton = canWrite && (
+    <Button
+      className="min-h-12!"
+      icon={<Plus aria-hidden className="size-5" />}
+      onClick={() => {
+        setNotice(null);
+        setAddingJob(true);
+      }}
+    >
+      New job
+    </Button>
+  );
+
+  let body;
+  if (jobs.isPending) {
+    body = <PageSpinner label="Loading the install log…" />;
+  } else if (jobs.isError) {
+    body = (
+      <ErrorState
+        title="Could not load the install log"
+        error={jobs.error}
+        onRetry={() => void jobs.refetch()}
+      />
+    );
+  } else if (jobs.data.length === 0) {
+    body = (
+      <EmptyState
+        icon={<ClipboardList aria-hidden className="size-6" />}
+        title={build.myRole === 'shop' ? 'No steps for your parts yet' : 'No jobs yet'}
+        actions={newJobButton || undefined}
+      >
+        {canWrite
+          ? 'A job is a piece of the build, like “Fit the injectors”. Break it into steps; each step gets its checklist, torque specs, readings and photos.'
+          : build.myRole === 'shop'
+            ? 'Steps that fit the parts sent to your shop appear here.'
+            : 'The owner and crew have not started the install log yet.'}
+      </EmptyState>
+    );
+  } else {
+    body = (
+      <div className="flex flex-col gap-5">
+        {jobs.data.map((job) => (
+          <JobCard
+            key={job.id}
+            buildId={build.id}
+            job={job}
+            signedOffBy={signedOffBy}
+            onAddStep={
+              canWrite
+                ? () => {
+                    setNotice(null);
+                    setAddingStepTo(job);
+                  }
+                : undefined
+            }
+          />
+        ))}
+      </div>
+    );
+  }
+
+  return (
+    <>
+      <title>{`Install · ${build.name} · Headroom`}</title>
+      <PageHeader
+        title="Install"
+        subtitle={
+          <span>
+            {build.name}
+            {totals.steps > 0 && (
+              <span className="text-muted">
+                {' '}
+                · {totals.signedOff} of {totals.steps} step{totals.steps === 1 ? '' : 's'} signed
+                off
+              </span>
+            )}
+          </span>
+        }
+        actions={jobs.data && jobs.data.length > 0 ? newJobButton : undefined}
+      />
+
+      <div className="flex flex-col gap-5">
+        {notice && <Alert tone="ok">{notice}</Alert>}
+        {checks.isError && (
+          <Alert tone="error" title="Could not load the re-torque checks">
+            {checks.error.message}
+          </Alert>
+        )}
+        {checks.data && (
+          <RetorqueChecks buildId={build.id} checks={checks.data} canWrite={canWrite} />
+        )}
+        {body}
+      </div>
+
+      <SheetDialog
+        open={addingJob}
+        title="New job"
+        description="Steps, specs and photos are added to it next."
+        onClose={() => setAddingJob(false)}
+        busy={createJob.isPending}
+      >
+        <JobForm
+          onCancel={() => setAddingJob(false)}
+          onSubmit={async (input) => {
+            const job = await createJob.mutateAsync({ buildId: build.id, input });
+            setAddingJob(false);
+            setNotice(`Added the job “${job.title}”. Add its first step.`);
+            setAddingStepTo(job);
+          }}
+        />
+      </SheetDialog>
+
+      <SheetDialog
+        open={addingStepTo !== null}
+        title="Add a step"
+        description={addingStepTo ? `To “${addingStepTo.title}”` : undefined}
+        onClose={() => setAddingStepTo(null)}
+        busy={createStep.isPending}
+      >
+        {addingStepTo && (
+          <StepForm
+            parts={parts.data}
+            onCancel={() => setAddingStepTo(null)}
+            onSubmit={async (input) => {
+              const step = await createStep.mutateAsync({
+                buildId: build.id,
+                jobId: addingStepTo.id,
+                input,
+              });
+              setAddingStepTo(null);
+              setNotice(`Added the step “${step.title}”.`);
+            }}
+          />
+        )}
+      </SheetDialog>
+    </>
+  );
+}

@@ -1,0 +1,325 @@
+import { useEffect, useState } from 'react';
+import { useLocation, useParams } from 'react-router-dom';
+import { ChevronLeft, ChevronRight, Plus, Ruler } from 'lucide-react';
+import { can } from '../../../../shared/permissions';
+import type { Build } from '../../../../shared/schemas/builds';
+import type { FastenerSpec, Step } from '../../../../shared/schemas/install-log';
+import type { Photo } from '../../../../shared/schemas/photos';
+import { paths } from '../../../config/paths';
+import { PageHeader } from '../../../components/layouts/page-header';
+import { Alert } from '../../../components/ui/alert';
+import { Button, ButtonLink } from '../../../components/ui/button';
+import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
+import { PageSpinner } from '../../../components/ui/spinner';
+import { ErrorState, NotFoundState } from '../../../components/ui/states';
+import { isApiError } from '../../../lib/api-client';
+import { useUser } from '../../../lib/auth';
+import { useBuild } from '../../../features/builds/api/get-build';
+import { useCreateFastener } from '../../../features/install-log/api/create-fastener';
+import { useDeleteFastener } from '../../../features/install-log/api/delete-fastener';
+import { useJobs } from '../../../features/install-log/api/get-jobs';
+import { useStep } from '../../../features/install-log/api/get-step';
+import { useUpdateStep } from '../../../features/install-log/api/update-step';
+import { CautionList } from '../../../features/install-log/components/cautions';
+import { Checklist } from '../../../features/install-log/components/checklist';
+import { FastenerCard } from '../../../features/install-log/components/fastener-card';
+import { FastenerForm } from '../../../features/install-log/components/fastener-form';
+import { LinkedParts } from '../../../features/install-log/components/linked-parts';
+import { SheetDialog } from '../../../features/install-log/components/sheet-dialog';
+import { SignOffPanel } from '../../../features/install-log/components/sign-off-panel';
+import { StepStatusBadge } from '../../../features/install-log/components/step-status';
+import { when } from '../../../features/install-log/lib/format';
+import { StepPhotos } from '../../../features/photos/components/step-photos';
+import { BuildLoadError } from './build-states';
+
+/** "/builds/:buildId/install/steps/:stepId" — one step, made for a phone in the garage. */
+export function StepRoute() {
+  const { buildId = '', stepId = '' } = useParams();
+  const build = useBuild(buildId);
+  if (build.isPending) return <PageSpinner label="Loading the build…" />;
+  if (build.isError) {
+    return <BuildLoadError error={build.error} onRetry={() => void build.refetch()} />;
+  }
+  return <StepLoader build={build.data} stepId={stepId} />;
+}
+
+function StepLoader({ build, stepId }: { build: Build; stepId: string }) {
+  const step = useStep(build.id, stepId);
+  const back = (
+    <ButtonLink to={paths.builds.install.getHref(build.id)} variant="secondary">
+      Back to the install log
+    </ButtonLink>
+  );
+  if (step.isPending) return <PageSpinner label="Loading the step…" />;
+  if (step.isError) {
+    if (isApiError(step.error) && step.error.status === 404) {
+      return (
+        <>
+          <title>Step not found · Headroom</title>
+          <NotFoundState title="Step not found" titleAs="h1" actions={back}>
+            It may have been deleted, or it is not one you can see.
+          </NotFoundState>
+        </>
+      );
+    }
+    return (
+      <ErrorState
+        title="Could not load this step"
+        titleAs="h1"
+        error={step.error}
+        onRetry={() => void step.refetch()}
+        actions={back}
+      />
+    );
+  }
+  return <StepPage build={build} step={step.data} />;
+}
+
+function fastenerMode(step: Step, spec: FastenerSpec, canWrite: boolean) {
+  if (!canWrite) return 'read-only' as const;
+  if (step.status !== 'signed-off') return 'fitting' as const;
+  return spec.retorque.asked && !spec.retorque.closedAt
+    ? ('retorque' as const)
+    : ('read-only' as const);
+}
+
+/**
+ * A step opens at its top (the app keeps no scroll position between pages, and a phone
+ * would otherwise land mid-page after the jobs list), and links into it (#fastener-…,
+ * #check-… from the re-torque list and the blockers) land on their spot once it has drawn.
+ */
+function useScrollOnOpen(stepId: string) {
+  const { hash } = useLocation();
+  useEffect(() => {
+    const target = hash ? document.getElementById(decodeURIComponent(hash.slice(1))) : null;
+    if (target) target.scrollIntoView({ block: 'start' });
+    else window.scrollTo(0, 0);
+  }, [hash, stepId]);
+}
+
+function StepPage({ build, step }: { build: Build; step: Step }) {
+  useScrollOnOpen(step.id);
+  const me = useUser();
+  const jobs = useJobs(build.id);
+  const updateStep = useUpdateStep();
+  const createFastener = useCreateFastener();
+  const deleteFastener = useDeleteFastener();
+  const [addingSpec, setAddingSpec] = useState(false);
+  const [deletingSpec, setDeletingSpec] = useState<FastenerSpec | null>(null);
+
+  const role = build.myRole;
+  const canWrite = can(role, 'install:write');
+  const canDelete = can(role, 'install:delete');
+  const isOwner = can(role, 'install:override');
+  const locked = step.status === 'signed-off';
+  const editable = canWrite && !locked;
+
+  const job = jobs.data?.find((j) => j.id === step.jobId);
+  const index = job?.steps.findIndex((s) => s.id === step.id) ?? -1;
+  const prev = job && index > 0 ? job.steps[index - 1] : undefined;
+  const next = job && index >= 0 && index < job.steps.length - 1 ? job.steps[index + 1] : undefined;
+
+  const canCaption = (photo: Photo) =>
+    can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id);
+
+  return (
+    <>
+      <title>{`${step.title} · Install · ${build.name} · Headroom`}</title>
+      <PageHeader
+        back={{ to: paths.builds.install.getHref(build.id), label: 'Install' }}
+        title={step.title}
+        subtitle={
+          <span className="text-base">
+            {job ? (
+              <>
+                {job.title} · step {step.position} of {job.steps.length}
+              </>
+            ) : (
+              <>Step {step.position}</>
+            )}
+          </span>
+        }
+        badges={<StepStatusBadge status={step.status} />}
+        actions={
+          editable && step.status === 'not-started' ? (
+            <Button
+              variant="secondary"
+              className="min-h-12!"
+              pending={updateStep.isPending}
+              onClick={() =>
+                updateStep.mutate({
+                  buildId: build.id,
+                  stepId: step.id,
+                  input: { status: 'under-way' },
+                })
+              }
+            >
+              Start this step
+            </Button>
+          ) : undefined
+        }
+      />
+
+      <div className="flex flex-col gap-5">
+        <CautionList cautions={step.cautions} />
+
+        {locked && step.signOff && (
+          <Alert tone="ok" title={`Signed off by ${step.signOff.by?.name ?? 'someone'}`}>
+            {when(step.signOff.at)}. Readings and ticks are locked
+            {canWrite && step.fasteners.some((f) => f.retorque.asked && !f.retorque.closedAt)
+              ? '; re-torque checks can still be recorded.'
+              : '.'}
+          </Alert>
+        )}
+        {updateStep.isError && <Alert tone="error">{updateStep.error.message}</Alert>}
+
+        {step.description && (
+          <section
+            aria-labelledby="step-description-title"
+            className="rounded-lg border border-rule bg-sheet px-4 py-3 sm:px-5"
+          >
+            <h2 id="step-description-title" className="text-lg font-bold">
+              What to do
+            </h2>
+            <p className="mt-1 text-[17px] whitespace-pre-line text-ink-2">{step.description}</p>
+          </section>
+        )}
+
+        <LinkedParts buildId={build.id} parts={step.parts} />
+
+        <Checklist
+          buildId={build.id}
+          stepId={step.id}
+          items={step.checklist}
+          canTick={editable}
+          canAdd={editable}
+          canDelete={canDelete && !locked}
+        />
+
+        <section aria-labelledby="torque-title" className="flex flex-col gap-3">
+          <div className="flex flex-wrap items-center justify-between gap-2">
+            <h2 id="torque-title" className="flex items-center gap-2 text-xl font-bold">
+              <Ruler aria-hidden className="size-5 text-ink-3" />
+              Torque
+            </h2>
+            {editable && (
+              <Button
+                variant="secondary"
+                className="min-h-12!"
+                icon={<Plus aria-hidden className="size-5" />}
+                onClick={() => setAddingSpec(true)}
+              >
+                Add a fastener spec
+              </Button>
+            )}
+          </div>
+          {step.fasteners.length === 0 ? (
+            <p className="rounded-lg border border-dashed border-rule-strong bg-sheet/70 px-4 py-4 text-muted">
+              No torque specs on this step.
+              {editable &&
+                ' Add one for each set of fasteners, copied from the service information.'}
+            </p>
+          ) : (
+            step.fasteners.map((spec) => (
+              <FastenerCard
+                key={spec.id}
+                buildId={build.id}
+                spec={spec}
+                mode={fastenerMode(step, spec, canWrite)}
+                onDelete={
+                  canDelete && !locked
+                    ? () => {
+                        deleteFastener.reset();
+                        setDeletingSpec(spec);
+                      }
+                    : undefined
+                }
+              />
+            ))
+          )}
+        </section>
+
+        <SignOffPanel step={step} canSignOff={canWrite} canOverride={isOwner} />
+
+        <StepPhotos
+          buildId={build.id}
+          stepId={step.id}
+          canUpload={can(role, 'photos:upload') && role !== 'shop'}
+          canCaption={canCaption}
+          canDelete={can(role, 'photos:delete')}
+        />
+
+        {(prev || next) && (
+          <nav aria-label="Other steps of this job" className="grid grid-cols-2 gap-2">
+            {prev ? (
+              <ButtonLink
+                to={paths.builds.step.getHref(build.id, prev.id)}
+                variant="secondary"
+                className="min-h-14! justify-start! text-left whitespace-normal!"
+                icon={<ChevronLeft aria-hidden className="size-5 shrink-0" />}
+              >
+                <span className="min-w-0">
+                  <span className="block text-sm font-normal text-muted">Previous step</span>
+                  <span className="line-clamp-2">{prev.title}</span>
+                </span>
+              </ButtonLink>
+            ) : (
+              <span />
+            )}
+            {next && (
+              <ButtonLink
+                to={paths.builds.step.getHref(build.id, next.id)}
+                variant="secondary"
+                className="min-h-14! justify-end! text-right whitespace-normal!"
+              >
+                <span className="min-w-0">
+                  <span className="block text-sm font-normal text-muted">Next step</span>
+                  <span className="line-clamp-2">{next.title}</span>
+                </span>
+                <ChevronRight aria-hidden className="size-5 shrink-0" />
+              </ButtonLink>
+            )}
+          </nav>
+        )}
+      </div>
+
+      <SheetDialog
+        open={addingSpec}
+        title="Add a fastener spec"
+        description={step.title}
+        onClose={() => setAddingSpec(false)}
+        busy={createFastener.isPending}
+      >
+        <FastenerForm
+          onCancel={() => setAddingSpec(false)}
+          onSubmit={async (input) => {
+            await createFastener.mutateAsync({ buildId: build.id, stepId: step.id, input });
+            setAddingSpec(false);
+          }}
+        />
+      </SheetDialog>
+
+      <ConfirmDialog
+        open={deletingSpec !== null}
+        title="Delete this fastener spec?"
+        confirmLabel="Delete the spec"
+        pending={deleteFastener.isPending}
+        onClose={() => setDeletingSpec(null)}
+        onConfirm={() => {
+          if (!deletingSpec) return;
+          deleteFastener.mutate(
+            { buildId: build.id, stepId: step.id, specId: deletingSpec.id },
+            { onSuccess: () => setDeletingSpec(null) },
+          );
+        }}
+      >
+        “{deletingSpec?.name}” goes with every reading recorded against it.
+        {deleteFastener.isError && (
+          <p role="alert" className="mt-2 font-semibold text-over">
+            {deleteFastener.error.message}
+          </p>
+        )}
+      </ConfirmDialog>
+    </>
+  );
+}

@@ -1,0 +1,259 @@
+import { useForm, type Path } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import {
+  createFastenerSpecInputSchema,
+  fastenerSpecIssues,
+  threadConditionLabels,
+  threadConditions,
+  toleranceTypeLabels,
+} from '../../../../shared/schemas/install-log';
+import { toleranceTypes, torqueUnits } from '../../../../shared/install-log/torque';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { FormError } from '../../../components/ui/form-error';
+import { FormField, SelectInput, TextArea, TextInput } from '../../../components/ui/form-field';
+import { applyServerErrors } from '../../../lib/form-errors';
+import { parseDecimal, parseDecimalOrNull, unitLabel } from '../lib/format';
+
+// The server's schema, plus the cross-field checks it runs (tolerance below the target,
+// stages below the final torque), so the form says so before it sends.
+const schema = createFastenerSpecInputSchema.superRefine((spec, ctx) => {
+  for (const [path, message] of Object.entries(fastenerSpecIssues(spec))) {
+    ctx.addIssue({ code: 'custom', path: [path], message });
+  }
+});
+type Input = z.input<typeof schema>;
+type Values = z.output<typeof schema>;
+const fieldNames = Object.keys(createFastenerSpecInputSchema.shape) as Path<Input>[];
+
+/** "15, 25" → [15, 25]; an empty box → no stages. */
+function toStages(value: unknown): number[] | undefined {
+  if (Array.isArray(value)) return value as number[];
+  const text = String(value ?? '').trim();
+  if (!text) return undefined;
+  // Commas separate stages here, so decimals take a point: "15, 22.5".
+  return text
+    .split(/[,;\s]+/)
+    .filter(Boolean)
+    .map((t) => Number(t));
+}
+
+function toIntOrNull(value: unknown): number | null {
+  return parseDecimalOrNull(value);
+}
+
+export function FastenerForm({
+  onSubmit,
+  onCancel,
+}: {
+  onSubmit: (values: Values) => Promise<unknown>;
+  onCancel: () => void;
+}) {
+  const {
+    register,
+    handleSubmit,
+    setError,
+    watch,
+    formState: { errors, isSubmitting },
+  } = useForm<Input, unknown, Values>({
+    resolver: zodResolver(schema),
+    defaultValues: {
+      name: '',
+      targetUnit: 'lbf-ft',
+      toleranceType: 'percent',
+      sequenceNote: '',
+      specSource: '',
+    },
+  });
+  const unit = watch('targetUnit') ?? 'lbf-ft';
+  const tolType = watch('toleranceType') ?? 'percent';
+
+  const submit = handleSubmit(async (values) => {
+    try {
+      await onSubmit(values);
+    } catch (error) {
+      applyServerErrors(error, setError, fieldNames);
+    }
+  });
+
+  const stagesError =
+    errors.stages?.message ??
+    (Array.isArray(errors.stages) ? errors.stages.find((e) => e?.message)?.message : undefined);
+
+  return (
+    <form onSubmit={submit} noValidate className="flex flex-col gap-4">
+      <Alert tone="info" title="Copy the spec from the service information">
+        Torque values, sequences and procedures come from the vehicle maker's service information.
+        Headroom records them and checks readings against them; it does not supply them.
+      </Alert>
+
+      <FormField label="Fastener" error={errors.name?.message} hint="e.g. Injector hold-down bolts">
+        {(c) => <TextInput {...c} {...register('name')} autoComplete="off" autoFocus />}
+      </FormField>
+
+      <div className="grid grid-cols-2 gap-4 sm:grid-cols-3">
+        <FormField label="How many" error={errors.count?.message}>
+          {(c) => (
+            <TextInput
+              {...c}
+              {...register('count', { setValueAs: parseDecimal })}
+              inputMode="numeric"
+              autoComplete="off"
+              className="tabular-nums"
+            />
+          )}
+        </FormField>
+        <FormField label="Target torque" error={errors.targetValue?.message}>
+          {(c) => (
+            <TextInput
+              {...c}
+              {...register('targetValue', { setValueAs: parseDecimal })}
+              inputMode="decimal"
+              autoComplete="off"
+              className="tabular-nums"
+            />
+          )}
+        </FormField>
+        <FormField label="Unit" error={errors.targetUnit?.message}>
+          {(c) => (
+            <SelectInput {...c} {...register('targetUnit')}>
+              {torqueUnits.map((u) => (
+                <option key={u} value={u}>
+                  {unitLabel(u)}
+                </option>
+              ))}
+            </SelectInput>
+          )}
+        </FormField>
+        <FormField label="Tolerance" error={errors.toleranceType?.message}>
+          {(c) => (
+            <SelectInput {...c} {...register('toleranceType')}>
+              {toleranceTypes.map((t) => (
+                <option key={t} value={t}>
+                  {toleranceTypeLabels[t]}
+                </option>
+              ))}
+            </SelectInput>
+          )}
+        </FormField>
+        <FormField
+          label={tolType === 'percent' ? 'Tolerance, ± %' : `Tolerance, ± ${unitLabel(unit)}`}
+          error={errors.toleranceValue?.message}
+        >
+          {(c) => (
+            <TextInput
+              {...c}
+              {...register('toleranceValue', { setValueAs: parseDecimal })}
+              inputMode="decimal"
+              autoComplete="off"
+              className="tabular-nums"
+            />
+          )}
+        </FormField>
+        <FormField label="Threads" error={errors.threadCondition?.message}>
+          {(c) => (
+            <SelectInput {...c} {...register('threadCondition')} defaultValue="">
+              <option value="" disabled>
+                Choose…
+              </option>
+              {threadConditions.map((t) => (
+                <option key={t} value={t}>
+                  {threadConditionLabels[t]}
+                </option>
+              ))}
+            </SelectInput>
+          )}
+        </FormField>
+      </div>
+
+      <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
+        <FormField
+          label="Stages before the final torque"
+          optional
+          error={stagesError}
+          hint={`In ${unitLabel(unit)}, in order, e.g. 15, 25`}
+        >
+          {(c) => (
+            <TextInput
+              {...c}
+              {...register('stages', { setValueAs: toStages })}
+              inputMode="decimal"
+              autoComplete="off"
+            />
+          )}
+        </FormField>
+        <FormField
+          label="Then turn (degrees)"
+          optional
+          error={errors.finalAngleDeg?.message}
+          hint="For torque-to-angle fasteners"
+        >
+          {(c) => (
+            <TextInput
+              {...c}
+              {...register('finalAngleDeg', { setValueAs: parseDecimalOrNull })}
+              inputMode="decimal"
+              autoComplete="off"
+            />
+          )}
+        </FormField>
+      </div>
+
+      <FormField
+        label="Sequence"
+        optional
+        error={errors.sequenceNote?.message}
+        hint="e.g. Centre out, criss-cross; all to stage 1 first"
+      >
+        {(c) => <TextArea {...c} {...register('sequenceNote')} rows={2} />}
+      </FormField>
+
+      <FormField
+        label="Where the spec comes from"
+        error={errors.specSource?.message}
+        hint="The service manual and its section, or the part maker's sheet"
+      >
+        {(c) => <TextInput {...c} {...register('specSource')} autoComplete="off" />}
+      </FormField>
+
+      <fieldset className="rounded-md border border-rule px-3 pt-1 pb-3">
+        <legend className="px-1 text-[15px] font-semibold">
+          Re-torque check <span className="font-normal text-muted">(optional)</span>
+        </legend>
+        <div className="grid grid-cols-2 gap-4">
+          <FormField label="After heat cycles" error={errors.retorqueAfterHeatCycles?.message}>
+            {(c) => (
+              <TextInput
+                {...c}
+                {...register('retorqueAfterHeatCycles', { setValueAs: toIntOrNull })}
+                inputMode="numeric"
+                autoComplete="off"
+              />
+            )}
+          </FormField>
+          <FormField label="Or after miles" error={errors.retorqueAfterMiles?.message}>
+            {(c) => (
+              <TextInput
+                {...c}
+                {...register('retorqueAfterMiles', { setValueAs: toIntOrNull })}
+                inputMode="numeric"
+                autoComplete="off"
+              />
+            )}
+          </FormField>
+        </div>
+      </fieldset>
+
+      <FormError message={errors.root?.server?.message} />
+      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
+        <Button variant="secondary" className="min-h-12!" onClick={onCancel}>
+          Cancel
+        </Button>
+        <Button type="submit" className="min-h-12!" pending={isSubmitting}>
+          Add the spec
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,60 @@
+import { useForm, type Path } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
+import { createJobInputSchema } from '../../../../shared/schemas/install-log';
+import { Button } from '../../../components/ui/button';
+import { FormError } from '../../../components/ui/form-error';
+import { FormField, TextArea, TextInput } from '../../../components/ui/form-field';
+import { applyServerErrors } from '../../../lib/form-errors';
+
+type Input = z.input<typeof createJobInputSchema>;
+type Values = z.output<typeof createJobInputSchema>;
+const fieldNames: Path<Input>[] = ['title', 'notes'];
+
+export function JobForm({
+  onSubmit,
+  onCancel,
+}: {
+  onSubmit: (values: Values) => Promise<unknown>;
+  onCancel: () => void;
+}) {
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<Input, unknown, Values>({
+    resolver: zodResolver(createJobInputSchema),
+    defaultValues: { title: '', notes: '' },
+  });
+  const submit = handleSubmit(async (values) => {
+    try {
+      await onSubmit(values);
+    } catch (error) {
+      applyServerErrors(error, setError, fieldNames);
+    }
+  });
+  return (
+    <form onSubmit={submit} noValidate className="flex flex-col gap-4">
+      <FormField
+        label="Job name"
+        error={errors.title?.message}
+        hint="What gets done, e.g. “Fit the injectors”"
+      >
+        {(c) => <TextInput {...c} {...register('title')} autoComplete="off" autoFocus />}
+      </FormField>
+      <FormField label="Notes" optional error={errors.notes?.message}>
+        {(c) => <TextArea {...c} {...register('notes')} rows={3} />}
+      </FormField>
+      <FormError message={errors.root?.server?.message} />
+      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
+        <Button variant="secondary" className="min-h-12!" onClick={onCancel}>
+          Cancel
+        </Button>
+        <Button type="submit" className="min-h-12!" pending={isSubmitting}>
+          Add job
+        </Button>
+      </div>
+    </form>
+  );
+}
