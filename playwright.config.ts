@@ -51,6 +51,11 @@ export default defineConfig({
       // No SMTP settings: the server runs its mail catcher here; specs read it at /dev/mail.
       MAIL_CATCHER_PORT: process.env.E2E_MAIL_PORT ?? String(port + 1),
       MAIL_DIR: process.env.E2E_MAIL_DIR ?? path.join(os.tmpdir(), `headroom-e2e-mail-${port}`),
+      // Uploaded photos go to a throwaway folder, never into the checkout's .data/uploads.
+      STORAGE_DIR:
+        process.env.E2E_STORAGE_DIR ?? path.join(os.tmpdir(), `headroom-e2e-uploads-${port}`),
+      // npm test builds the client into its own folder; by hand, the checkout's dist/.
+      ...(process.env.E2E_CLIENT_DIR ? { CLIENT_DIR: process.env.E2E_CLIENT_DIR } : {}),
       APP_URL: baseURL,
       MAIL_POLL_MS: '200',
     },

@@ -61,14 +61,16 @@ FAILED=$((FAILED + VF))
 if [ "$VITEST_RC" != "0" ] && [ "$VF" = "0" ]; then FAILED=$((FAILED + 1)); FAILED_SUITES+=("vitest (exit $VITEST_RC)"); fi
 [ "$VF" != "0" ] && FAILED_SUITES+=("vitest: $VF")
 
-check "client build" npx vite build --logLevel warn
+# Built into the throwaway folder, so a running `npm start` keeps serving its own dist/.
+export E2E_CLIENT_DIR="$WORK/dist"
+check "client build" npx vite build --logLevel warn --outDir "$E2E_CLIENT_DIR" --emptyOutDir
 
 say "end-to-end tests (Playwright in Chromium)"
 export E2E_PORT="$(free_port)"
 # The e2e server's mail catcher: its own port and a throwaway folder (read by the specs at /dev/mail).
 E2E_MAIL_PORT="$(free_port)"
 [ "$E2E_MAIL_PORT" = "$E2E_PORT" ] && E2E_MAIL_PORT="$(free_port)"
-export E2E_MAIL_PORT E2E_MAIL_DIR="$WORK/mail"
+export E2E_MAIL_PORT E2E_MAIL_DIR="$WORK/mail" E2E_STORAGE_DIR="$WORK/uploads"
 PLAYWRIGHT_JSON_OUTPUT_NAME="$WORK/playwright.json" npx playwright test --reporter=list,json
 PW_RC=$?
 read -r EP EF < <(count "$WORK/playwright.json" "r.stats.expected + r.stats.flaky" "r.stats.unexpected")

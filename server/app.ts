@@ -3,7 +3,6 @@ import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import fs from 'node:fs';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import type { AppConfig } from './config';
 import { createSessions, type Sessions } from './lib/auth';
 import type { Database } from './lib/database';
@@ -34,8 +33,6 @@ export type AppDeps = {
   sessions: Sessions;
   storage: Storage;
 };
-
-const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
 
 /** Builds the Express app. Never listens: server/index.ts and the tests do that. */
 export function createApp(opts: {
@@ -99,6 +96,7 @@ export function createApp(opts: {
   // The local catcher's mailbox; 404 in production and when real SMTP is set.
   app.use('/dev/mail', devMailRouter(opts.config));
 
+  const distDir = opts.config.clientDir;
   if (opts.config.serveClient && fs.existsSync(path.join(distDir, 'index.html'))) {
     app.use(express.static(distDir, { index: false, maxAge: '1h' }));
     // Client-side routes: every other GET gets the app shell.

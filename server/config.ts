@@ -1,5 +1,6 @@
 import os from 'node:os';
 import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
 
 const envSchema = z.object({
@@ -43,6 +44,8 @@ const envSchema = z.object({
   STORAGE_DIR: z.string().min(1).default('.data/uploads'),
   /** Folder for uploads while they are checked; emptied after every request. Default: the OS temp folder. */
   UPLOAD_TMP_DIR: z.string().min(1).optional(),
+  /** Folder of the built client (vite build's outDir); npm test builds its own copy elsewhere. */
+  CLIENT_DIR: z.string().min(1).optional(),
   /** Largest photo accepted, in MiB. */
   PHOTO_MAX_MB: z.coerce.number().positive().max(200).default(25),
 });
@@ -72,6 +75,8 @@ export type AppConfig = {
   trustProxy: boolean;
   logLevel: string;
   serveClient: boolean;
+  /** Absolute folder of the built client. */
+  clientDir: string;
   /** Base of every link in a mail, without a trailing slash. */
   appUrl: string;
   mail: MailConfig;
@@ -123,6 +128,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: e.TRUST_PROXY === '1',
     logLevel: e.LOG_LEVEL,
     serveClient: e.SERVE_CLIENT === '1',
+    clientDir: e.CLIENT_DIR
+      ? path.resolve(e.CLIENT_DIR)
+      : path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist'),
     appUrl: (e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/+$/, ''),
     mail: {
       from: e.MAIL_FROM,

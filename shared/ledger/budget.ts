@@ -56,9 +56,11 @@ export function computeBudget(parts: BudgetPart[], budgetCents: number, currency
       dateOf(a).localeCompare(dateOf(b)) ||
       a.createdAt.localeCompare(b.createdAt),
   );
+  // A budget of zero means none was set: nothing can be over it.
+  const hasBudget = budgetCents > 0;
   let running = 0;
   let tippingPart: Budget['tippingPart'] = null;
-  for (const p of ordered) {
+  for (const p of hasBudget ? ordered : []) {
     running += partTotalCents(p);
     if (running > budgetCents) {
       tippingPart = { id: p.id, name: p.name, overByCents: totals.plannedCents - budgetCents };
@@ -89,7 +91,7 @@ export function computeBudget(parts: BudgetPart[], budgetCents: number, currency
     categories: [...lines.values()].sort((a, b) => b.plannedCents - a.plannedCents),
     remainingAfterPlannedCents: budgetCents - totals.plannedCents,
     remainingAfterSpentCents: budgetCents - totals.spentCents,
-    overBudget: totals.plannedCents > budgetCents,
+    overBudget: hasBudget && totals.plannedCents > budgetCents,
     tippingPart,
     spendingOverTime,
   };

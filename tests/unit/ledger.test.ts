@@ -129,6 +129,13 @@ describe('computeBudget', () => {
     expect(b.tippingPart).toEqual({ id: 'a', name: 'a', overByCents: 400 });
   });
 
+  it('with no budget set (zero), nothing is over it and no part is named', () => {
+    const b = computeBudget([part('a', 'installed', 600), part('bb', 'planned', 300)], 0, 'USD');
+    expect(b.overBudget).toBe(false);
+    expect(b.tippingPart).toBeNull();
+    expect(b.totals.plannedCents).toBe(900);
+  });
+
   it('builds a cumulative spending line by date', () => {
     const b = computeBudget(
       [
