@@ -299,12 +299,48 @@ describe('GET /api/builds/:buildId/estimate', () => {
         ],
       }),
     );
-    for (const member of [owner, crew, shop, viewer]) {
+    for (const member of [owner, crew, viewer]) {
       const res = await member.agent.get(`/api/builds/${build.id}/estimate`);
       expect(res.status).toBe(200);
       expect(res.body.estimate).toEqual(JSON.parse(JSON.stringify(expected)));
       expect(moneyKeys(res.body)).toEqual([]);
     }
+    // The shop gets the same figures, but parts not sent to it are not named.
+    const res = await shop.agent.get(`/api/builds/${build.id}/estimate`);
+    expect(res.status).toBe(200);
+    expect(moneyKeys(res.body)).toEqual([]);
+    expect(res.body.estimate.requirements).toEqual(
+      JSON.parse(JSON.stringify(expected.requirements)),
+    );
+    expect(res.body.estimate.supported).toMatchObject({
+      crankPower: { value: expected.supported!.crankPower.value },
+    });
+    const text = JSON.stringify(res.body);
+    for (const hidden of ['Stock bottom end', 'Injectors', ids.bottomEnd, ids.injectors])
+      expect(text).not.toContain(hidden);
+    expect(res.body.estimate.components.map((c: { name: string }) => c.name)).toEqual([
+      'Another part (bottom end)',
+      'Another part (fuel injection)',
+    ]);
+  });
+
+  it('names to a shop the parts sent to it, and only those', async () => {
+    const { shop, build, ids } = await castWithRatedParts();
+    await app.db
+      .knex('parts')
+      .where({ id: ids.injectors })
+      .update({ status: 'at-shop', shop_user_id: shop.id, sent_out_on: '2026-11-01' });
+    const res = await shop.agent.get(`/api/builds/${build.id}/estimate`);
+    expect(res.status).toBe(200);
+    const names = res.body.estimate.components.map((c: { id: string; name: string }) => [
+      c.id,
+      c.name,
+    ]);
+    expect(names).toEqual([
+      ['other-bottom-end-1', 'Another part (bottom end)'],
+      [ids.injectors, 'Injectors'],
+    ]);
+    expect(JSON.stringify(res.body)).not.toContain('Stock bottom end');
   });
 
   it('leaves out returned and unrated parts and lists unrated categories as unknown', async () => {

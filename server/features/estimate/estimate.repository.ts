@@ -74,7 +74,9 @@ export async function upsertAssumptions(knex: Knex, buildId: string, a: StoredAs
 }
 
 /** The build's parts that carry a rating and have not been sent back, as estimator components. */
-export async function listRatedParts(knex: Knex, buildId: string): Promise<EstimateComponent[]> {
+export type RatedPart = EstimateComponent & { shopUserId: string | null };
+
+export async function listRatedParts(knex: Knex, buildId: string): Promise<RatedPart[]> {
   const rows: {
     id: string;
     name: string;
@@ -83,13 +85,23 @@ export async function listRatedParts(knex: Knex, buildId: string): Promise<Estim
     rating_value: number;
     rating_unit: RatingUnit;
     rating_for: string;
+    shop_user_id: string | null;
   }[] = await knex('parts')
     .where({ build_id: buildId })
     .whereNot({ status: 'returned' })
     .whereNotNull('rating_value')
     .whereNotNull('rating_unit')
     .orderBy([{ column: 'category' }, { column: 'name' }, { column: 'id' }])
-    .select('id', 'name', 'category', 'quantity', 'rating_value', 'rating_unit', 'rating_for');
+    .select(
+      'id',
+      'name',
+      'category',
+      'quantity',
+      'rating_value',
+      'rating_unit',
+      'rating_for',
+      'shop_user_id',
+    );
   return rows.map((r) => ({
     id: r.id,
     name: r.name,
@@ -98,5 +110,6 @@ export async function listRatedParts(knex: Knex, buildId: string): Promise<Estim
     ratingValue: r.rating_value,
     ratingUnit: r.rating_unit,
     ...(r.rating_for ? { ratingFor: r.rating_for } : {}),
+    shopUserId: r.shop_user_id,
   }));
 }

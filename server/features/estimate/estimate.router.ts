@@ -34,7 +34,9 @@ export function buildEstimateRouter({ db }: AppDeps) {
   const knex = db.knex;
 
   router.get('/estimate', buildAccess(knex, 'estimate:read'), async (req, res) => {
-    res.json({ estimate: await service.estimateBuild(knex, req.membership!.buildId) });
+    const { buildId, role } = req.membership!;
+    const viewer = role === 'shop' ? { shopUserId: req.user!.id } : {};
+    res.json({ estimate: await service.estimateBuild(knex, buildId, viewer) });
   });
   router.get('/assumptions', buildAccess(knex, 'estimate:read'), async (req, res) => {
     res.json(await service.getAssumptions(knex, req.membership!.buildId));

@@ -4,10 +4,12 @@ import {
   assumptionsInputSchema,
   type Assumptions,
   type AssumptionsResponse,
+  type EstimateComponent,
   type EstimateInput,
   type EstimateResult,
 } from '../../../shared/schemas/estimate';
 import { convertBsfc } from '../../../shared/units/convert';
+import { partCategoryLabels } from '../../../shared/schemas/parts';
 import { NotFoundError } from '../../lib/errors';
 import * as repo from './estimate.repository';
 
@@ -70,16 +72,46 @@ export function estimateStateless(input: EstimateInput): EstimateResult {
 }
 
 /**
+ * A shop sees only the parts sent to it (product.md). It still reads the
+ * build's estimate — the limits its work must fit — but every other part is
+ * anonymised before the computation, so no name or id of it reaches the
+ * shop, in the figures or in the warnings' words.
+ */
+export function anonymiseForShop(parts: repo.RatedPart[], shopUserId: string): EstimateComponent[] {
+  const seen = new Map<string, number>();
+  return parts.map(({ shopUserId: sentTo, ...part }) => {
+    if (sentTo === shopUserId) return part;
+    const n = (seen.get(part.category) ?? 0) + 1;
+    seen.set(part.category, n);
+    const label = partCategoryLabels[part.category].toLowerCase();
+    return {
+      ...part,
+      id: `other-${part.category}-${n}`,
+      name: `Another part (${label}${n > 1 ? ` ${n}` : ''})`,
+      ratingFor: undefined,
+    };
+  });
+}
+
+/**
  * A stored build's estimate: its target and cylinders, its saved assumptions
  * (or the defaults) and its rated parts that have not been sent back.
+ * viewer.shopUserId set: the caller is a shop member (see anonymiseForShop).
  */
-export async function estimateBuild(knex: Knex, buildId: string): Promise<EstimateResult> {
-  const [target, saved, components] = await Promise.all([
+export async function estimateBuild(
+  knex: Knex,
+  buildId: string,
+  viewer: { shopUserId?: string } = {},
+): Promise<EstimateResult> {
+  const [target, saved, parts] = await Promise.all([
     repo.findBuildTarget(knex, buildId),
     getAssumptions(knex, buildId),
     repo.listRatedParts(knex, buildId),
   ]);
   if (!target) throw new NotFoundError('Build not found');
+  const components = viewer.shopUserId
+    ? anonymiseForShop(parts, viewer.shopUserId)
+    : parts.map(({ shopUserId: _sentTo, ...part }) => part);
   return estimate({
     target: { powerHp: target.powerHp, basis: target.basis, torqueLbft: target.torqueLbft },
     assumptions: { ...saved.assumptions, cylinders: target.cylinders },

@@ -1,5 +1,5 @@
 import { Suspense } from 'react';
-import { Link, Outlet, useLocation } from 'react-router-dom';
+import { Link, Outlet, ScrollRestoration, useLocation } from 'react-router-dom';
 import { LogOut, UserRound } from 'lucide-react';
 import { useMe } from '../../features/auth/api/get-me';
 import { useSignOut } from '../../features/auth/api/sign-out';
@@ -24,9 +24,13 @@ function SignOutButton() {
   );
 }
 
+/** After signing in from the header, an invitation or a build page is where to come back to. */
+const comesBackTo = (pathname: string) =>
+  pathname.startsWith('/invite/') || pathname.startsWith(paths.builds.list.path);
+
 function Header() {
   const me = useMe();
-  const { pathname } = useLocation();
+  const { pathname, search } = useLocation();
   // The landing and auth pages carry their own sign-in links; one per page is enough.
   const hideSignIn =
     pathname === paths.home.path ||
@@ -59,7 +63,11 @@ function Header() {
         ) : (
           !hideSignIn &&
           !me.isPending && (
-            <ButtonLink to={paths.auth.signIn.getHref()} variant="on-ink" size="sm">
+            <ButtonLink
+              to={paths.auth.signIn.getHref(comesBackTo(pathname) ? pathname + search : undefined)}
+              variant="on-ink"
+              size="sm"
+            >
               Sign in
             </ButtonLink>
           )
@@ -73,6 +81,7 @@ function Header() {
 export function RootLayout() {
   return (
     <div className="flex min-h-dvh flex-col">
+      <ScrollRestoration />
       <a
         href="#main"
         className="sr-only z-50 rounded bg-white px-3 py-2 text-ink focus:not-sr-only focus:absolute focus:top-2 focus:left-2"

@@ -227,6 +227,12 @@ function EstimatePage({
         </Section>
 
         <Caution />
+        {role === 'shop' && (
+          <p className="text-sm text-muted" data-testid="estimate-shop-note">
+            Parts not sent to you are shown by category only, as “Another part”; their ratings still
+            count in every figure.
+          </p>
+        )}
 
         <Section
           id="warnings"
