@@ -408,7 +408,7 @@ export async function seedDemo(knex: Knex, opts: { storage?: Storage } = {}) {
       target_torque_lbft: null,
       target_date: day(171),
       target_event: 'Coyote Flats spring dyno day',
-      budget_cents: 1_850_000,
+      budget_cents: 2_950_000,
       currency: 'USD',
     })
     .returning('id');
