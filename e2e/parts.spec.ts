@@ -1,4 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
+import sharp from 'sharp';
 import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
 
 type NewPart = { name: string; category: string; status: string; price: string };
@@ -107,6 +108,23 @@ test('the owner builds a ledger, moves a part in its row and the budget follows;
       .getByRole('cell')
       .nth(3),
   ).toHaveText('$2,650.00');
+
+  // A photo of the part itself, from its edit dialog (a plain drawn square, nothing real).
+  await sections.getByRole('link', { name: 'Parts' }).click();
+  await page.getByRole('button', { name: 'Edit Injector set, stage 2' }).first().click();
+  const edit = page.getByRole('dialog', { name: 'Edit Injector set, stage 2' });
+  await edit.getByLabel('Add photos').setInputFiles({
+    name: 'injectors.png',
+    mimeType: 'image/png',
+    buffer: await sharp({
+      create: { width: 96, height: 64, channels: 3, background: { r: 90, g: 80, b: 120 } },
+    })
+      .png()
+      .toBuffer(),
+  });
+  await edit.getByRole('button', { name: 'Upload 1 photo' }).click();
+  await expect(edit.getByText('Photo added.')).toBeVisible();
+  await expect(edit.getByRole('list', { name: 'Photos of this part' })).toBeVisible();
   await ownerContext.close();
 
   // The crew member reads the same ledger without a single amount of money.

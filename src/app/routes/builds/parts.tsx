@@ -24,6 +24,8 @@ import { PartForm } from '../../../features/parts/components/part-form';
 import type { LedgerActions } from '../../../features/parts/components/parts-columns';
 import { PartsLedger } from '../../../features/parts/components/parts-ledger';
 import { statusChange } from '../../../features/parts/lib/status';
+import { useUser } from '../../../lib/auth';
+import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { BuildLoadError } from './build-states';
 
 type Editing = { mode: 'create' } | { mode: 'edit' | 'progress'; part: Part } | null;
@@ -52,6 +54,7 @@ function PartsPage({ build }: { build: Build }) {
   const canDelete = can(role, 'parts:delete');
   const canImport = can(role, 'parts:import');
   const members = useMembers(build.id);
+  const me = useUser();
 
   const [editing, setEditing] = useState<Editing>(null);
   const [deleting, setDeleting] = useState<Part | null>(null);
@@ -253,6 +256,20 @@ function PartsPage({ build }: { build: Build }) {
             onSubmit={save}
             onCancel={() => setEditing(null)}
           />
+        )}
+        {editingPart && (
+          <div className="mt-5">
+            <AttachedPhotos
+              bare
+              buildId={build.id}
+              target={{ partId: editingPart.id }}
+              canUpload={can(role, 'photos:upload')}
+              canCaption={(photo) =>
+                can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id)
+              }
+              canDelete={can(role, 'photos:delete')}
+            />
+          </div>
         )}
       </Modal>
 

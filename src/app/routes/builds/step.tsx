@@ -29,7 +29,7 @@ import { SheetDialog } from '../../../features/install-log/components/sheet-dial
 import { SignOffPanel } from '../../../features/install-log/components/sign-off-panel';
 import { StepStatusBadge } from '../../../features/install-log/components/step-status';
 import { when } from '../../../features/install-log/lib/format';
-import { StepPhotos } from '../../../features/photos/components/step-photos';
+import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/install/steps/:stepId" — one step, made for a phone in the garage. */
@@ -241,9 +241,9 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
 
         <SignOffPanel step={step} canSignOff={canWrite} canOverride={isOwner} />
 
-        <StepPhotos
+        <AttachedPhotos
           buildId={build.id}
-          stepId={step.id}
+          target={{ stepId: step.id }}
           canUpload={can(role, 'photos:upload') && role !== 'shop'}
           canCaption={canCaption}
           canDelete={can(role, 'photos:delete')}

@@ -41,8 +41,11 @@ export function EstimateSummary({ result }: { result: EstimateResult }) {
         <p className="mt-1.5 flex flex-wrap items-center gap-x-2 gap-y-1 text-ink-2">
           <StatusBadge status={part.status} />
           <span>
-            {part.name} ({partCategoryLabels[part.category]}): rated{' '}
-            {formatFigure(part.capacity.value, part.capacity.unit)}, needs{' '}
+            {part.name}
+            {part.name.toLowerCase().includes(partCategoryLabels[part.category].toLowerCase())
+              ? ''
+              : ` (${partCategoryLabels[part.category]})`}
+            : rated {formatFigure(part.capacity.value, part.capacity.unit)}, needs{' '}
             {formatFigure(part.requirement.value, part.requirement.unit)}.
           </span>
         </p>

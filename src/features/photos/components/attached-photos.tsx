@@ -1,32 +1,43 @@
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { Camera } from 'lucide-react';
 import type { Photo } from '../../../../shared/schemas/photos';
 import { Spinner } from '../../../components/ui/spinner';
-import { useStepPhotos } from '../api/get-step-photos';
+import { useAttachedPhotos } from '../api/get-attached-photos';
+import type { PhotoTarget } from '../api/upload-photo';
 import { PhotoGrid } from './photo-grid';
 import { PhotoUploader } from './photo-uploader';
 import { PhotoViewer } from './photo-viewer';
 
-/** A step's photos: the uploader for those who may add, and the step's gallery. */
-export function StepPhotos({
+/**
+ * The photos of a step or a part: the uploader for those who may add, and the gallery.
+ * `bare` drops the card frame, for use inside a dialog.
+ */
+export function AttachedPhotos({
   buildId,
-  stepId,
+  target,
   canUpload,
   canCaption,
   canDelete,
+  bare = false,
 }: {
   buildId: string;
-  stepId: string;
+  target: PhotoTarget;
   canUpload: boolean;
   canCaption: (photo: Photo) => boolean;
   canDelete: boolean;
+  bare?: boolean;
 }) {
-  const photos = useStepPhotos(buildId, stepId);
+  const photos = useAttachedPhotos(buildId, target);
   const [open, setOpen] = useState<number | null>(null);
+  const titleId = useId();
+  const of = 'stepId' in target ? 'this step' : 'this part';
   return (
-    <section aria-labelledby="step-photos-title" className="rounded-lg border border-rule bg-sheet">
+    <section
+      aria-labelledby={titleId}
+      className={bare ? 'border-t border-rule pt-2' : 'rounded-lg border border-rule bg-sheet'}
+    >
       <h2
-        id="step-photos-title"
+        id={titleId}
         className="flex items-center gap-2 border-b border-rule px-4 py-2.5 text-lg font-bold sm:px-5"
       >
         <Camera aria-hidden className="size-5 text-ink-3" />
@@ -36,7 +47,7 @@ export function StepPhotos({
         )}
       </h2>
       <div className="flex flex-col gap-4 px-4 py-4 sm:px-5">
-        {canUpload && <PhotoUploader buildId={buildId} target={{ stepId }} />}
+        {canUpload && <PhotoUploader buildId={buildId} target={target} />}
         {photos.isPending ? (
           <p role="status" className="flex items-center gap-2 text-muted">
             <Spinner className="size-5" /> Loading the photos…
@@ -47,11 +58,11 @@ export function StepPhotos({
           </p>
         ) : photos.data.length === 0 ? (
           <p className="text-muted">
-            No photos of this step yet.
+            No photos of {of} yet.
             {canUpload && ' Before and after shots help with warranty claims.'}
           </p>
         ) : (
-          <PhotoGrid label="Photos of this step" photos={photos.data} onOpen={setOpen} />
+          <PhotoGrid label={`Photos of ${of}`} photos={photos.data} onOpen={setOpen} />
         )}
       </div>
       <PhotoViewer
