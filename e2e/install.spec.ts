@@ -213,3 +213,33 @@ test('at phone width the crew records torque (one out of spec, then corrected) a
   await expect(jobCard.getByText(/Signed off by Marisol Okafor/)).toBeVisible();
   await ownerContext.close();
 });
+
+test('the owner renames a job and changes its notes', async ({ browser }) => {
+  const context = await browser.newContext({ viewport: phone, hasTouch: true });
+  const owner = await context.newPage();
+  await signUpThroughPage(owner, 'Marisol Okafor', uniqueEmail('owner'));
+  const { build } = await call<{ build: { id: string } }>(owner, 'post', '/api/builds', {
+    name: 'Typo Truck',
+    cylinders: 8,
+    aspiration: 'naturally-aspirated',
+    targetPowerHp: 450,
+    targetPowerBasis: 'crank',
+  });
+  await call(owner, 'post', `/api/builds/${build.id}/jobs`, { title: 'Fit the injecters' });
+
+  await owner.goto(`/builds/${build.id}/install`);
+  const card = owner.getByRole('region', { name: 'Fit the injecters' });
+  const edit = card.getByRole('button', { name: 'Edit the job “Fit the injecters”' });
+  expect((await edit.boundingBox())!.height).toBeGreaterThanOrEqual(44);
+  await edit.click();
+  const dialog = owner.getByRole('dialog', { name: 'Edit the job' });
+  await dialog.getByLabel('Job name').fill('Fit the injectors');
+  await dialog.getByLabel('Notes').fill('Bench sheet in the blue folder');
+  await dialog.getByRole('button', { name: 'Save the job' }).click();
+
+  await expect(dialog).toBeHidden();
+  const renamed = owner.getByRole('region', { name: 'Fit the injectors' });
+  await expect(renamed.getByText('Bench sheet in the blue folder')).toBeVisible();
+  await expect(owner.getByRole('region', { name: 'Fit the injecters' })).toHaveCount(0);
+  await context.close();
+});

@@ -8,14 +8,17 @@ import type { Job, Person } from '../../../../shared/schemas/install-log';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { EmptyState, ErrorState } from '../../../components/ui/states';
 import { useBuild } from '../../../features/builds/api/get-build';
 import { useCreateJob } from '../../../features/install-log/api/create-job';
 import { useCreateStep } from '../../../features/install-log/api/create-step';
+import { useDeleteJob } from '../../../features/install-log/api/delete-job';
 import { useJobs } from '../../../features/install-log/api/get-jobs';
 import { useRetorqueChecks } from '../../../features/install-log/api/get-retorque-checks';
 import { getStepQueryOptions } from '../../../features/install-log/api/get-step';
+import { useUpdateJob } from '../../../features/install-log/api/update-job';
 import { JobCard } from '../../../features/install-log/components/job-card';
 import { JobForm } from '../../../features/install-log/components/job-form';
 import { RetorqueChecks } from '../../../features/install-log/components/retorque-checks';
@@ -60,9 +63,14 @@ function InstallPage({ build }: { build: Build }) {
   const checks = useRetorqueChecks(build.id, 'open');
   const createJob = useCreateJob();
   const createStep = useCreateStep();
+  const updateJob = useUpdateJob();
+  const deleteJob = useDeleteJob();
   const canWrite = can(build.myRole, 'install:write');
+  const canDelete = can(build.myRole, 'install:delete');
   const [addingJob, setAddingJob] = useState(false);
   const [addingStepTo, setAddingStepTo] = useState<Job | null>(null);
+  const [editingJob, setEditingJob] = useState<Job | null>(null);
+  const [deletingJob, setDeletingJob] = useState<Job | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const parts = useQuery({ ...getPartsQueryOptions(build.id), enabled: addingStepTo !== null });
   const signedOffBy = useSignedOffBy(build.id, jobs.data);
@@ -130,6 +138,23 @@ function InstallPage({ build }: { build: Build }) {
                   }
                 : undefined
             }
+            onEdit={
+              canWrite
+                ? () => {
+                    setNotice(null);
+                    setEditingJob(job);
+                  }
+                : undefined
+            }
+            onDelete={
+              canDelete
+                ? () => {
+                    setNotice(null);
+                    deleteJob.reset();
+                    setDeletingJob(job);
+                  }
+                : undefined
+            }
           />
         ))}
       </div>
@@ -186,6 +211,68 @@ function InstallPage({ build }: { build: Build }) {
           }}
         />
       </SheetDialog>
+
+      <SheetDialog
+        open={editingJob !== null}
+        title="Edit the job"
+        description={editingJob ? `“${editingJob.title}”` : undefined}
+        onClose={() => setEditingJob(null)}
+        busy={updateJob.isPending}
+      >
+        {editingJob && (
+          <JobForm
+            job={editingJob}
+            submitLabel="Save the job"
+            onCancel={() => setEditingJob(null)}
+            onSubmit={async (input) => {
+              const job = await updateJob.mutateAsync({
+                buildId: build.id,
+                jobId: editingJob.id,
+                input,
+              });
+              setEditingJob(null);
+              setNotice(`Saved the job “${job.title}”.`);
+            }}
+          />
+        )}
+      </SheetDialog>
+
+      <ConfirmDialog
+        open={deletingJob !== null}
+        title="Delete this job?"
+        confirmLabel="Delete the job"
+        pending={deleteJob.isPending}
+        onClose={() => setDeletingJob(null)}
+        onConfirm={() => {
+          if (!deletingJob) return;
+          const title = deletingJob.title;
+          deleteJob.mutate(
+            { buildId: build.id, jobId: deletingJob.id },
+            {
+              onSuccess: () => {
+                setDeletingJob(null);
+                setNotice(`Deleted the job “${title}”.`);
+              },
+            },
+          );
+        }}
+      >
+        {deletingJob && deletingJob.steps.length > 0 ? (
+          <>
+            “{deletingJob.title}” goes with{' '}
+            {deletingJob.steps.length === 1 ? 'its step' : `its ${deletingJob.steps.length} steps`}{' '}
+            and everything on them: checklists, torque specs, readings and photos. This cannot be
+            undone.
+          </>
+        ) : (
+          <>“{deletingJob?.title}” has no steps yet. This cannot be undone.</>
+        )}
+        {deleteJob.isError && (
+          <p role="alert" className="mt-2 font-semibold text-over">
+            {deleteJob.error.message}
+          </p>
+        )}
+      </ConfirmDialog>
 
       <SheetDialog
         open={addingStepTo !== null}

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { ChevronRight, Plus } from 'lucide-react';
+import { ChevronRight, Pencil, Plus, Trash2 } from 'lucide-react';
 import type { Job, Person, StepSummary } from '../../../../shared/schemas/install-log';
 import { paths } from '../../../config/paths';
 import { Button } from '../../../components/ui/button';
@@ -49,18 +49,25 @@ function StepRow({
   );
 }
 
-/** One job with its steps in order, each step a link to its page. */
+/**
+ * One job with its steps in order, each step a link to its page. The actions show only
+ * when given (the page passes those the member's role allows).
+ */
 export function JobCard({
   buildId,
   job,
   signedOffBy,
   onAddStep,
+  onEdit,
+  onDelete,
 }: {
   buildId: string;
   job: Job;
   /** Who signed off each signed-off step, when known. */
   signedOffBy: Map<string, Person | null>;
   onAddStep?: () => void;
+  onEdit?: () => void;
+  onDelete?: () => void;
 }) {
   const done = job.steps.filter((s) => s.status === 'signed-off').length;
   const headingId = `job-${job.id}`;
@@ -80,17 +87,43 @@ export function JobCard({
             <p className="mt-1.5 text-[15px] whitespace-pre-line text-ink-2">{job.notes}</p>
           )}
         </div>
-        {onAddStep && (
-          <Button
-            variant="secondary"
-            size="sm"
-            className="min-h-12!"
-            icon={<Plus aria-hidden className="size-5" />}
-            onClick={onAddStep}
-          >
-            Add step
-            <span className="sr-only"> to {job.title}</span>
-          </Button>
+        {(onAddStep || onEdit || onDelete) && (
+          <div className="flex flex-wrap items-center gap-2">
+            {onAddStep && (
+              <Button
+                variant="secondary"
+                size="sm"
+                className="min-h-12!"
+                icon={<Plus aria-hidden className="size-5" />}
+                onClick={onAddStep}
+              >
+                Add step
+                <span className="sr-only"> to {job.title}</span>
+              </Button>
+            )}
+            {onEdit && (
+              <Button
+                variant="ghost"
+                size="sm"
+                className="min-h-12!"
+                icon={<Pencil aria-hidden className="size-4" />}
+                onClick={onEdit}
+              >
+                Edit
+                <span className="sr-only"> the job “{job.title}”</span>
+              </Button>
+            )}
+            {onDelete && (
+              <button
+                type="button"
+                onClick={onDelete}
+                aria-label={`Delete the job “${job.title}”`}
+                className="inline-flex size-12 shrink-0 items-center justify-center rounded-md text-muted hover:bg-over-soft hover:text-over"
+              >
+                <Trash2 aria-hidden className="size-5" />
+              </button>
+            )}
+          </div>
         )}
       </div>
       {job.steps.length > 0 ? (

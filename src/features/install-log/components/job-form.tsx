@@ -1,7 +1,7 @@
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { createJobInputSchema } from '../../../../shared/schemas/install-log';
+import { createJobInputSchema, type Job } from '../../../../shared/schemas/install-log';
 import { Button } from '../../../components/ui/button';
 import { FormError } from '../../../components/ui/form-error';
 import { FormField, TextArea, TextInput } from '../../../components/ui/form-field';
@@ -11,10 +11,18 @@ type Input = z.input<typeof createJobInputSchema>;
 type Values = z.output<typeof createJobInputSchema>;
 const fieldNames: Path<Input>[] = ['title', 'notes'];
 
+/**
+ * A new job, or an existing one to rename (`job` given). An edit sends both fields, which
+ * the server's partial update schema accepts as well.
+ */
 export function JobForm({
+  job,
+  submitLabel = 'Add job',
   onSubmit,
   onCancel,
 }: {
+  job?: Pick<Job, 'title' | 'notes'>;
+  submitLabel?: string;
   onSubmit: (values: Values) => Promise<unknown>;
   onCancel: () => void;
 }) {
@@ -25,7 +33,7 @@ export function JobForm({
     formState: { errors, isSubmitting },
   } = useForm<Input, unknown, Values>({
     resolver: zodResolver(createJobInputSchema),
-    defaultValues: { title: '', notes: '' },
+    defaultValues: { title: job?.title ?? '', notes: job?.notes ?? '' },
   });
   const submit = handleSubmit(async (values) => {
     try {
@@ -52,7 +60,7 @@ export function JobForm({
           Cancel
         </Button>
         <Button type="submit" className="min-h-12!" pending={isSubmitting}>
-          Add job
+          {submitLabel}
         </Button>
       </div>
     </form>
