@@ -1,6 +1,15 @@
 import { useEffect, useState } from 'react';
-import { useLocation, useParams } from 'react-router-dom';
-import { ChevronLeft, ChevronRight, Plus, Ruler } from 'lucide-react';
+import { useLocation, useNavigate, useParams } from 'react-router-dom';
+import {
+  ArrowDown,
+  ArrowUp,
+  ChevronLeft,
+  ChevronRight,
+  Pencil,
+  Plus,
+  Ruler,
+  Trash2,
+} from 'lucide-react';
 import { can } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { FastenerSpec, Step } from '../../../../shared/schemas/install-log';
@@ -17,8 +26,10 @@ import { useUser } from '../../../lib/auth';
 import { useBuild } from '../../../features/builds/api/get-build';
 import { useCreateFastener } from '../../../features/install-log/api/create-fastener';
 import { useDeleteFastener } from '../../../features/install-log/api/delete-fastener';
+import { useDeleteStep } from '../../../features/install-log/api/delete-step';
 import { useJobs } from '../../../features/install-log/api/get-jobs';
 import { useStep } from '../../../features/install-log/api/get-step';
+import { useUpdateFastener } from '../../../features/install-log/api/update-fastener';
 import { useUpdateStep } from '../../../features/install-log/api/update-step';
 import { CautionList } from '../../../features/install-log/components/cautions';
 import { Checklist } from '../../../features/install-log/components/checklist';
@@ -27,6 +38,7 @@ import { FastenerForm } from '../../../features/install-log/components/fastener-
 import { LinkedParts } from '../../../features/install-log/components/linked-parts';
 import { SheetDialog } from '../../../features/install-log/components/sheet-dialog';
 import { SignOffPanel } from '../../../features/install-log/components/sign-off-panel';
+import { StepForm } from '../../../features/install-log/components/step-form';
 import { StepStatusBadge } from '../../../features/install-log/components/step-status';
 import { when } from '../../../features/install-log/lib/format';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
@@ -101,11 +113,21 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
   useScrollOnOpen(step.id);
   const me = useUser();
   const jobs = useJobs(build.id);
+  const navigate = useNavigate();
   const updateStep = useUpdateStep();
+  // Separate mutations, so each shows its own progress and error.
+  const editStep = useUpdateStep();
+  const moveStep = useUpdateStep();
+  const deleteStep = useDeleteStep();
   const createFastener = useCreateFastener();
+  const updateFastener = useUpdateFastener();
   const deleteFastener = useDeleteFastener();
   const [addingSpec, setAddingSpec] = useState(false);
+  const [editingSpec, setEditingSpec] = useState<FastenerSpec | null>(null);
   const [deletingSpec, setDeletingSpec] = useState<FastenerSpec | null>(null);
+  const [editingStep, setEditingStep] = useState(false);
+  const [confirmingDelete, setConfirmingDelete] = useState(false);
+  const [moved, setMoved] = useState('');
 
   const role = build.myRole;
   const canWrite = can(role, 'install:write');
@@ -118,6 +140,16 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
   const index = job?.steps.findIndex((s) => s.id === step.id) ?? -1;
   const prev = job && index > 0 ? job.steps[index - 1] : undefined;
   const next = job && index >= 0 && index < job.steps.length - 1 ? job.steps[index + 1] : undefined;
+  // Moving needs the job's step count, and another step to swap with.
+  const stepCount = job && index >= 0 ? job.steps.length : 0;
+
+  function move(position: number) {
+    setMoved('');
+    moveStep.mutate(
+      { buildId: build.id, stepId: step.id, input: { position } },
+      { onSuccess: (s) => setMoved(`Moved to step ${s.position} of ${stepCount}.`) },
+    );
+  }
 
   const canCaption = (photo: Photo) =>
     can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id);
@@ -226,6 +258,14 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
                 buildId={build.id}
                 spec={spec}
                 mode={fastenerMode(step, spec, canWrite)}
+                onEdit={
+                  editable
+                    ? () => {
+                        updateFastener.reset();
+                        setEditingSpec(spec);
+                      }
+                    : undefined
+                }
                 onDelete={
                   canDelete && !locked
                     ? () => {
@@ -248,6 +288,68 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
           canCaption={canCaption}
           canDelete={can(role, 'photos:delete')}
         />
+
+        {(canWrite || canDelete) && (
+          <section
+            aria-labelledby="change-step-title"
+            className="flex flex-col gap-3 rounded-lg border border-rule bg-sheet px-4 py-3 sm:px-5"
+          >
+            <h2 id="change-step-title" className="text-lg font-bold">
+              Change this step
+            </h2>
+            <div className="flex flex-wrap gap-2">
+              {canWrite && (
+                <Button
+                  variant="secondary"
+                  className="min-h-12!"
+                  icon={<Pencil aria-hidden className="size-5" />}
+                  onClick={() => setEditingStep(true)}
+                >
+                  Edit name and what to do
+                </Button>
+              )}
+              {canWrite && stepCount > 1 && (
+                <>
+                  <Button
+                    variant="secondary"
+                    className="min-h-12!"
+                    icon={<ArrowUp aria-hidden className="size-5" />}
+                    disabled={step.position <= 1 || moveStep.isPending}
+                    onClick={() => move(step.position - 1)}
+                  >
+                    Move earlier
+                  </Button>
+                  <Button
+                    variant="secondary"
+                    className="min-h-12!"
+                    icon={<ArrowDown aria-hidden className="size-5" />}
+                    disabled={step.position >= stepCount || moveStep.isPending}
+                    onClick={() => move(step.position + 1)}
+                  >
+                    Move later
+                  </Button>
+                </>
+              )}
+              {canDelete && (
+                <Button
+                  variant="secondary"
+                  className="min-h-12! text-over!"
+                  icon={<Trash2 aria-hidden className="size-5" />}
+                  onClick={() => {
+                    deleteStep.reset();
+                    setConfirmingDelete(true);
+                  }}
+                >
+                  Delete this step
+                </Button>
+              )}
+            </div>
+            <p role="status" className="text-[15px] text-ink-2 empty:hidden">
+              {moved}
+            </p>
+            {moveStep.isError && <Alert tone="error">{moveStep.error.message}</Alert>}
+          </section>
+        )}
 
         {(prev || next) && (
           <nav aria-label="Other steps of this job" className="grid grid-cols-2 gap-2">
@@ -298,6 +400,78 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
           }}
         />
       </SheetDialog>
+
+      <SheetDialog
+        open={editingSpec !== null}
+        title="Edit the fastener spec"
+        description={editingSpec?.name}
+        onClose={() => setEditingSpec(null)}
+        busy={updateFastener.isPending}
+      >
+        {editingSpec && (
+          <FastenerForm
+            spec={editingSpec}
+            canOverride={isOwner}
+            onCancel={() => setEditingSpec(null)}
+            onSubmit={async (input) => {
+              await updateFastener.mutateAsync({
+                buildId: build.id,
+                specId: editingSpec.id,
+                input,
+              });
+              setEditingSpec(null);
+            }}
+          />
+        )}
+      </SheetDialog>
+
+      <SheetDialog
+        open={editingStep}
+        title="Edit the step"
+        description={job?.title}
+        onClose={() => setEditingStep(false)}
+        busy={editStep.isPending}
+      >
+        {editingStep && (
+          <StepForm
+            step={step}
+            parts={undefined}
+            submitLabel="Save the step"
+            onCancel={() => setEditingStep(false)}
+            onSubmit={async (input) => {
+              await editStep.mutateAsync({ buildId: build.id, stepId: step.id, input });
+              setEditingStep(false);
+            }}
+          />
+        )}
+      </SheetDialog>
+
+      <ConfirmDialog
+        open={confirmingDelete}
+        title="Delete this step?"
+        confirmLabel="Delete the step"
+        pending={deleteStep.isPending}
+        onClose={() => setConfirmingDelete(false)}
+        onConfirm={() =>
+          deleteStep.mutate(
+            { buildId: build.id, stepId: step.id },
+            {
+              onSuccess: () => {
+                setConfirmingDelete(false);
+                void navigate(paths.builds.install.getHref(build.id), { replace: true });
+              },
+            },
+          )
+        }
+      >
+        “{step.title}” goes with its checklist, torque specs, readings and photos
+        {locked ? ', and its sign-off' : ''}. This cannot be undone.
+        {deleteStep.isError && (
+          <p role="alert" className="mt-2 font-semibold text-over">
+            {deleteStep.error.message}
+          </p>
+        )}
+      </ConfirmDialog>
 
       <ConfirmDialog
         open={deletingSpec !== null}

@@ -1,5 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
-import { BookOpen, ChevronDown, History, RotateCcw, Trash2 } from 'lucide-react';
+import { BookOpen, ChevronDown, History, Pencil, RotateCcw, Trash2 } from 'lucide-react';
 import {
   threadConditionLabels,
   type FastenerPosition,
@@ -226,11 +226,13 @@ export function FastenerCard({
   buildId,
   spec,
   mode,
+  onEdit,
   onDelete,
 }: {
   buildId: string;
   spec: FastenerSpec;
   mode: Mode;
+  onEdit?: () => void;
   onDelete?: () => void;
 }) {
   const headingId = useId();
@@ -268,15 +270,29 @@ export function FastenerCard({
             {spec.name}
             <span className="ml-1.5 font-semibold text-muted">× {spec.count}</span>
           </h3>
-          {onDelete && (
-            <button
-              type="button"
-              onClick={onDelete}
-              aria-label={`Delete the spec “${spec.name}”`}
-              className="-mt-1 -mr-2 inline-flex size-12 shrink-0 items-center justify-center rounded-md text-muted hover:bg-over-soft hover:text-over"
-            >
-              <Trash2 aria-hidden className="size-5" />
-            </button>
+          {(onEdit || onDelete) && (
+            <div className="-mt-1 -mr-2 flex shrink-0">
+              {onEdit && (
+                <button
+                  type="button"
+                  onClick={onEdit}
+                  aria-label={`Edit the spec “${spec.name}”`}
+                  className="inline-flex size-12 items-center justify-center rounded-md text-muted hover:bg-ink/5 hover:text-ink"
+                >
+                  <Pencil aria-hidden className="size-5" />
+                </button>
+              )}
+              {onDelete && (
+                <button
+                  type="button"
+                  onClick={onDelete}
+                  aria-label={`Delete the spec “${spec.name}”`}
+                  className="inline-flex size-12 items-center justify-center rounded-md text-muted hover:bg-over-soft hover:text-over"
+                >
+                  <Trash2 aria-hidden className="size-5" />
+                </button>
+              )}
+            </div>
           )}
         </div>
         <p className="mt-1 flex flex-wrap items-baseline gap-x-2 tabular-nums">

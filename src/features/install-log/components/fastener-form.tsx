@@ -7,6 +7,10 @@ import {
   threadConditionLabels,
   threadConditions,
   toleranceTypeLabels,
+  torqueDefiningFields,
+  type CreateFastenerSpecInput,
+  type FastenerSpec,
+  type UpdateFastenerSpecInput,
 } from '../../../../shared/schemas/install-log';
 import { toleranceTypes, torqueUnits } from '../../../../shared/install-log/torque';
 import { Alert } from '../../../components/ui/alert';
@@ -14,7 +18,7 @@ import { Button } from '../../../components/ui/button';
 import { FormError } from '../../../components/ui/form-error';
 import { FormField, SelectInput, TextArea, TextInput } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
-import { parseDecimal, parseDecimalOrNull, unitLabel } from '../lib/format';
+import { parseDecimal, parseDecimalOrNull, targetText, unitLabel } from '../lib/format';
 
 // The server's schema, plus the cross-field checks it runs (tolerance below the target,
 // stages below the final torque), so the form says so before it sends.
@@ -43,13 +47,55 @@ function toIntOrNull(value: unknown): number | null {
   return parseDecimalOrNull(value);
 }
 
-export function FastenerForm({
-  onSubmit,
-  onCancel,
-}: {
-  onSubmit: (values: Values) => Promise<unknown>;
+/** Any reading recorded against the spec, current, re-check or replaced. */
+function hasReadings(spec: FastenerSpec): boolean {
+  return spec.positions.some((p) => p.current || p.retorque || p.supersededCount > 0);
+}
+
+/** A spec as the form holds it (only the fields the form edits: the schemas are strict). */
+function specToFormValues(spec: FastenerSpec): Input {
+  return {
+    name: spec.name,
+    count: spec.count,
+    targetValue: spec.targetValue,
+    targetUnit: spec.targetUnit,
+    toleranceType: spec.toleranceType,
+    toleranceValue: spec.toleranceValue,
+    // The box shows "15,25"; toStages reads it back the same way.
+    stages: spec.stages,
+    finalAngleDeg: spec.finalAngleDeg,
+    threadCondition: spec.threadCondition,
+    sequenceNote: spec.sequenceNote,
+    specSource: spec.specSource,
+    retorqueAfterHeatCycles: spec.retorqueAfterHeatCycles,
+    retorqueAfterMiles: spec.retorqueAfterMiles,
+  };
+}
+
+type FastenerFormProps = {
   onCancel: () => void;
-}) {
+} & (
+  | {
+      spec?: undefined;
+      onSubmit: (values: CreateFastenerSpecInput) => Promise<unknown>;
+    }
+  | {
+      /** The spec to edit; the form opens filled from it. */
+      spec: FastenerSpec;
+      /**
+       * The owner may change the target and tolerance under recorded readings (their
+       * verdicts change with it); for anyone else the server refuses, so the form locks them.
+       */
+      canOverride: boolean;
+      onSubmit: (values: UpdateFastenerSpecInput) => Promise<unknown>;
+    }
+);
+
+/** A new fastener spec, or (with `spec`) an edit of one, sending every field it shows. */
+export function FastenerForm(props: FastenerFormProps) {
+  const { spec, onCancel } = props;
+  const read = spec ? hasReadings(spec) : false;
+  const torqueLocked = props.spec !== undefined && read && !props.canOverride;
   const {
     register,
     handleSubmit,
@@ -58,24 +104,85 @@ export function FastenerForm({
     formState: { errors, isSubmitting },
   } = useForm<Input, unknown, Values>({
     resolver: zodResolver(schema),
-    defaultValues: {
-      name: '',
-      targetUnit: 'lbf-ft',
-      toleranceType: 'percent',
-      sequenceNote: '',
-      specSource: '',
-    },
+    defaultValues: spec
+      ? specToFormValues(spec)
+      : {
+          name: '',
+          targetUnit: 'lbf-ft',
+          toleranceType: 'percent',
+          sequenceNote: '',
+          specSource: '',
+        },
   });
   const unit = watch('targetUnit') ?? 'lbf-ft';
   const tolType = watch('toleranceType') ?? 'percent';
 
   const submit = handleSubmit(async (values) => {
     try {
-      await onSubmit(values);
+      if (props.spec === undefined) {
+        await props.onSubmit(values);
+        return;
+      }
+      // An empty stages box clears the stages (left out, the server would keep the old ones).
+      const input: UpdateFastenerSpecInput = { ...values, stages: values.stages ?? [] };
+      if (torqueLocked) for (const key of torqueDefiningFields) delete input[key];
+      await props.onSubmit(input);
     } catch (error) {
       applyServerErrors(error, setError, fieldNames);
     }
   });
+
+  const torqueFields = (
+    <>
+      <FormField label="Target torque" error={errors.targetValue?.message}>
+        {(c) => (
+          <TextInput
+            {...c}
+            {...register('targetValue', { setValueAs: parseDecimal })}
+            inputMode="decimal"
+            autoComplete="off"
+            className="tabular-nums"
+          />
+        )}
+      </FormField>
+      <FormField label="Unit" error={errors.targetUnit?.message}>
+        {(c) => (
+          <SelectInput {...c} {...register('targetUnit')}>
+            {torqueUnits.map((u) => (
+              <option key={u} value={u}>
+                {unitLabel(u)}
+              </option>
+            ))}
+          </SelectInput>
+        )}
+      </FormField>
+      <FormField label="Tolerance" error={errors.toleranceType?.message}>
+        {(c) => (
+          <SelectInput {...c} {...register('toleranceType')}>
+            {toleranceTypes.map((t) => (
+              <option key={t} value={t}>
+                {toleranceTypeLabels[t]}
+              </option>
+            ))}
+          </SelectInput>
+        )}
+      </FormField>
+      <FormField
+        label={tolType === 'percent' ? 'Tolerance, ± %' : `Tolerance, ± ${unitLabel(unit)}`}
+        error={errors.toleranceValue?.message}
+      >
+        {(c) => (
+          <TextInput
+            {...c}
+            {...register('toleranceValue', { setValueAs: parseDecimal })}
+            inputMode="decimal"
+            autoComplete="off"
+            className="tabular-nums"
+          />
+        )}
+      </FormField>
+    </>
+  );
 
   const stagesError =
     errors.stages?.message ??
@@ -87,6 +194,12 @@ export function FastenerForm({
         Torque values, sequences and procedures come from the vehicle maker's service information.
         Headroom records them and checks readings against them; it does not supply them.
       </Alert>
+      {spec && read && !torqueLocked && (
+        <Alert tone="warning" title="Readings are recorded against this spec">
+          A new target or tolerance judges them again: a reading in spec now may come out over or
+          under.
+        </Alert>
+      )}
 
       <FormField label="Fastener" error={errors.name?.message} hint="e.g. Injector hold-down bolts">
         {(c) => <TextInput {...c} {...register('name')} autoComplete="off" autoFocus />}
@@ -104,56 +217,14 @@ export function FastenerForm({
             />
           )}
         </FormField>
-        <FormField label="Target torque" error={errors.targetValue?.message}>
-          {(c) => (
-            <TextInput
-              {...c}
-              {...register('targetValue', { setValueAs: parseDecimal })}
-              inputMode="decimal"
-              autoComplete="off"
-              className="tabular-nums"
-            />
-          )}
-        </FormField>
-        <FormField label="Unit" error={errors.targetUnit?.message}>
-          {(c) => (
-            <SelectInput {...c} {...register('targetUnit')}>
-              {torqueUnits.map((u) => (
-                <option key={u} value={u}>
-                  {unitLabel(u)}
-                </option>
-              ))}
-            </SelectInput>
-          )}
-        </FormField>
-        <FormField label="Tolerance" error={errors.toleranceType?.message}>
-          {(c) => (
-            <SelectInput {...c} {...register('toleranceType')}>
-              {toleranceTypes.map((t) => (
-                <option key={t} value={t}>
-                  {toleranceTypeLabels[t]}
-                </option>
-              ))}
-            </SelectInput>
-          )}
-        </FormField>
-        <FormField
-          label={tolType === 'percent' ? 'Tolerance, ± %' : `Tolerance, ± ${unitLabel(unit)}`}
-          error={errors.toleranceValue?.message}
-        >
-          {(c) => (
-            <TextInput
-              {...c}
-              {...register('toleranceValue', { setValueAs: parseDecimal })}
-              inputMode="decimal"
-              autoComplete="off"
-              className="tabular-nums"
-            />
-          )}
-        </FormField>
+        {!torqueLocked && torqueFields}
         <FormField label="Threads" error={errors.threadCondition?.message}>
           {(c) => (
-            <SelectInput {...c} {...register('threadCondition')} defaultValue="">
+            <SelectInput
+              {...c}
+              {...register('threadCondition')}
+              defaultValue={spec ? undefined : ''}
+            >
               <option value="" disabled>
                 Choose…
               </option>
@@ -166,6 +237,16 @@ export function FastenerForm({
           )}
         </FormField>
       </div>
+
+      {spec && torqueLocked && (
+        <div className="rounded-md border border-rule bg-sheet px-3 py-2">
+          <p className="text-[15px] font-semibold text-ink-2">Target and tolerance</p>
+          <p className="text-lg font-bold text-ink tabular-nums">{targetText(spec)}</p>
+          <p className="text-sm text-muted">
+            Readings are recorded against it, so only the owner can change it.
+          </p>
+        </div>
+      )}
 
       <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         <FormField
@@ -251,7 +332,7 @@ export function FastenerForm({
           Cancel
         </Button>
         <Button type="submit" className="min-h-12!" pending={isSubmitting}>
-          Add the spec
+          {spec ? 'Save the spec' : 'Add the spec'}
         </Button>
       </div>
     </form>

@@ -1,7 +1,7 @@
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { createStepInputSchema } from '../../../../shared/schemas/install-log';
+import { createStepInputSchema, type Step } from '../../../../shared/schemas/install-log';
 import { partCategoryLabels, type Part } from '../../../../shared/schemas/parts';
 import { Button } from '../../../components/ui/button';
 import { FormError } from '../../../components/ui/form-error';
@@ -12,14 +12,22 @@ type Input = z.input<typeof createStepInputSchema>;
 type Values = z.output<typeof createStepInputSchema>;
 const fieldNames: Path<Input>[] = ['title', 'description', 'partIds', 'liftsVehicle'];
 
-/** A new step: its name, what to do, the parts it fits and whether the truck is off the ground. */
+/**
+ * A new step: its name, what to do, the parts it fits and whether the truck is off the ground.
+ * With `step` given it edits that step's name, what to do and the off-the-ground mark; its
+ * linked parts are left as they are (they are not sent).
+ */
 export function StepForm({
+  step,
   parts,
+  submitLabel = 'Add step',
   onSubmit,
   onCancel,
 }: {
+  step?: Pick<Step, 'title' | 'description' | 'liftsVehicle'>;
   /** The build's parts to link; undefined while they load (or when they cannot be read). */
   parts: Part[] | undefined;
+  submitLabel?: string;
   onSubmit: (values: Values) => Promise<unknown>;
   onCancel: () => void;
 }) {
@@ -30,16 +38,23 @@ export function StepForm({
     formState: { errors, isSubmitting },
   } = useForm<Input, unknown, Values>({
     resolver: zodResolver(createStepInputSchema),
-    defaultValues: { title: '', description: '', partIds: [], liftsVehicle: false },
+    defaultValues: step
+      ? { title: step.title, description: step.description, liftsVehicle: step.liftsVehicle }
+      : { title: '', description: '', partIds: [], liftsVehicle: false },
   });
   const submit = handleSubmit(async (values) => {
     try {
-      await onSubmit(values);
+      if (step) {
+        const { title, description, liftsVehicle } = values;
+        await onSubmit({ title, description, liftsVehicle });
+      } else {
+        await onSubmit(values);
+      }
     } catch (error) {
       applyServerErrors(error, setError, fieldNames);
     }
   });
-  const usable = (parts ?? []).filter((p) => p.status !== 'returned');
+  const usable = step ? [] : (parts ?? []).filter((p) => p.status !== 'returned');
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       <FormField
@@ -101,7 +116,7 @@ export function StepForm({
           Cancel
         </Button>
         <Button type="submit" className="min-h-12!" pending={isSubmitting}>
-          Add step
+          {submitLabel}
         </Button>
       </div>
     </form>
