@@ -321,6 +321,22 @@ describe('torque readings', () => {
     expect(ownerEdit.body.fastener.positions[0].current.verdict).toBe('in-spec');
   });
 
+  it('refuses to lower the count below a position that holds a reading', async () => {
+    const { owner, crew, base, spec } = await castWithJob();
+    expect(
+      (await owner.agent.patch(`${base}/fasteners/${spec.id}`).send({ count: 4 })).status,
+    ).toBe(200);
+    await reading(crew.agent, base, spec.id, { position: 3, value: 100, unit: 'lbf-ft' });
+    const tooFew = await owner.agent.patch(`${base}/fasteners/${spec.id}`).send({ count: 2 });
+    expect(tooFew.status).toBe(400);
+    expect(tooFew.body.error.fields.count).toMatch(/Position 3 already has a reading/);
+    const row = await app.db.knex('fastener_specs').where({ id: spec.id }).first('count');
+    expect(row.count).toBe(4);
+    const enough = await owner.agent.patch(`${base}/fasteners/${spec.id}`).send({ count: 3 });
+    expect(enough.status).toBe(200);
+    expect(enough.body.fastener.count).toBe(3);
+  });
+
   it('queues a notice when a reading is out of spec', async () => {
     const { crew, owner, viewer, base, spec } = await castWithJob();
     await reading(crew.agent, base, spec.id, { position: 1, value: 80, unit: 'lbf-ft' });

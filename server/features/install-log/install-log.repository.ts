@@ -727,6 +727,15 @@ export async function insertReading(
 }
 
 /** Whether a spec has any readings (its torque fields are then the owner's to change). */
+/** The highest fastener position that holds a reading (0 when none). */
+export async function highestReadPosition(knex: Knex, specId: string): Promise<number> {
+  const row = await knex('torque_readings')
+    .where({ spec_id: specId })
+    .max('position as max')
+    .first();
+  return Number(row?.max ?? 0);
+}
+
 export async function specHasReadings(knex: Knex, specId: string) {
   const row = await knex('torque_readings').where({ spec_id: specId }).first('id');
   return Boolean(row);

@@ -512,6 +512,15 @@ export async function updateFastener(
         'This fastener already has readings; only the owner can change its target or tolerance',
       );
     }
+    // Fewer fasteners than positions already torqued would hide those readings.
+    if (input.count !== undefined && input.count < spec.count) {
+      const highest = await repo.highestReadPosition(trx, spec.id);
+      if (input.count < highest) {
+        throw new ValidationError('Readings exist for higher positions', {
+          count: `Position ${highest} already has a reading; keep at least ${highest}`,
+        });
+      }
+    }
     await repo.updateSpec(trx, spec.id, input);
   });
   return presentOne(knex, buildId, spec.id);
