@@ -120,6 +120,9 @@ describe('the outbox across restarts and processes', () => {
   });
 
   it('never sends one mail twice when two workers run at the same moment', async () => {
+    // Both workers on the real clock: earlier tests moved the app worker's clock hours ahead,
+    // and a worker that far ahead rightly sees the other's 5-minute leases as run out.
+    app.mail.resetClock();
     const emails = Array.from({ length: 12 }, () => uniqueEmail('once'));
     await enqueueMail(
       app.db.knex,

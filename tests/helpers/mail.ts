@@ -29,6 +29,8 @@ export type TestMail = {
   deliver: () => ReturnType<MailWorker['drain']>;
   /** Moves the worker's clock forward, so a retry falls due without waiting. */
   advanceClock: (ms: number) => void;
+  /** Puts the worker's clock back to the real time. */
+  resetClock: () => void;
   /** Takes the SMTP server down (connections are refused) and brings it back on the same port. */
   stopCatcher: () => Promise<void>;
   startCatcher: () => Promise<void>;
@@ -106,6 +108,9 @@ export async function prepareTestMail(config: AppConfig) {
       deliver: () => worker.drain(),
       advanceClock: (ms) => {
         offset += ms;
+      },
+      resetClock: () => {
+        offset = 0;
       },
       stopCatcher: async () => {
         await catcher?.close();

@@ -75,6 +75,9 @@ export async function countQueuedSince(
  * (`skip locked`, so two processes never take the same row) and leased by moving
  * next_attempt_at past `leaseUntil`; a worker that dies mid-send leaves its rows
  * to be taken again once the lease runs out.
+ * Due means due by the worker's clock or the database's, whichever is later: the
+ * database stamps microseconds, a JavaScript Date only milliseconds, so a mail queued
+ * this very millisecond would otherwise wait for the next pass.
  */
 export async function claimDue(
   knex: Knex,
@@ -86,7 +89,7 @@ export async function claimDue(
     `update mail_outbox set attempts = attempts + 1, next_attempt_at = ?, updated_at = now()
      where id in (
        select id from mail_outbox
-       where status = 'queued' and next_attempt_at <= ?
+       where status = 'queued' and next_attempt_at <= greatest(?::timestamptz, now())
        order by next_attempt_at, created_at
        limit ?
        for update skip locked)
