@@ -22,7 +22,7 @@ import { useUpdateJob } from '../../../features/install-log/api/update-job';
 import { JobCard } from '../../../features/install-log/components/job-card';
 import { JobForm } from '../../../features/install-log/components/job-form';
 import { RetorqueChecks } from '../../../features/install-log/components/retorque-checks';
-import { SheetDialog } from '../../../features/install-log/components/sheet-dialog';
+import { Modal } from '../../../components/ui/modal';
 import { StepForm } from '../../../features/install-log/components/step-form';
 import { getPartsQueryOptions } from '../../../features/parts/api/get-parts';
 import { BuildLoadError } from './build-states';
@@ -194,7 +194,7 @@ function InstallPage({ build }: { build: Build }) {
         {body}
       </div>
 
-      <SheetDialog
+      <Modal
         open={addingJob}
         title="New job"
         description="Steps, specs and photos are added to it next."
@@ -210,9 +210,9 @@ function InstallPage({ build }: { build: Build }) {
             setAddingStepTo(job);
           }}
         />
-      </SheetDialog>
+      </Modal>
 
-      <SheetDialog
+      <Modal
         open={editingJob !== null}
         title="Edit the job"
         description={editingJob ? `“${editingJob.title}”` : undefined}
@@ -235,7 +235,7 @@ function InstallPage({ build }: { build: Build }) {
             }}
           />
         )}
-      </SheetDialog>
+      </Modal>
 
       <ConfirmDialog
         open={deletingJob !== null}
@@ -274,7 +274,7 @@ function InstallPage({ build }: { build: Build }) {
         )}
       </ConfirmDialog>
 
-      <SheetDialog
+      <Modal
         open={addingStepTo !== null}
         title="Add a step"
         description={addingStepTo ? `To “${addingStepTo.title}”` : undefined}
@@ -296,7 +296,7 @@ function InstallPage({ build }: { build: Build }) {
             }}
           />
         )}
-      </SheetDialog>
+      </Modal>
     </>
   );
 }

@@ -19,7 +19,7 @@ import { getPartsCsvHref } from '../../../features/parts/api/export-parts-csv';
 import { useParts } from '../../../features/parts/api/get-parts';
 import { useUpdatePart } from '../../../features/parts/api/update-part';
 import { ImportPartsDialog } from '../../../features/parts/components/import-parts';
-import { Modal } from '../../../features/parts/components/modal';
+import { Modal } from '../../../components/ui/modal';
 import { PartForm } from '../../../features/parts/components/part-form';
 import type { LedgerActions } from '../../../features/parts/components/parts-columns';
 import { PartsLedger } from '../../../features/parts/components/parts-ledger';

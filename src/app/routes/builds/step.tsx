@@ -36,11 +36,11 @@ import { Checklist } from '../../../features/install-log/components/checklist';
 import { FastenerCard } from '../../../features/install-log/components/fastener-card';
 import { FastenerForm } from '../../../features/install-log/components/fastener-form';
 import { LinkedParts } from '../../../features/install-log/components/linked-parts';
-import { SheetDialog } from '../../../features/install-log/components/sheet-dialog';
+import { Modal } from '../../../components/ui/modal';
 import { SignOffPanel } from '../../../features/install-log/components/sign-off-panel';
 import { StepForm } from '../../../features/install-log/components/step-form';
 import { StepStatusBadge } from '../../../features/install-log/components/step-status';
-import { when } from '../../../features/install-log/lib/format';
+import { formatWhen } from '../../../lib/dates';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { BuildLoadError } from './build-states';
 
@@ -197,7 +197,7 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
 
         {locked && step.signOff && (
           <Alert tone="ok" title={`Signed off by ${step.signOff.by?.name ?? 'someone'}`}>
-            {when(step.signOff.at)}. Readings and ticks are locked
+            {formatWhen(step.signOff.at)}. Readings and ticks are locked
             {canWrite && step.fasteners.some((f) => f.retorque.asked && !f.retorque.closedAt)
               ? '; re-torque checks can still be recorded.'
               : '.'}
@@ -385,7 +385,7 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
         )}
       </div>
 
-      <SheetDialog
+      <Modal
         open={addingSpec}
         title="Add a fastener spec"
         description={step.title}
@@ -399,9 +399,9 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
             setAddingSpec(false);
           }}
         />
-      </SheetDialog>
+      </Modal>
 
-      <SheetDialog
+      <Modal
         open={editingSpec !== null}
         title="Edit the fastener spec"
         description={editingSpec?.name}
@@ -423,9 +423,9 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
             }}
           />
         )}
-      </SheetDialog>
+      </Modal>
 
-      <SheetDialog
+      <Modal
         open={editingStep}
         title="Edit the step"
         description={job?.title}
@@ -444,7 +444,7 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
             }}
           />
         )}
-      </SheetDialog>
+      </Modal>
 
       <ConfirmDialog
         open={confirmingDelete}

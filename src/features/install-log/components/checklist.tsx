@@ -17,7 +17,7 @@ import { applyServerErrors } from '../../../lib/form-errors';
 import { useCreateChecklistItem } from '../api/create-checklist-item';
 import { useDeleteChecklistItem } from '../api/delete-checklist-item';
 import { useUpdateChecklistItem } from '../api/update-checklist-item';
-import { when } from '../lib/format';
+import { formatWhen } from '../../../lib/dates';
 
 type Input = z.input<typeof createChecklistItemInputSchema>;
 type Values = z.output<typeof createChecklistItemInputSchema>;
@@ -77,7 +77,7 @@ function ChecklistRow({
           </span>
           {item.done && item.doneAt && going === null && (
             <span className="block text-sm text-muted">
-              Ticked by {item.doneBy?.name ?? 'someone'}, {when(item.doneAt)}
+              Ticked by {item.doneBy?.name ?? 'someone'}, {formatWhen(item.doneAt)}
             </span>
           )}
           {going !== null && (

@@ -18,8 +18,8 @@ import {
   exact,
   targetText,
   torque,
-  when,
 } from '../lib/format';
+import { formatWhen } from '../../../lib/dates';
 import { useRememberedWrench } from '../lib/wrench-memory';
 import { PositionHistory } from './position-history';
 import { ReadingEntry, type EntryKind } from './reading-entry';
@@ -322,7 +322,7 @@ export function FastenerCard({
               {spec.retorque.closedAt && (
                 <span className="block text-ink-2">
                   Closed by {spec.retorque.closedBy?.name ?? 'someone'},{' '}
-                  {when(spec.retorque.closedAt)}: “{spec.retorque.closeNote}”
+                  {formatWhen(spec.retorque.closedAt)}: “{spec.retorque.closeNote}”
                 </span>
               )}
             </Detail>

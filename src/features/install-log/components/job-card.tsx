@@ -3,7 +3,7 @@ import { ChevronRight, Pencil, Plus, Trash2 } from 'lucide-react';
 import type { Job, Person, StepSummary } from '../../../../shared/schemas/install-log';
 import { paths } from '../../../config/paths';
 import { Button } from '../../../components/ui/button';
-import { when } from '../lib/format';
+import { formatWhen } from '../../../lib/dates';
 import { StepProgressChips } from './step-progress';
 import { StepStatusBadge } from './step-status';
 
@@ -39,7 +39,8 @@ function StepRow({
           </span>
           {step.signedOffAt && (
             <span className="text-sm text-muted">
-              Signed off{signedOffBy ? ` by ${signedOffBy.name}` : ''}, {when(step.signedOffAt)}
+              Signed off{signedOffBy ? ` by ${signedOffBy.name}` : ''},{' '}
+              {formatWhen(step.signedOffAt)}
             </span>
           )}
         </span>

@@ -3,7 +3,8 @@ import type { FastenerSpec } from '../../../../shared/schemas/install-log';
 import { Spinner } from '../../../components/ui/spinner';
 import { cn } from '../../../components/ui/cn';
 import { useReadings } from '../api/get-readings';
-import { readingConverted, torque, when } from '../lib/format';
+import { readingConverted, torque } from '../lib/format';
+import { formatWhen } from '../../../lib/dates';
 import { VerdictBadge } from './reading-line';
 
 /** Every reading of one position, newest first; replaced ones struck through but kept. */
@@ -72,7 +73,7 @@ export function PositionHistory({
               )}
             </p>
             <p className="text-sm">
-              {r.recordedBy?.name ?? 'Someone'}, {when(r.recordedAt)}
+              {r.recordedBy?.name ?? 'Someone'}, {formatWhen(r.recordedAt)}
               {r.wrench && <> · {r.wrench}</>}
             </p>
             {r.note && <p className="text-sm">“{r.note}”</p>}

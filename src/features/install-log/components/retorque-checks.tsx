@@ -14,7 +14,7 @@ import { FormError } from '../../../components/ui/form-error';
 import { FormField, TextArea } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useCloseRetorqueCheck } from '../api/close-retorque-check';
-import { when } from '../lib/format';
+import { formatWhen } from '../../../lib/dates';
 
 type Input = z.input<typeof closeRetorqueInputSchema>;
 type Values = z.output<typeof closeRetorqueInputSchema>;
@@ -93,7 +93,7 @@ function CheckItem({
           : left.length === check.count
             ? `All ${check.count} still to re-check`
             : `Still to re-check: #${left.join(', #')}`}
-        {check.since && <> · signed off {when(check.since)}</>}
+        {check.since && <> · signed off {formatWhen(check.since)}</>}
       </p>
       <p className="text-sm text-muted">
         {check.jobTitle} › {check.stepTitle}

@@ -14,7 +14,7 @@ import { isApiError } from '../../../lib/api-client';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useReopenStep } from '../api/reopen-step';
 import { useSignOffStep } from '../api/sign-off-step';
-import { when } from '../lib/format';
+import { formatWhen } from '../../../lib/dates';
 
 // For the override the reason is required (the shared schema has it optional for a plain sign-off).
 const overrideSchema = signOffInputSchema.required({ overrideReason: true });
@@ -114,7 +114,7 @@ export function SignOffPanel({
     body = (
       <div className="flex flex-col gap-3">
         <Alert tone="ok" title={`Signed off by ${by?.name ?? 'someone'}`}>
-          {when(at)}. The step is locked; only the owner can reopen it.
+          {formatWhen(at)}. The step is locked; only the owner can reopen it.
         </Alert>
         {override && (
           <Alert tone="warning" title="Signed off over open items">

@@ -79,27 +79,6 @@ export function deviationText(reading: TorqueReading, spec: FastenerSpec): strin
   return `${amount} (${rounded(pct)}${nb}%) ${reading.verdict === 'over' ? 'over' : 'under'} the target`;
 }
 
-const sameYear = new Intl.DateTimeFormat(undefined, {
-  day: 'numeric',
-  month: 'short',
-  hour: '2-digit',
-  minute: '2-digit',
-});
-const otherYear = new Intl.DateTimeFormat(undefined, {
-  day: 'numeric',
-  month: 'short',
-  year: 'numeric',
-  hour: '2-digit',
-  minute: '2-digit',
-});
-
-/** "12 Mar, 14:05" this year, "12 Mar 2025, 14:05" otherwise. */
-export function when(iso: string): string {
-  const date = new Date(iso);
-  if (Number.isNaN(date.getTime())) return iso;
-  return (date.getFullYear() === new Date().getFullYear() ? sameYear : otherYear).format(date);
-}
-
 /** Text from a decimal box: "47,5" and "47.5" both read as 47.5; empty is undefined. */
 export function parseDecimal(value: unknown): number | undefined {
   if (value === null || value === undefined) return undefined;

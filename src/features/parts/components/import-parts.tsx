@@ -11,7 +11,7 @@ import { Button } from '../../../components/ui/button';
 import { Spinner } from '../../../components/ui/spinner';
 import { getPartsCsvHref } from '../api/export-parts-csv';
 import { ImportError, useImportParts, type ImportRowError } from '../api/import-parts';
-import { Modal } from './modal';
+import { Modal } from '../../../components/ui/modal';
 
 /** Field names in the server's answer → the CSV column a person has to fix. */
 const columnOf: Record<string, string> = {

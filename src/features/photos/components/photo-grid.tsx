@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import type { Photo } from '../../../../shared/schemas/photos';
-import { photoWhen } from './photo-text';
+import { formatWhen } from '../../../lib/dates';
 
 /** Thumbnails with their captions; each opens the larger view. */
 export function PhotoGrid({
@@ -38,7 +38,7 @@ export function PhotoGrid({
             {photo.caption && <p className="font-semibold break-words text-ink">{photo.caption}</p>}
             {context?.(photo)}
             <p className="text-sm text-muted">
-              {photo.uploadedBy?.name ?? 'Someone'}, {photoWhen(photo.createdAt)}
+              {photo.uploadedBy?.name ?? 'Someone'}, {formatWhen(photo.createdAt)}
             </p>
           </div>
         </li>

@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, useState, type ReactNode } from 'react';
+import { useId, useRef, useState, type ReactNode } from 'react';
 import { ChevronLeft, ChevronRight, Pencil, Trash2, X } from 'lucide-react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -8,10 +8,11 @@ import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { FormError } from '../../../components/ui/form-error';
 import { TextInput } from '../../../components/ui/form-field';
+import { useModalDialog } from '../../../components/ui/modal';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useDeletePhoto } from '../api/delete-photo';
 import { useUpdatePhoto } from '../api/update-photo';
-import { photoWhen } from './photo-text';
+import { formatWhen } from '../../../lib/dates';
 
 type CaptionInput = z.input<typeof updatePhotoInputSchema>;
 type CaptionValues = z.output<typeof updatePhotoInputSchema>;
@@ -93,7 +94,6 @@ export function PhotoViewer({
   canDelete: boolean;
   context?: (photo: Photo) => ReactNode;
 }) {
-  const ref = useRef<HTMLDialogElement>(null);
   const titleId = useId();
   const remove = useDeletePhoto();
   const [editing, setEditing] = useState(false);
@@ -102,13 +102,7 @@ export function PhotoViewer({
   const open = index !== null && photos.length > 0;
   const at = index === null ? 0 : Math.min(index, photos.length - 1);
   const photo = open ? photos[at] : undefined;
-
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) dialog.showModal();
-    if (!open && dialog.open) dialog.close();
-  }, [open]);
+  const ref = useModalDialog(open);
 
   const go = (delta: number) => {
     if (!open) return;
@@ -202,7 +196,7 @@ export function PhotoViewer({
                 )}
                 {context?.(photo)}
                 <p className="text-sm text-white/75">
-                  {photo.uploadedBy?.name ?? 'Someone'}, {photoWhen(photo.createdAt)} ·{' '}
+                  {photo.uploadedBy?.name ?? 'Someone'}, {formatWhen(photo.createdAt)} ·{' '}
                   {photo.original.width}×{photo.original.height}
                 </p>
               </div>

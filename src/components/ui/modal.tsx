@@ -1,17 +1,30 @@
-import { useEffect, useId, useRef, type ReactNode } from 'react';
+import { useEffect, useId, useRef, type ReactNode, type RefObject } from 'react';
 import { X } from 'lucide-react';
 
+/** Opens and closes a native <dialog> as `open` changes (showModal: focus trapped, Escape closes). */
+export function useModalDialog(open: boolean): RefObject<HTMLDialogElement | null> {
+  const ref = useRef<HTMLDialogElement>(null);
+  useEffect(() => {
+    const dialog = ref.current;
+    if (!dialog) return;
+    if (open && !dialog.open) dialog.showModal();
+    if (!open && dialog.open) dialog.close();
+  }, [open]);
+  return ref;
+}
+
 /**
- * A form in a modal on the native <dialog> (focus trapped, Escape closes). On a phone it
- * takes the whole screen so a long form scrolls with the keyboard up; from 640 px it is a
- * centred sheet.
+ * A modal panel on the native <dialog> (focus trapped, Escape closes). On a phone it takes
+ * the whole screen so a long form scrolls with the keyboard up; from 640 px it is a centred sheet.
+ * The close button is 48 px: these forms are used in the garage, on a phone.
  */
-export function SheetDialog({
+export function Modal({
   open,
   title,
   description,
   onClose,
   busy = false,
+  wide = false,
   children,
 }: {
   open: boolean;
@@ -20,17 +33,11 @@ export function SheetDialog({
   onClose: () => void;
   /** While saving, Escape and the close button do nothing. */
   busy?: boolean;
+  wide?: boolean;
   children: ReactNode;
 }) {
-  const ref = useRef<HTMLDialogElement>(null);
+  const ref = useModalDialog(open);
   const titleId = useId();
-
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) dialog.showModal();
-    if (!open && dialog.open) dialog.close();
-  }, [open]);
 
   return (
     <dialog
@@ -42,8 +49,8 @@ export function SheetDialog({
       }}
       className={
         'm-0 h-dvh max-h-none w-full max-w-none bg-paper p-0 text-ink backdrop:bg-ink/60 ' +
-        'sm:m-auto sm:h-auto sm:max-h-[calc(100dvh-3rem)] sm:w-[min(44rem,calc(100vw-3rem))] ' +
-        'sm:rounded-lg sm:border sm:border-rule sm:shadow-2xl'
+        'sm:m-auto sm:h-auto sm:max-h-[calc(100dvh-3rem)] sm:rounded-lg sm:border sm:border-rule sm:shadow-2xl ' +
+        (wide ? 'sm:w-[min(60rem,calc(100vw-3rem))]' : 'sm:w-[min(44rem,calc(100vw-3rem))]')
       }
     >
       {open && (
