@@ -8,7 +8,10 @@ import { createMailWorker } from './features/mail/mail.worker';
 
 const config = loadConfig();
 const logger = createLogger(config.logLevel);
-const db = createDatabase(config.databaseUrl);
+const db = createDatabase(config.databaseUrl, {
+  // PostgreSQL restarting drops idle connections; the pool replaces them on the next request.
+  onError: (err) => logger.warn({ err: err.message }, 'a database connection was dropped'),
+});
 const app = createApp({ db, config, logger });
 
 // Mail: without SMTP settings a local catcher keeps every message under MAIL_DIR

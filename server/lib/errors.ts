@@ -1,4 +1,6 @@
 /** Typed errors thrown by services; the error handler turns them into the JSON contract. */
+import type { ZodError } from 'zod';
+
 export class AppError extends Error {
   constructor(
     readonly status: number,
@@ -38,4 +40,22 @@ export class ConflictError extends AppError {
   constructor(code: string, message: string, fields?: Record<string, string>) {
     super(409, code, message, fields);
   }
+}
+
+/**
+ * zod issues → { field.path: first message }; unknown keys are named one by one.
+ * The object has no prototype, so a key named `__proto__` becomes a field like
+ * any other instead of silently replacing the object's prototype.
+ */
+export function fieldsFromZod(err: ZodError): Record<string, string> {
+  const fields: Record<string, string> = Object.create(null);
+  for (const issue of err.issues) {
+    if (issue.code === 'unrecognized_keys') {
+      for (const key of issue.keys) fields[[...issue.path, key].join('.')] ??= 'Unknown field';
+      continue;
+    }
+    const path = issue.path.join('.') || '_';
+    fields[path] ??= issue.message;
+  }
+  return fields;
 }

@@ -1,22 +1,9 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { MulterError } from 'multer';
 import { ZodError } from 'zod';
-import { AppError } from '../lib/errors';
+import { isDatabaseUnavailable } from '../lib/database';
+import { AppError, fieldsFromZod } from '../lib/errors';
 import type { Logger } from '../lib/logger';
-
-/** zod issues → { field.path: first message }; unknown keys are named one by one. */
-export function fieldsFromZod(err: ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of err.issues) {
-    if (issue.code === 'unrecognized_keys') {
-      for (const key of issue.keys) fields[[...issue.path, key].join('.')] ??= 'Unknown field';
-      continue;
-    }
-    const path = issue.path.join('.') || '_';
-    fields[path] ??= issue.message;
-  }
-  return fields;
-}
 
 export const notFoundApi: RequestHandler = (req, res) => {
   res
@@ -24,64 +11,84 @@ export const notFoundApi: RequestHandler = (req, res) => {
     .json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.path}` } });
 };
 
+type Answer = { status: number; code: string; message: string };
+
+/** body-parser, raw-body, the router and busboy mark client errors with a type or a status. */
+function clientError(err: unknown): Answer | null {
+  const e = err as { type?: string; status?: unknown; statusCode?: unknown; message?: unknown };
+  switch (e.type) {
+    case 'entity.parse.failed':
+      return { status: 400, code: 'malformed_json', message: 'The request body is not valid JSON' };
+    case 'entity.too.large':
+      return { status: 413, code: 'too_large', message: 'The request body is too large' };
+    case 'charset.unsupported':
+    case 'encoding.unsupported':
+      return { status: 415, code: 'unsupported_encoding', message: 'Send the body as UTF-8 JSON' };
+  }
+  if (err instanceof URIError) {
+    return { status: 400, code: 'bad_path', message: 'The address has broken %-encoding' };
+  }
+  const status = Number(e.status ?? e.statusCode);
+  if (Number.isInteger(status) && status >= 400 && status < 500) {
+    // A body that says it is compressed but is not, a path that cannot be decoded, …
+    return {
+      status,
+      code: status === 413 ? 'too_large' : 'bad_request',
+      message:
+        status === 413
+          ? 'The request body is too large'
+          : 'The request could not be read: check its encoding and body',
+    };
+  }
+  return null;
+}
+
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     if (res.headersSent) return;
+    const send = (a: Answer, extra: Record<string, unknown> = {}) =>
+      res.status(a.status).json({ error: { code: a.code, message: a.message, ...extra } });
+
     if (err instanceof AppError) {
-      res.status(err.status).json({
-        error: {
-          code: err.code,
-          message: err.message,
-          ...(err.fields ? { fields: err.fields } : {}),
-          ...('rows' in err ? { rows: err.rows } : {}),
-        },
+      send(err, {
+        ...(err.fields ? { fields: err.fields } : {}),
+        ...('rows' in err ? { rows: err.rows } : {}),
       });
       return;
     }
     if (err instanceof ZodError) {
-      res.status(400).json({
-        error: {
-          code: 'invalid_input',
-          message: 'Some fields need attention',
-          fields: fieldsFromZod(err),
-        },
-      });
+      send(
+        { status: 400, code: 'invalid_input', message: 'Some fields need attention' },
+        { fields: fieldsFromZod(err) },
+      );
       return;
     }
     if (err instanceof MulterError) {
-      const message =
-        err.code === 'LIMIT_FILE_SIZE'
-          ? 'The file is too large'
-          : `The upload was refused: ${err.message}`;
-      res.status(400).json({
-        error: {
-          code: err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload',
-          message,
-        },
+      const tooLarge = err.code === 'LIMIT_FILE_SIZE';
+      send({
+        status: 400,
+        code: tooLarge ? 'file_too_large' : 'bad_upload',
+        message: tooLarge ? 'The file is too large' : `The upload was refused: ${err.message}`,
       });
       return;
     }
-    // body-parser errors carry a type and a status of their own.
-    const type = (err as { type?: string }).type;
-    if (type === 'entity.parse.failed') {
-      res
-        .status(400)
-        .json({ error: { code: 'malformed_json', message: 'The request body is not valid JSON' } });
+    const known = clientError(err);
+    if (known) {
+      send(known);
       return;
     }
-    if (type === 'entity.too.large') {
-      res
-        .status(413)
-        .json({ error: { code: 'too_large', message: 'The request body is too large' } });
-      return;
-    }
-    if (type === 'charset.unsupported' || type === 'encoding.unsupported') {
-      res
-        .status(415)
-        .json({ error: { code: 'unsupported_encoding', message: 'Send the body as UTF-8 JSON' } });
+    if (isDatabaseUnavailable(err)) {
+      logger.warn({ err: String(err), url: req.originalUrl }, 'database unavailable');
+      res.set('Retry-After', '5');
+      send({
+        status: 503,
+        code: 'database_unavailable',
+        message:
+          'Headroom cannot reach its database just now. Nothing was saved; try again shortly.',
+      });
       return;
     }
     logger.error({ err, method: req.method, url: req.originalUrl }, 'unhandled error');
-    res.status(500).json({ error: { code: 'internal', message: 'Something went wrong' } });
+    send({ status: 500, code: 'internal', message: 'Something went wrong' });
   };
 }

@@ -83,7 +83,7 @@ describe('unknown routes and unexpected failures', () => {
     expect(res.body.error.code).toBe('not_found');
   });
 
-  it('answers 503 from /api/health when the database does not answer, and 500 without detail elsewhere', async () => {
+  it('answers 503 from /api/health and a clean 503 JSON error elsewhere when the database does not answer', async () => {
     // A second app whose database URL points at a closed port.
     const { createApp } = await import('../../server/app');
     const { loadConfig } = await import('../../server/config');
@@ -99,8 +99,8 @@ describe('unknown routes and unexpected failures', () => {
     const health = await supertest(broken).get('/api/health');
     expect(health.status).toBe(503);
     const me = await supertest(broken).get('/api/me').set('Cookie', 'headroom_session=abc');
-    expect(me.status).toBe(500);
-    expect(me.body).toEqual({ error: { code: 'internal', message: 'Something went wrong' } });
+    expect(me.status).toBe(503);
+    expect(me.body.error.code).toBe('database_unavailable');
     expect(JSON.stringify(me.body)).not.toMatch(/ECONNREFUSED|stack/);
     await db.close();
   });

@@ -5,7 +5,7 @@ export function healthRouter({ db }: AppDeps) {
   const router = Router();
   router.get('/', async (_req, res) => {
     try {
-      await db.knex.raw('select 1');
+      await db.ping();
       res.json({ ok: true });
     } catch {
       res.status(503).json({

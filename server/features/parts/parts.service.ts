@@ -12,8 +12,13 @@ import {
   type Part,
   type UpdatePartInput,
 } from '../../../shared/schemas/parts';
-import { AppError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
-import { fieldsFromZod } from '../../middleware/error-handler';
+import {
+  AppError,
+  ForbiddenError,
+  NotFoundError,
+  ValidationError,
+  fieldsFromZod,
+} from '../../lib/errors';
 import { findBuildForUser } from '../builds/builds.repository';
 import { notifyPartProgress } from '../notices/part-notices';
 import { parseCsv, partsToCsv } from './parts.csv';
