@@ -4,35 +4,21 @@ import { pinoHttp } from 'pino-http';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { AppConfig } from './config';
-import { createSessions, type Sessions } from './lib/auth';
+import { createSessions } from './lib/auth';
 import type { Database } from './lib/database';
 import { createLogger, type Logger } from './lib/logger';
 import { createLocalDiskStorage, type Storage } from './lib/storage';
 import { redactTokens } from './lib/tokens';
 import './lib/request';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
+import { createBuildAccess } from './middleware/build-access';
 import { moneyFilter } from './middleware/money-filter';
 import { originCheck } from './middleware/origin-check';
 import { loadSession } from './middleware/require-auth';
-import { authRouter, meRouter } from './features/auth/auth.router';
-import { buildsRouter } from './features/builds/builds.router';
-import { estimateRouter } from './features/estimate/estimate.router';
-import { healthRouter } from './features/health/health.router';
-import {
-  buildInvitationsRouter,
-  invitationLinksRouter,
-} from './features/invitations/invitations.router';
+import type { AppDeps } from './lib/deps';
 import { devMailRouter } from './features/mail/dev-mail.router';
-import { noticePreferencesRouter } from './features/notices/notices.router';
-import { passwordResetRouter } from './features/password-reset/password-reset.router';
-
-export type AppDeps = {
-  db: Database;
-  config: AppConfig;
-  logger: Logger;
-  sessions: Sessions;
-  storage: Storage;
-};
+import { findRole } from './features/members';
+import { apiRoutes } from './routes';
 
 /** Builds the Express app. Never listens: server/index.ts and the tests do that. */
 export function createApp(opts: {
@@ -48,6 +34,7 @@ export function createApp(opts: {
     sessions: createSessions(opts.db.pool),
     // Photos: the local disk unless the caller passes another store (an S3-compatible one).
     storage: opts.storage ?? createLocalDiskStorage(opts.config.storageDir),
+    access: createBuildAccess(opts.db.knex, findRole),
   };
   const app = express();
 
@@ -81,15 +68,7 @@ export function createApp(opts: {
   api.use(originCheck(opts.config.allowedOrigins));
   api.use(loadSession(deps.sessions));
   api.use(moneyFilter);
-  api.use('/health', healthRouter(deps));
-  api.use('/auth', authRouter(deps));
-  api.use('/me', meRouter());
-  api.use('/builds', buildsRouter(deps));
-  api.use('/auth/password-reset', passwordResetRouter(deps));
-  api.use('/invitations', invitationLinksRouter(deps));
-  api.use('/builds/:buildId/invitations', buildInvitationsRouter(deps));
-  api.use('/builds/:buildId/notice-preferences', noticePreferencesRouter(deps));
-  api.use('/estimate', estimateRouter(deps));
+  for (const mount of apiRoutes(deps)) api.use(mount.path, mount.router);
   api.use(notFoundApi);
   api.use(errorHandler(logger));
   app.use('/api', api);

@@ -4,7 +4,9 @@ import { createDatabase } from './lib/database';
 import { createLogger } from './lib/logger';
 import { startMailCatcher, type MailCatcher } from './lib/mail-catcher';
 import { createMailer } from './lib/mailer';
-import { createMailWorker } from './features/mail/mail.worker';
+import { createFileWorker } from './features/files';
+import { createMailWorker } from './features/mail';
+import { createLocalDiskStorage } from './lib/storage';
 
 const config = loadConfig();
 const logger = createLogger(config.logLevel);
@@ -12,7 +14,8 @@ const db = createDatabase(config.databaseUrl, {
   // PostgreSQL restarting drops idle connections; the pool replaces them on the next request.
   onError: (err) => logger.warn({ err: err.message }, 'a database connection was dropped'),
 });
-const app = createApp({ db, config, logger });
+const storage = createLocalDiskStorage(config.storageDir);
+const app = createApp({ db, config, logger, storage });
 
 // Mail: without SMTP settings a local catcher keeps every message under MAIL_DIR
 // (listed at /dev/mail); the worker sends the outbox in this process either way.
@@ -40,6 +43,9 @@ const mailWorker = createMailWorker({
   pollMs: config.mail.pollMs,
 });
 mailWorker.start();
+// Files of deleted rows that could not be removed at once are retried here.
+const fileWorker = createFileWorker({ knex: db.knex, storage, logger });
+fileWorker.start();
 
 const server = app.listen(config.port, config.host, () => {
   logger.info(`Headroom is listening on http://${config.host}:${config.port}`);
@@ -58,6 +64,7 @@ async function stop(signal: string) {
   server.closeAllConnections();
   // Queued mail stays in PostgreSQL; a pass under way finishes first.
   await mailWorker.stop();
+  await fileWorker.stop();
   mailer.close();
   await catcher?.close();
   await db.close().catch(() => undefined);

@@ -10,6 +10,7 @@ import * as m0032 from './20261202003200_create_password_resets';
 import * as m0033 from './20261202003300_create_notice_preferences';
 import * as m0040 from './20261202004000_create_install_log';
 import * as m0041 from './20261202004100_create_photos';
+import * as m0050 from './20261202005000_create_file_deletions';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -29,6 +30,7 @@ const migrations: Record<string, Migration> = {
   '20261202003300_create_notice_preferences': m0033,
   '20261202004000_create_install_log': m0040,
   '20261202004100_create_photos': m0041,
+  '20261202005000_create_file_deletions': m0050,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

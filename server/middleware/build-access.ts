@@ -1,9 +1,11 @@
-import type { RequestHandler } from 'express';
 import type { Knex } from 'knex';
-import { can, type Action } from '../../shared/permissions';
+import { can, type Role } from '../../shared/permissions';
 import { idSchema } from '../../shared/schemas/common';
+import type { BuildAccess } from '../lib/deps';
 import { ForbiddenError, NotFoundError, UnauthorizedError } from '../lib/errors';
-import { findRole } from '../features/members/members.repository';
+
+/** How the access check learns a member's role; the members feature supplies it. */
+export type FindRole = (knex: Knex, buildId: string, userId: string) => Promise<Role | undefined>;
 
 /**
  * The one access check for everything under /api/builds/:buildId.
@@ -11,8 +13,8 @@ import { findRole } from '../features/members/members.repository';
  * existence is never disclosed; a member whose role may not → 403.
  * It also marks the response money-free for roles that may not see money.
  */
-export function buildAccess(knex: Knex, action: Action): RequestHandler {
-  return async (req, res, next) => {
+export function createBuildAccess(knex: Knex, findRole: FindRole): BuildAccess {
+  return (action) => async (req, res, next) => {
     if (!req.user) throw new UnauthorizedError();
     const parsed = idSchema.safeParse(req.params.buildId);
     if (!parsed.success) throw new NotFoundError('Build not found');

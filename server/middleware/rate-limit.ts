@@ -1,5 +1,6 @@
 import { rateLimit, type Store, type ClientRateLimitInfo } from 'express-rate-limit';
 import type { Knex } from 'knex';
+import * as counters from '../lib/rate-limit.repository';
 
 /** Counters in PostgreSQL, shared by every app process and kept across restarts. */
 class PostgresStore implements Store {
@@ -15,26 +16,14 @@ class PostgresStore implements Store {
     this.windowMs = options.windowMs;
   }
   async increment(key: string): Promise<ClientRateLimitInfo> {
-    const { rows } = await this.knex.raw<{ rows: { hits: number; reset_at: Date }[] }>(
-      `insert into rate_limit_hits (key, hits, reset_at)
-       values (?, 1, now() + (? * interval '1 millisecond'))
-       on conflict (key) do update set
-         hits = case when rate_limit_hits.reset_at <= now() then 1 else rate_limit_hits.hits + 1 end,
-         reset_at = case when rate_limit_hits.reset_at <= now() then excluded.reset_at else rate_limit_hits.reset_at end
-       returning hits, reset_at`,
-      [this.prefix + key, this.windowMs],
-    );
-    return { totalHits: rows[0].hits, resetTime: rows[0].reset_at };
+    const { hits, resetAt } = await counters.hit(this.knex, this.prefix + key, this.windowMs);
+    return { totalHits: hits, resetTime: resetAt };
   }
   async decrement(key: string) {
-    await this.knex('rate_limit_hits')
-      .where({ key: this.prefix + key })
-      .update({ hits: this.knex.raw('greatest(hits - 1, 0)') });
+    await counters.unhit(this.knex, this.prefix + key);
   }
   async resetKey(key: string) {
-    await this.knex('rate_limit_hits')
-      .where({ key: this.prefix + key })
-      .delete();
+    await counters.reset(this.knex, this.prefix + key);
   }
 }
 

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { signInInputSchema, signUpInputSchema } from '../../../shared/schemas/auth';
-import type { AppDeps } from '../../app';
+import type { AppDeps } from '../../lib/deps';
 import { requireAuth } from '../../middleware/require-auth';
 import { createRateLimit } from '../../middleware/rate-limit';
 import { validate } from '../../middleware/validate';

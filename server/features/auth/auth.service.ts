@@ -2,11 +2,11 @@ import type { Knex } from 'knex';
 import type { SignInInput, SignUpInput } from '../../../shared/schemas/auth';
 import { hashPassword, verifyPassword, type SessionUser } from '../../lib/auth';
 import { ConflictError, UnauthorizedError } from '../../lib/errors';
-import { findUserByEmail, insertUser } from './auth.repository';
+import * as repo from './auth.repository';
 
 export async function signUp(knex: Knex, input: SignUpInput): Promise<SessionUser> {
   const passwordHash = await hashPassword(input.password);
-  const user = await insertUser(knex, { ...input, passwordHash });
+  const user = await repo.insertUser(knex, { ...input, passwordHash });
   if (!user) {
     throw new ConflictError('email_taken', 'An account with this e-mail already exists', {
       email: 'An account with this e-mail already exists — sign in instead',
@@ -17,7 +17,7 @@ export async function signUp(knex: Knex, input: SignUpInput): Promise<SessionUse
 
 /** Same answer for an unknown e-mail and a wrong password, in about the same time. */
 export async function signIn(knex: Knex, input: SignInInput): Promise<SessionUser> {
-  const row = await findUserByEmail(knex, input.email);
+  const row = await repo.findUserByEmail(knex, input.email);
   const ok = await verifyPassword(row?.password_hash ?? null, input.password);
   if (!row || !ok) {
     throw new UnauthorizedError(
@@ -27,3 +27,12 @@ export async function signIn(knex: Knex, input: SignInInput): Promise<SessionUse
   }
   return { id: row.id, email: row.email, displayName: row.display_name };
 }
+
+/** The account with this e-mail (lower-cased by the schemas), or undefined. */
+export const findUserByEmail = (knex: Knex, email: string) => repo.findUserByEmail(knex, email);
+
+/** Creates an account inside the caller's transaction; null when the e-mail is taken. */
+export const createUser = (
+  knex: Knex,
+  user: { email: string; displayName: string; passwordHash: string },
+) => repo.insertUser(knex, user);

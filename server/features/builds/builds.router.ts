@@ -1,14 +1,8 @@
 import { Router } from 'express';
 import { createBuildInputSchema, updateBuildInputSchema } from '../../../shared/schemas/builds';
-import type { AppDeps } from '../../app';
-import { buildAccess } from '../../middleware/build-access';
+import type { AppDeps } from '../../lib/deps';
 import { requireAuth } from '../../middleware/require-auth';
 import { validate } from '../../middleware/validate';
-import { buildEstimateRouter } from '../estimate/estimate.router';
-import { membersRouter } from '../members/members.router';
-import { partsRouter } from '../parts/parts.router';
-import { installLogRouter } from '../install-log/install-log.router';
-import { photosRouter } from '../photos/photos.router';
 import * as service from './builds.service';
 
 /** Mounted at /api/builds. */
@@ -22,12 +16,12 @@ export function buildsRouter(deps: AppDeps) {
   router.post('/', requireAuth, validate({ body: createBuildInputSchema }), async (req, res) => {
     res.status(201).json({ build: await service.create(knex, req.user!.id, req.body) });
   });
-  router.get('/:buildId', buildAccess(knex, 'build:read'), async (req, res) => {
+  router.get('/:buildId', deps.access('build:read'), async (req, res) => {
     res.json({ build: await service.get(knex, req.membership!.buildId, req.user!.id) });
   });
   router.patch(
     '/:buildId',
-    buildAccess(knex, 'build:update'),
+    deps.access('build:update'),
     validate({ body: updateBuildInputSchema }),
     async (req, res) => {
       res.json({
@@ -35,15 +29,9 @@ export function buildsRouter(deps: AppDeps) {
       });
     },
   );
-  router.delete('/:buildId', buildAccess(knex, 'build:delete'), async (req, res) => {
+  router.delete('/:buildId', deps.access('build:delete'), async (req, res) => {
     await service.remove(knex, req.membership!.buildId, deps);
     res.status(204).end();
   });
-
-  router.use('/:buildId/members', membersRouter(deps));
-  router.use('/:buildId', partsRouter(deps));
-  router.use('/:buildId', installLogRouter(deps));
-  router.use('/:buildId', photosRouter(deps));
-  router.use('/:buildId', buildEstimateRouter(deps));
   return router;
 }

@@ -3,12 +3,11 @@ import { can } from '../../../shared/permissions';
 import type { CreateBuildInput, UpdateBuildInput } from '../../../shared/schemas/builds';
 import { stripMoney } from '../../lib/money-filter';
 import { NotFoundError } from '../../lib/errors';
-import { insertMember } from '../members/members.repository';
+import type { Logger } from '../../lib/logger';
+import type { Storage } from '../../lib/storage';
+import * as files from '../files';
+import * as members from '../members';
 import * as repo from './builds.repository';
-import { deletePhotos } from '../photos/photos.repository';
-import { deleteFiles } from '../photos/photos.service';
-
-type FileCtx = Parameters<typeof deleteFiles>[0];
 
 /** My builds, each shown as my role on it allows (money only where I own it). */
 export async function listMine(knex: Knex, userId: string) {
@@ -26,7 +25,7 @@ export async function get(knex: Knex, buildId: string, userId: string) {
 export async function create(knex: Knex, userId: string, input: CreateBuildInput) {
   const id = await knex.transaction(async (trx) => {
     const buildId = await repo.insertBuild(trx, input);
-    await insertMember(trx, buildId, userId, 'owner');
+    await members.addMember(trx, buildId, userId, 'owner');
     return buildId;
   });
   return get(knex, id, userId);
@@ -37,12 +36,12 @@ export async function update(knex: Knex, buildId: string, userId: string, input:
   return get(knex, buildId, userId);
 }
 
-/** The build, its rows (by cascade) and its photo files. */
-export async function remove(knex: Knex, buildId: string, files: FileCtx) {
-  const keys = await knex.transaction(async (trx) => {
-    const photoKeys = await deletePhotos(trx, { buildId });
-    await repo.deleteBuild(trx, buildId);
-    return photoKeys;
-  });
-  await deleteFiles(files, keys);
+/** The build and its rows by cascade; their files are queued with them and removed after. */
+export async function remove(
+  knex: Knex,
+  buildId: string,
+  ctx: { storage: Storage; logger: Logger },
+) {
+  await repo.deleteBuild(knex, buildId);
+  await files.purgeSoon({ knex, ...ctx });
 }

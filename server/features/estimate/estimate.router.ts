@@ -1,7 +1,6 @@
 import { Router } from 'express';
 import { assumptionsInputSchema, estimateRequestSchema } from '../../../shared/schemas/estimate';
-import type { AppDeps } from '../../app';
-import { buildAccess } from '../../middleware/build-access';
+import type { AppDeps } from '../../lib/deps';
 import { createRateLimit } from '../../middleware/rate-limit';
 import { validate } from '../../middleware/validate';
 import * as service from './estimate.service';
@@ -28,22 +27,27 @@ export function estimateRouter({ db, config }: AppDeps) {
   return router;
 }
 
-/** Mounted at /api/builds/:buildId (estimate and assumptions). */
-export function buildEstimateRouter({ db }: AppDeps) {
+/** Mounted at /api/builds/:buildId/estimate: the build's estimate, for every member. */
+export function buildEstimateRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
-  const knex = db.knex;
-
-  router.get('/estimate', buildAccess(knex, 'estimate:read'), async (req, res) => {
+  router.get('/', deps.access('estimate:read'), async (req, res) => {
     const { buildId, role } = req.membership!;
     const viewer = role === 'shop' ? { shopUserId: req.user!.id } : {};
-    res.json({ estimate: await service.estimateBuild(knex, buildId, viewer) });
+    res.json({ estimate: await service.estimateBuild(deps.db.knex, buildId, viewer) });
   });
-  router.get('/assumptions', buildAccess(knex, 'estimate:read'), async (req, res) => {
+  return router;
+}
+
+/** Mounted at /api/builds/:buildId/assumptions: read by members, changed by the owner. */
+export function assumptionsRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const knex = deps.db.knex;
+  router.get('/', deps.access('estimate:read'), async (req, res) => {
     res.json(await service.getAssumptions(knex, req.membership!.buildId));
   });
   router.put(
-    '/assumptions',
-    buildAccess(knex, 'assumptions:update'),
+    '/',
+    deps.access('assumptions:update'),
     validate({ body: assumptionsInputSchema }),
     async (req, res) => {
       res.json(await service.saveAssumptions(knex, req.membership!.buildId, req.body));

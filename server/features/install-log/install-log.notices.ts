@@ -14,8 +14,8 @@ import {
   type TorqueUnit,
   type Verdict,
 } from '../../../shared/install-log/torque';
-import { quoted } from '../mail/mail.format';
-import { actorName, notify } from '../notices/notices.service';
+import { quoted } from '../mail';
+import { actorName, notify } from '../notices';
 
 /** Client path of a step's page (the client's route for it must match). */
 export const stepPath = (buildId: string, stepId: string) =>

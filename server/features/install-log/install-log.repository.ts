@@ -740,3 +740,13 @@ export async function specHasReadings(knex: Knex, specId: string) {
   const row = await knex('torque_readings').where({ spec_id: specId }).first('id');
   return Boolean(row);
 }
+
+/** Photo counts per step (the photos feature's table, read here for the step cards). */
+export async function countPhotosByStep(knex: Knex, stepIds: string[]) {
+  if (!stepIds.length) return new Map<string, number>();
+  const rows: { step_id: string; count: number }[] = await knex('photos')
+    .whereIn('step_id', stepIds)
+    .groupBy('step_id')
+    .select('step_id', knex.raw('count(*)::int as count'));
+  return new Map(rows.map((r) => [r.step_id, r.count]));
+}

@@ -1,4 +1,4 @@
-import { Router, type Request } from 'express';
+import { Router } from 'express';
 import {
   closeRetorqueInputSchema,
   createChecklistItemInputSchema,
@@ -12,231 +12,264 @@ import {
   updateJobInputSchema,
   updateStepInputSchema,
 } from '../../../shared/schemas/install-log';
-import type { AppDeps } from '../../app';
+import type { AppDeps } from '../../lib/deps';
 import { ValidationError } from '../../lib/errors';
-import { buildAccess } from '../../middleware/build-access';
+import { param, scoped } from '../../lib/scope';
 import { validate } from '../../middleware/validate';
 import * as service from './install-log.service';
 
-/** Mounted at /api/builds/:buildId (jobs, steps, checklist, fasteners, readings, sign-off, re-torque checks). */
-export function installLogRouter(deps: AppDeps) {
-  const router = Router({ mergeParams: true });
-  const knex = deps.db.knex;
-  const read = buildAccess(knex, 'install:read');
-  const write = buildAccess(knex, 'install:write');
-  const remove = buildAccess(knex, 'install:delete');
-  const owner = buildAccess(knex, 'install:override');
-  const caller = (req: Request): service.Caller => ({
-    userId: req.user!.id,
-    role: req.membership!.role,
-  });
-  const build = (req: Request) => req.membership!.buildId;
-  const param = (req: Request, name: string) => String(req.params[name]);
+/**
+ * The install log's routers, one per entity, each mounted once in server/routes.ts:
+ * jobs, steps (with sign-off, checklist and fastener creation), checklist items,
+ * fasteners (with readings) and re-torque checks.
+ */
+function access(deps: AppDeps) {
+  return {
+    read: deps.access('install:read'),
+    write: deps.access('install:write'),
+    remove: deps.access('install:delete'),
+    owner: deps.access('install:override'),
+    knex: deps.db.knex,
+    files: { storage: deps.storage, logger: deps.logger },
+  };
+}
 
-  // Jobs
-  router.get('/jobs', read, async (req, res) => {
-    res.json({ jobs: await service.listJobs(knex, build(req), caller(req)) });
-  });
-  router.post('/jobs', write, validate({ body: createJobInputSchema }), async (req, res) => {
-    res.status(201).json({ job: await service.createJob(knex, build(req), caller(req), req.body) });
-  });
-  router.get('/jobs/:jobId', read, async (req, res) => {
-    res.json({ job: await service.getJob(knex, build(req), param(req, 'jobId'), caller(req)) });
-  });
+/** Mounted at /api/builds/:buildId/jobs. */
+export function jobsRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const { read, write, remove, knex, files } = access(deps);
+  router.get(
+    '/',
+    read,
+    scoped(knex, async (s) => ({ jobs: await service.listJobs(s.knex, s.buildId, s.caller) })),
+  );
+  router.post(
+    '/',
+    write,
+    validate({ body: createJobInputSchema }),
+    scoped(
+      knex,
+      async (s, req) => ({ job: await service.createJob(s.knex, s.buildId, s.caller, req.body) }),
+      201,
+    ),
+  );
+  router.get(
+    '/:jobId',
+    read,
+    scoped(knex, async (s, req) => ({
+      job: await service.getJob(s.knex, s.buildId, param(req, 'jobId'), s.caller),
+    })),
+  );
   router.patch(
-    '/jobs/:jobId',
+    '/:jobId',
     write,
     validate({ body: updateJobInputSchema }),
-    async (req, res) => {
-      res.json({
-        job: await service.updateJob(knex, build(req), param(req, 'jobId'), caller(req), req.body),
-      });
-    },
+    scoped(knex, async (s, req) => ({
+      job: await service.updateJob(s.knex, s.buildId, param(req, 'jobId'), s.caller, req.body),
+    })),
   );
-  router.delete('/jobs/:jobId', remove, async (req, res) => {
-    await service.deleteJob(knex, deps, build(req), param(req, 'jobId'));
-    res.status(204).end();
-  });
-
-  // Steps
+  router.delete(
+    '/:jobId',
+    remove,
+    scoped(knex, (s, req) => service.deleteJob(s.knex, files, s.buildId, param(req, 'jobId'))),
+  );
   router.post(
-    '/jobs/:jobId/steps',
+    '/:jobId/steps',
     write,
     validate({ body: createStepInputSchema }),
-    async (req, res) => {
-      res.status(201).json({
-        step: await service.createStep(
-          knex,
-          build(req),
-          param(req, 'jobId'),
-          caller(req),
-          req.body,
-        ),
-      });
-    },
+    scoped(
+      knex,
+      async (s, req) => ({
+        step: await service.createStep(s.knex, s.buildId, param(req, 'jobId'), s.caller, req.body),
+      }),
+      201,
+    ),
   );
-  router.get('/steps/:stepId', read, async (req, res) => {
-    res.json({ step: await service.getStep(knex, build(req), param(req, 'stepId'), caller(req)) });
-  });
+  return router;
+}
+
+/** Mounted at /api/builds/:buildId/steps. Sign-off: owner and crew; only the owner overrides blockers or reopens. */
+export function stepsRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const { read, write, remove, owner, knex, files } = access(deps);
+  router.get(
+    '/:stepId',
+    read,
+    scoped(knex, async (s, req) => ({
+      step: await service.getStep(s.knex, s.buildId, param(req, 'stepId'), s.caller),
+    })),
+  );
   router.patch(
-    '/steps/:stepId',
+    '/:stepId',
     write,
     validate({ body: updateStepInputSchema }),
-    async (req, res) => {
-      res.json({
-        step: await service.updateStep(
-          knex,
-          build(req),
-          param(req, 'stepId'),
-          caller(req),
-          req.body,
-        ),
-      });
-    },
+    scoped(knex, async (s, req) => ({
+      step: await service.updateStep(s.knex, s.buildId, param(req, 'stepId'), s.caller, req.body),
+    })),
   );
-  router.delete('/steps/:stepId', remove, async (req, res) => {
-    await service.deleteStep(knex, deps, build(req), param(req, 'stepId'), caller(req));
-    res.status(204).end();
-  });
-
-  // Sign-off: owner and crew sign off; only the owner overrides blockers or reopens.
+  router.delete(
+    '/:stepId',
+    remove,
+    scoped(knex, (s, req) =>
+      service.deleteStep(s.knex, files, s.buildId, param(req, 'stepId'), s.caller),
+    ),
+  );
   router.post(
-    '/steps/:stepId/sign-off',
+    '/:stepId/sign-off',
     write,
     validate({ body: signOffInputSchema }),
-    async (req, res) => {
-      res.json({
-        step: await service.signOff(knex, build(req), param(req, 'stepId'), caller(req), req.body),
-      });
-    },
+    scoped(knex, async (s, req) => ({
+      step: await service.signOff(s.knex, s.buildId, param(req, 'stepId'), s.caller, req.body),
+    })),
   );
-  router.delete('/steps/:stepId/sign-off', owner, async (req, res) => {
-    res.json({ step: await service.reopen(knex, build(req), param(req, 'stepId'), caller(req)) });
-  });
-
-  // Checklist
+  router.delete(
+    '/:stepId/sign-off',
+    owner,
+    scoped(knex, async (s, req) => ({
+      step: await service.reopen(s.knex, s.buildId, param(req, 'stepId'), s.caller),
+    })),
+  );
   router.post(
-    '/steps/:stepId/checklist',
+    '/:stepId/checklist',
     write,
     validate({ body: createChecklistItemInputSchema }),
-    async (req, res) => {
-      res.status(201).json({
+    scoped(
+      knex,
+      async (s, req) => ({
         item: await service.addChecklistItem(
-          knex,
-          build(req),
+          s.knex,
+          s.buildId,
           param(req, 'stepId'),
-          caller(req),
+          s.caller,
           req.body,
         ),
-      });
-    },
+      }),
+      201,
+    ),
   );
-  router.patch(
-    '/checklist/:itemId',
-    write,
-    validate({ body: updateChecklistItemInputSchema }),
-    async (req, res) => {
-      res.json({
-        item: await service.updateChecklistItem(
-          knex,
-          build(req),
-          param(req, 'itemId'),
-          caller(req),
-          req.body,
-        ),
-      });
-    },
-  );
-  router.delete('/checklist/:itemId', remove, async (req, res) => {
-    await service.deleteChecklistItem(knex, build(req), param(req, 'itemId'), caller(req));
-    res.status(204).end();
-  });
-
-  // Fastener specs
   router.post(
-    '/steps/:stepId/fasteners',
+    '/:stepId/fasteners',
     write,
     validate({ body: createFastenerSpecInputSchema }),
-    async (req, res) => {
-      res.status(201).json({
+    scoped(
+      knex,
+      async (s, req) => ({
         fastener: await service.addFastener(
-          knex,
-          build(req),
+          s.knex,
+          s.buildId,
           param(req, 'stepId'),
-          caller(req),
+          s.caller,
           req.body,
         ),
-      });
-    },
+      }),
+      201,
+    ),
   );
+  return router;
+}
+
+/** Mounted at /api/builds/:buildId/checklist. */
+export function checklistRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const { write, remove, knex } = access(deps);
   router.patch(
-    '/fasteners/:specId',
+    '/:itemId',
+    write,
+    validate({ body: updateChecklistItemInputSchema }),
+    scoped(knex, async (s, req) => ({
+      item: await service.updateChecklistItem(
+        s.knex,
+        s.buildId,
+        param(req, 'itemId'),
+        s.caller,
+        req.body,
+      ),
+    })),
+  );
+  router.delete(
+    '/:itemId',
+    remove,
+    scoped(knex, (s, req) =>
+      service.deleteChecklistItem(s.knex, s.buildId, param(req, 'itemId'), s.caller),
+    ),
+  );
+  return router;
+}
+
+/** Mounted at /api/builds/:buildId/fasteners. Readings are never edited: a new one supersedes the current one. */
+export function fastenersRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const { read, write, remove, knex } = access(deps);
+  router.patch(
+    '/:specId',
     write,
     validate({ body: updateFastenerSpecInputSchema }),
-    async (req, res) => {
-      res.json({
-        fastener: await service.updateFastener(
-          knex,
-          build(req),
-          param(req, 'specId'),
-          caller(req),
-          req.body,
-        ),
-      });
-    },
+    scoped(knex, async (s, req) => ({
+      fastener: await service.updateFastener(
+        s.knex,
+        s.buildId,
+        param(req, 'specId'),
+        s.caller,
+        req.body,
+      ),
+    })),
   );
-  router.delete('/fasteners/:specId', remove, async (req, res) => {
-    await service.deleteFastener(knex, build(req), param(req, 'specId'), caller(req));
-    res.status(204).end();
-  });
-
-  // Readings: never edited; a new reading supersedes the current one for its position.
-  router.get('/fasteners/:specId/readings', read, async (req, res) => {
-    res.json(await service.listReadings(knex, build(req), param(req, 'specId'), caller(req)));
-  });
+  router.delete(
+    '/:specId',
+    remove,
+    scoped(knex, (s, req) =>
+      service.deleteFastener(s.knex, s.buildId, param(req, 'specId'), s.caller),
+    ),
+  );
+  router.get(
+    '/:specId/readings',
+    read,
+    scoped(knex, (s, req) =>
+      service.listReadings(s.knex, s.buildId, param(req, 'specId'), s.caller),
+    ),
+  );
   router.post(
-    '/fasteners/:specId/readings',
+    '/:specId/readings',
     write,
     validate({ body: createReadingInputSchema }),
-    async (req, res) => {
-      res
-        .status(201)
-        .json(
-          await service.recordReading(
-            knex,
-            build(req),
-            param(req, 'specId'),
-            caller(req),
-            req.body,
-          ),
-        );
-    },
+    scoped(
+      knex,
+      (s, req) =>
+        service.recordReading(s.knex, s.buildId, param(req, 'specId'), s.caller, req.body),
+      201,
+    ),
   );
+  return router;
+}
 
-  // Re-torque checks
-  router.get('/retorque-checks', read, async (req, res) => {
-    const status = req.query.status ?? 'open';
-    if (status !== 'open' && status !== 'all') {
-      throw new ValidationError('Unknown filter', { status: 'Use open or all' });
-    }
-    res.json({ checks: await service.listRetorqueChecks(knex, build(req), caller(req), status) });
-  });
+/** Mounted at /api/builds/:buildId/retorque-checks. */
+export function retorqueRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const { read, write, knex } = access(deps);
+  router.get(
+    '/',
+    read,
+    scoped(knex, async (s, req) => {
+      const status = req.query.status ?? 'open';
+      if (status !== 'open' && status !== 'all') {
+        throw new ValidationError('Unknown filter', { status: 'Use open or all' });
+      }
+      return { checks: await service.listRetorqueChecks(s.knex, s.buildId, s.caller, status) };
+    }),
+  );
   router.post(
-    '/retorque-checks/:specId/close',
+    '/:specId/close',
     write,
     validate({ body: closeRetorqueInputSchema }),
-    async (req, res) => {
-      res.json({
-        check: await service.closeRetorqueCheck(
-          knex,
-          build(req),
-          param(req, 'specId'),
-          caller(req),
-          req.body,
-        ),
-      });
-    },
+    scoped(knex, async (s, req) => ({
+      check: await service.closeRetorqueCheck(
+        s.knex,
+        s.buildId,
+        param(req, 'specId'),
+        s.caller,
+        req.body,
+      ),
+    })),
   );
-
   return router;
 }

@@ -47,7 +47,7 @@ import {
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { Storage } from '../../lib/storage';
 import type { Logger } from '../../lib/logger';
-import * as photosRepo from '../photos/photos.repository';
+import * as files from '../files';
 import * as repo from './install-log.repository';
 import { notifyStepSignedOff, notifyTorqueOutOfSpec } from './install-log.notices';
 
@@ -70,7 +70,8 @@ export async function visibleSteps(
   return caller.role === 'shop' ? repo.stepIdsForShop(knex, buildId, caller.userId) : null;
 }
 
-async function loadStep(knex: Knex, buildId: string, rawStepId: string, caller: Caller) {
+/** A step the caller may see (a shop: only steps linked to its parts), or 404. */
+export async function loadStep(knex: Knex, buildId: string, rawStepId: string, caller: Caller) {
   const step = await repo.findStep(knex, buildId, parseId(rawStepId, 'Step'));
   if (!step) throw new NotFoundError('Step not found');
   if (
@@ -155,7 +156,7 @@ async function assembleSteps(knex: Knex, steps: repo.StepRecord[]): Promise<Step
   const links = await repo.listStepParts(knex, ids);
   const checklist = await repo.listChecklist(knex, ids);
   const specs = await repo.listSpecs(knex, ids);
-  const photoCounts = await photosRepo.countByStep(knex, ids);
+  const photoCounts = await repo.countPhotosByStep(knex, ids);
   const readings = await repo.listReadings(
     knex,
     specs.map((s) => s.id),
@@ -294,26 +295,15 @@ export async function updateJob(
   return getJob(knex, buildId, job.id, caller);
 }
 
-/** Deletes rows first, then the files of their photos (a failed file delete leaves only an orphan file). */
-async function removeFiles(ctx: FileCtx, keys: string[]) {
-  for (const key of keys) {
-    await ctx.storage
-      .delete(key)
-      .catch((err) => ctx.logger.error({ err, key }, 'could not delete a photo file'));
-  }
-}
-
 export async function deleteJob(knex: Knex, ctx: FileCtx, buildId: string, rawJobId: string) {
   const job = await loadJob(knex, buildId, rawJobId);
-  const keys = await knex.transaction(async (trx) => {
-    const stepIds = (await repo.listSteps(trx, buildId, { jobId: job.id })).map((s) => s.id);
-    const photoKeys = await photosRepo.deletePhotos(trx, { stepIds });
-    await repo.deleteJob(trx, job.id);
+  // Steps and their photos go by cascade; the photos' files are queued in the same transaction.
+  await knex.transaction(async (trx) => {
     await repo.lockParent(trx, 'install_jobs', buildId);
+    await repo.deleteJob(trx, job.id);
     await repo.closeGaps(trx, 'install_jobs', buildId);
-    return photoKeys;
   });
-  await removeFiles(ctx, keys);
+  await files.purgeSoon({ knex, ...ctx });
 }
 
 // ---- steps --------------------------------------------------------------------------
@@ -386,14 +376,12 @@ export async function deleteStep(
   caller: Caller,
 ) {
   const step = await loadStep(knex, buildId, rawStepId, caller);
-  const keys = await knex.transaction(async (trx) => {
-    const photoKeys = await photosRepo.deletePhotos(trx, { stepIds: [step.id] });
-    await repo.deleteStep(trx, step.id);
+  await knex.transaction(async (trx) => {
     await repo.lockParent(trx, 'install_steps', step.jobId);
+    await repo.deleteStep(trx, step.id);
     await repo.closeGaps(trx, 'install_steps', step.jobId);
-    return photoKeys;
   });
-  await removeFiles(ctx, keys);
+  await files.purgeSoon({ knex, ...ctx });
 }
 
 // ---- checklist --------------------------------------------------------------------------

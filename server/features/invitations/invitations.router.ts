@@ -3,17 +3,17 @@ import {
   acceptInvitationInputSchema,
   createInvitationInputSchema,
 } from '../../../shared/schemas/invitations';
-import type { AppDeps } from '../../app';
-import { buildAccess } from '../../middleware/build-access';
+import type { AppDeps } from '../../lib/deps';
 import { createRateLimit } from '../../middleware/rate-limit';
 import { validate } from '../../middleware/validate';
 import * as service from './invitations.service';
 
 /** Mounted at /api/builds/:buildId/invitations: the owner's side. */
-export function buildInvitationsRouter({ db }: AppDeps) {
+export function buildInvitationsRouter(deps: AppDeps) {
+  const { db } = deps;
   const router = Router({ mergeParams: true });
   const knex = db.knex;
-  const manage = buildAccess(knex, 'invitations:manage');
+  const manage = deps.access('invitations:manage');
 
   router.get('/', manage, async (req, res) => {
     res.json({ invitations: await service.list(knex, req.membership!.buildId) });

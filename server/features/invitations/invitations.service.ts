@@ -11,10 +11,9 @@ import { idSchema } from '../../../shared/schemas/common';
 import { hashPassword, type SessionUser } from '../../lib/auth';
 import { AppError, ConflictError, NotFoundError, UnauthorizedError } from '../../lib/errors';
 import { hashToken, isTokenShaped, newToken } from '../../lib/tokens';
-import { findUserByEmail, insertUser } from '../auth/auth.repository';
-import { enqueueMail, type QueuedMail } from '../mail/mail.repository';
-import { mailDateTime, quoted } from '../mail/mail.format';
-import { findRole, insertMember } from '../members/members.repository';
+import { createUser, findUserByEmail } from '../auth';
+import { enqueueMail, mailDateTime, quoted, type QueuedMail } from '../mail';
+import { addMember, findRole } from '../members';
 import * as repo from './invitations.repository';
 
 /** Where the client shows an invitation; the mail's button leads here. */
@@ -247,7 +246,7 @@ export async function accept(
           },
         );
       }
-      const created = await insertUser(trx, {
+      const created = await createUser(trx, {
         email: inv.email,
         displayName: input.displayName!,
         passwordHash: passwordHash!,
@@ -260,7 +259,7 @@ export async function accept(
       user = created;
       accountCreated = true;
     }
-    const joined = await insertMember(trx, inv.build_id, user.id, inv.role);
+    const joined = await addMember(trx, inv.build_id, user.id, inv.role);
     const role = joined ? inv.role : ((await findRole(trx, inv.build_id, user.id)) ?? inv.role);
     await repo.markAccepted(trx, inv.id, user.id);
     return {

@@ -1,21 +1,21 @@
 import { Router } from 'express';
 import { addMemberInputSchema, updateMemberInputSchema } from '../../../shared/schemas/builds';
-import type { AppDeps } from '../../app';
-import { buildAccess } from '../../middleware/build-access';
+import type { AppDeps } from '../../lib/deps';
 import { validate } from '../../middleware/validate';
 import * as service from './members.service';
 
 /** Mounted at /api/builds/:buildId/members. */
-export function membersRouter({ db }: AppDeps) {
+export function membersRouter(deps: AppDeps) {
+  const { db } = deps;
   const router = Router({ mergeParams: true });
   const knex = db.knex;
 
-  router.get('/', buildAccess(knex, 'members:read'), async (req, res) => {
+  router.get('/', deps.access('members:read'), async (req, res) => {
     res.json({ members: await service.list(knex, req.membership!.buildId, req.membership!.role) });
   });
   router.post(
     '/',
-    buildAccess(knex, 'members:manage'),
+    deps.access('members:manage'),
     validate({ body: addMemberInputSchema }),
     async (req, res) => {
       res.status(201).json({ member: await service.add(knex, req.membership!.buildId, req.body) });
@@ -23,7 +23,7 @@ export function membersRouter({ db }: AppDeps) {
   );
   router.patch(
     '/:userId',
-    buildAccess(knex, 'members:manage'),
+    deps.access('members:manage'),
     validate({ body: updateMemberInputSchema }),
     async (req, res) => {
       res.json({
@@ -36,7 +36,7 @@ export function membersRouter({ db }: AppDeps) {
       });
     },
   );
-  router.delete('/:userId', buildAccess(knex, 'members:manage'), async (req, res) => {
+  router.delete('/:userId', deps.access('members:manage'), async (req, res) => {
     await service.remove(knex, req.membership!.buildId, String(req.params.userId));
     res.status(204).end();
   });

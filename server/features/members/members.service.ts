@@ -3,7 +3,7 @@ import { can, type Role } from '../../../shared/permissions';
 import type { AddMemberInput, UpdateMemberInput } from '../../../shared/schemas/builds';
 import { idSchema } from '../../../shared/schemas/common';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
-import { findUserByEmail } from '../auth/auth.repository';
+import { findUserByEmail } from '../auth';
 import * as repo from './members.repository';
 
 function present(member: repo.MemberRecord, viewerRole: Role) {
@@ -74,3 +74,11 @@ export async function remove(knex: Knex, buildId: string, rawUserId: string) {
     await repo.deleteMember(trx, buildId, userId);
   });
 }
+
+/** A member's role on a build, or undefined for a stranger (the access check's question). */
+export const findRole = (knex: Knex, buildId: string, userId: string) =>
+  repo.findRole(knex, buildId, userId);
+
+/** Adds a member inside the caller's transaction; false when they already are one. */
+export const addMember = (knex: Knex, buildId: string, userId: string, role: Role) =>
+  repo.insertMember(knex, buildId, userId, role);

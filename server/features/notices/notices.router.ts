@@ -1,15 +1,15 @@
 import { Router } from 'express';
 import { noticePreferencesInputSchema } from '../../../shared/schemas/notices';
-import type { AppDeps } from '../../app';
-import { buildAccess } from '../../middleware/build-access';
+import type { AppDeps } from '../../lib/deps';
 import { validate } from '../../middleware/validate';
 import * as service from './notices.service';
 
 /** Mounted at /api/builds/:buildId/notice-preferences: each member's own choices. */
-export function noticePreferencesRouter({ db }: AppDeps) {
+export function noticePreferencesRouter(deps: AppDeps) {
+  const { db } = deps;
   const router = Router({ mergeParams: true });
   const knex = db.knex;
-  const own = buildAccess(knex, 'notices:own-preferences');
+  const own = deps.access('notices:own-preferences');
 
   router.get('/', own, async (req, res) => {
     res.json({

@@ -18,8 +18,7 @@ import {
   type NoticePreferences,
   type NoticePreferencesInput,
 } from '../../../shared/schemas/notices';
-import { enqueueMail } from '../mail/mail.repository';
-import { quoted } from '../mail/mail.format';
+import { enqueueMail, quoted } from '../mail';
 import * as repo from './notices.repository';
 
 export type Notice = {

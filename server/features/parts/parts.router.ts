@@ -1,9 +1,8 @@
 import { Router } from 'express';
 import multer from 'multer';
 import { createPartInputSchema, updatePartInputSchema } from '../../../shared/schemas/parts';
-import type { AppDeps } from '../../app';
+import type { AppDeps } from '../../lib/deps';
 import { AppError } from '../../lib/errors';
-import { buildAccess } from '../../middleware/build-access';
 import { validate } from '../../middleware/validate';
 import * as service from './parts.service';
 
@@ -13,7 +12,7 @@ const upload = multer({
   limits: { fileSize: maxCsvBytes, files: 1 },
 });
 
-/** Mounted at /api/builds/:buildId (parts and budget). */
+/** Mounted at /api/builds/:buildId/parts. */
 export function partsRouter(deps: AppDeps) {
   const { db } = deps;
   const router = Router({ mergeParams: true });
@@ -23,38 +22,24 @@ export function partsRouter(deps: AppDeps) {
     role: req.membership!.role,
   });
 
-  router.get('/parts', buildAccess(knex, 'parts:read'), shopQuote, async (req, res) => {
+  router.get('/', deps.access('parts:read'), shopQuote, async (req, res) => {
     res.json({ parts: await service.list(knex, req.membership!.buildId, caller(req)) });
   });
-  router.get('/parts.csv', buildAccess(knex, 'parts:read'), async (req, res) => {
-    const csv = await service.exportCsv(knex, req.membership!.buildId, caller(req));
-    res.type('text/csv; charset=utf-8').attachment('parts.csv').send(csv);
-  });
   router.post(
-    '/parts',
-    buildAccess(knex, 'parts:create'),
+    '/',
+    deps.access('parts:create'),
     validate({ body: createPartInputSchema }),
     async (req, res) => {
       res.status(201).json({ part: await service.create(knex, req.membership!.buildId, req.body) });
     },
   );
-  router.post(
-    '/parts/import',
-    buildAccess(knex, 'parts:import'),
-    upload.single('file'),
-    async (req, res) => {
-      if (!req.file) throw new AppError(400, 'no_file', 'Attach a CSV file in the "file" field');
-      const dryRun = req.query.dryRun === '1' || req.query.dryRun === 'true';
-      const result = await service.importCsv(
-        knex,
-        req.membership!.buildId,
-        req.file.buffer,
-        dryRun,
-      );
-      res.status(dryRun ? 200 : 201).json({ dryRun, saved: result.saved, rows: result.rows });
-    },
-  );
-  router.get('/parts/:partId', buildAccess(knex, 'parts:read'), shopQuote, async (req, res) => {
+  router.post('/import', deps.access('parts:import'), upload.single('file'), async (req, res) => {
+    if (!req.file) throw new AppError(400, 'no_file', 'Attach a CSV file in the "file" field');
+    const dryRun = req.query.dryRun === '1' || req.query.dryRun === 'true';
+    const result = await service.importCsv(knex, req.membership!.buildId, req.file.buffer, dryRun);
+    res.status(dryRun ? 200 : 201).json({ dryRun, saved: result.saved, rows: result.rows });
+  });
+  router.get('/:partId', deps.access('parts:read'), shopQuote, async (req, res) => {
     res.json({
       part: await service.get(
         knex,
@@ -65,8 +50,8 @@ export function partsRouter(deps: AppDeps) {
     });
   });
   router.patch(
-    '/parts/:partId',
-    buildAccess(knex, 'parts:update'),
+    '/:partId',
+    deps.access('parts:update'),
     shopQuote,
     validate({ body: updatePartInputSchema }),
     async (req, res) => {
@@ -81,7 +66,7 @@ export function partsRouter(deps: AppDeps) {
       });
     },
   );
-  router.delete('/parts/:partId', buildAccess(knex, 'parts:delete'), async (req, res) => {
+  router.delete('/:partId', deps.access('parts:delete'), async (req, res) => {
     await service.remove(
       knex,
       req.membership!.buildId,
@@ -91,8 +76,19 @@ export function partsRouter(deps: AppDeps) {
     );
     res.status(204).end();
   });
-  router.get('/budget', buildAccess(knex, 'budget:read'), async (req, res) => {
-    res.json({ budget: await service.budget(knex, req.membership!.buildId, req.user!.id) });
+  return router;
+}
+
+/** Mounted at /api/builds/:buildId/parts.csv: the ledger as a spreadsheet file. */
+export function partsCsvRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const knex = deps.db.knex;
+  router.get('/', deps.access('parts:read'), async (req, res) => {
+    const csv = await service.exportCsv(knex, req.membership!.buildId, {
+      userId: req.user!.id,
+      role: req.membership!.role,
+    });
+    res.type('text/csv; charset=utf-8').attachment('parts.csv').send(csv);
   });
   return router;
 }

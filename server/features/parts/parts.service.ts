@@ -1,6 +1,5 @@
 import type { Knex } from 'knex';
-import { can, type Role } from '../../../shared/permissions';
-import { computeBudget } from '../../../shared/ledger/budget';
+import { can } from '../../../shared/permissions';
 import { partTotalCents } from '../../../shared/ledger/cost';
 import { sendOutStatus } from '../../../shared/ledger/send-out';
 import { idSchema } from '../../../shared/schemas/common';
@@ -19,16 +18,15 @@ import {
   ValidationError,
   fieldsFromZod,
 } from '../../lib/errors';
-import { findBuildForUser } from '../builds/builds.repository';
-import { notifyPartProgress } from '../notices/part-notices';
+import type { Logger } from '../../lib/logger';
+import type { Caller } from '../../lib/scope';
+import type { Storage } from '../../lib/storage';
+import * as files from '../files';
 import { parseCsv, partsToCsv } from './parts.csv';
+import { notifyPartProgress } from './parts.notices';
 import * as repo from './parts.repository';
-import { deletePhotos } from '../photos/photos.repository';
-import { deleteFiles } from '../photos/photos.service';
 
-type FileCtx = Parameters<typeof deleteFiles>[0];
-
-export type Caller = { userId: string; role: Role };
+export type { Caller };
 
 const today = () => new Date().toISOString().slice(0, 10);
 
@@ -48,7 +46,8 @@ export async function list(knex: Knex, buildId: string, caller: Caller) {
   return parts.map((p) => present(p, now));
 }
 
-async function load(knex: Knex, buildId: string, rawPartId: string, caller: Caller) {
+/** A part the caller may see (a shop: only the parts sent to it), or 404. */
+export async function getVisible(knex: Knex, buildId: string, rawPartId: string, caller: Caller) {
   const parsed = idSchema.safeParse(rawPartId);
   if (!parsed.success) throw new NotFoundError('Part not found');
   const part = await repo.findPart(knex, buildId, parsed.data);
@@ -59,7 +58,7 @@ async function load(knex: Knex, buildId: string, rawPartId: string, caller: Call
 }
 
 export async function get(knex: Knex, buildId: string, rawPartId: string, caller: Caller) {
-  return present(await load(knex, buildId, rawPartId, caller));
+  return present(await getVisible(knex, buildId, rawPartId, caller));
 }
 
 async function checkShop(knex: Knex, buildId: string, shopUserId: string | null | undefined) {
@@ -92,7 +91,7 @@ export async function update(
   caller: Caller,
   input: UpdatePartInput,
 ) {
-  const existing = await load(knex, buildId, rawPartId, caller);
+  const existing = await getVisible(knex, buildId, rawPartId, caller);
   if (caller.role !== 'owner') {
     const allowed: readonly string[] = partProgressFields;
     const refused = Object.keys(input).filter((k) => !allowed.includes(k));
@@ -112,28 +111,22 @@ export async function update(
   return present((await repo.findPart(knex, buildId, existing.id))!);
 }
 
-/** The part, its photos' rows and then their files. */
+/** The part and, by cascade, its photos; their files are queued with the rows and removed after. */
 export async function remove(
   knex: Knex,
   buildId: string,
   rawPartId: string,
   caller: Caller,
-  files: FileCtx,
+  ctx: { storage: Storage; logger: Logger },
 ) {
-  const part = await load(knex, buildId, rawPartId, caller);
-  const keys = await knex.transaction(async (trx) => {
-    const photoKeys = await deletePhotos(trx, { partIds: [part.id] });
-    await repo.deletePart(trx, buildId, part.id);
-    return photoKeys;
-  });
-  await deleteFiles(files, keys);
+  const part = await getVisible(knex, buildId, rawPartId, caller);
+  await repo.deletePart(knex, buildId, part.id);
+  await files.purgeSoon({ knex, ...ctx });
 }
 
-export async function budget(knex: Knex, buildId: string, userId: string) {
-  const build = await findBuildForUser(knex, buildId, userId);
-  if (!build) throw new NotFoundError('Build not found');
-  const parts = await repo.listParts(knex, buildId);
-  return computeBudget(parts, build.budgetCents ?? 0, build.currency);
+/** Every part of the build with its money, for the budget (owner only). */
+export async function listAll(knex: Knex, buildId: string) {
+  return repo.listParts(knex, buildId);
 }
 
 export async function exportCsv(knex: Knex, buildId: string, caller: Caller) {

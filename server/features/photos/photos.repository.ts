@@ -166,28 +166,7 @@ export async function updateCaption(knex: Knex, photoId: string, caption: string
 }
 
 /** Deletes rows and returns the storage keys their files live under. */
-export async function deletePhotos(
-  knex: Knex,
-  where: { ids?: string[]; stepIds?: string[]; partIds?: string[]; buildId?: string },
-) {
-  const q = knex('photos');
-  if (where.ids) q.whereIn('id', where.ids);
-  else if (where.stepIds) q.whereIn('step_id', where.stepIds);
-  else if (where.partIds) q.whereIn('part_id', where.partIds);
-  else if (where.buildId) q.where('build_id', where.buildId);
-  else return [];
-  const rows: { web_key: string; thumb_key: string }[] = await q
-    .delete()
-    .returning(['web_key', 'thumb_key']);
-  return rows.flatMap((r) => [r.web_key, r.thumb_key]);
-}
-
-/** Photo counts per step. */
-export async function countByStep(knex: Knex, stepIds: string[]) {
-  if (!stepIds.length) return new Map<string, number>();
-  const rows: { step_id: string; count: number }[] = await knex('photos')
-    .whereIn('step_id', stepIds)
-    .groupBy('step_id')
-    .select('step_id', knex.raw('count(*)::int as count'));
-  return new Map(rows.map((r) => [r.step_id, r.count]));
+/** Deletes a photo row; its files are queued for removal by the database in the same statement. */
+export async function deletePhoto(knex: Knex, photoId: string) {
+  return knex('photos').where({ id: photoId }).delete();
 }

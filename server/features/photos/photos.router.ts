@@ -8,9 +8,8 @@ import {
   uploadPhotoFieldsSchema,
   type PhotoSize,
 } from '../../../shared/schemas/photos';
-import type { AppDeps } from '../../app';
+import type { AppDeps } from '../../lib/deps';
 import { AppError } from '../../lib/errors';
-import { buildAccess } from '../../middleware/build-access';
 import { validate } from '../../middleware/validate';
 import * as service from './photos.service';
 
@@ -55,71 +54,32 @@ async function removeTemp(req: Request) {
   await Promise.all(files.map((f) => (f.path ? fs.rm(f.path, { force: true }) : undefined)));
 }
 
-/** Mounted at /api/builds/:buildId (photos of steps and parts, the build's gallery). */
-export function photosRouter(deps: AppDeps) {
-  const router = Router({ mergeParams: true });
+function photoRoutes(deps: AppDeps) {
   const knex = deps.db.knex;
   const ctx: service.Ctx = { knex, storage: deps.storage, logger: deps.logger };
-  const read = buildAccess(knex, 'photos:read');
-  const uploadAccess = buildAccess(knex, 'photos:upload');
-  const receive = receivePhotos(deps);
   const caller = (req: Request): service.Caller => ({
     userId: req.user!.id,
     role: req.membership!.role,
   });
   const build = (req: Request) => req.membership!.buildId;
   const param = (req: Request, name: string) => String(req.params[name]);
+  return { knex, ctx, caller, build, param };
+}
 
-  const uploadTo =
-    (subject: (req: Request) => service.Subject): RequestHandler =>
-    async (req, res) => {
-      try {
-        const fields = uploadPhotoFieldsSchema.parse({ ...req.body });
-        const files = (Array.isArray(req.files) ? req.files : []) as service.UploadedFile[];
-        const photos = await service.upload(
-          ctx,
-          build(req),
-          caller(req),
-          subject(req),
-          files,
-          fields.caption ?? '',
-        );
-        res.status(201).json({ photos });
-      } finally {
-        await removeTemp(req);
-      }
-    };
+/** Mounted at /api/builds/:buildId/photos: the build's gallery and each photo. */
+export function photosRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  const { knex, ctx, caller, build, param } = photoRoutes(deps);
+  const read = deps.access('photos:read');
 
-  router.get('/photos', read, async (req, res) => {
+  router.get('/', read, async (req, res) => {
     res.json({ photos: await service.list(knex, build(req), caller(req)) });
   });
-  router.get('/steps/:stepId/photos', read, async (req, res) => {
-    res.json({
-      photos: await service.list(knex, build(req), caller(req), { stepId: param(req, 'stepId') }),
-    });
-  });
-  router.get('/parts/:partId/photos', read, async (req, res) => {
-    res.json({
-      photos: await service.list(knex, build(req), caller(req), { partId: param(req, 'partId') }),
-    });
-  });
-  router.post(
-    '/steps/:stepId/photos',
-    uploadAccess,
-    receive,
-    uploadTo((req) => ({ stepId: param(req, 'stepId') })),
-  );
-  router.post(
-    '/parts/:partId/photos',
-    uploadAccess,
-    receive,
-    uploadTo((req) => ({ partId: param(req, 'partId') })),
-  );
-  router.get('/photos/:photoId', read, async (req, res) => {
+  router.get('/:photoId', read, async (req, res) => {
     res.json({ photo: await service.get(knex, build(req), param(req, 'photoId'), caller(req)) });
   });
   for (const size of ['web', 'thumb'] as const satisfies PhotoSize[]) {
-    router.get(`/photos/:photoId/${size}`, read, async (req, res) => {
+    router.get(`/:photoId/${size}`, read, async (req, res) => {
       const { data, contentType, photo } = await service.file(
         ctx,
         build(req),
@@ -136,8 +96,8 @@ export function photosRouter(deps: AppDeps) {
     });
   }
   router.patch(
-    '/photos/:photoId',
-    buildAccess(knex, 'photos:update'),
+    '/:photoId',
+    deps.access('photos:update'),
     validate({ body: updatePhotoInputSchema }),
     async (req, res) => {
       res.json({
@@ -151,9 +111,42 @@ export function photosRouter(deps: AppDeps) {
       });
     },
   );
-  router.delete('/photos/:photoId', buildAccess(knex, 'photos:delete'), async (req, res) => {
+  router.delete('/:photoId', deps.access('photos:delete'), async (req, res) => {
     await service.remove(ctx, build(req), param(req, 'photoId'), caller(req));
     res.status(204).end();
+  });
+  return router;
+}
+
+/**
+ * The photos of one step or one part: mounted at
+ * /api/builds/:buildId/steps/:stepId/photos and /api/builds/:buildId/parts/:partId/photos.
+ */
+export function subjectPhotosRouter(deps: AppDeps, subject: 'stepId' | 'partId') {
+  const router = Router({ mergeParams: true });
+  const { knex, ctx, caller, build, param } = photoRoutes(deps);
+  const target = (req: Request): service.Subject =>
+    subject === 'stepId' ? { stepId: param(req, 'stepId') } : { partId: param(req, 'partId') };
+
+  router.get('/', deps.access('photos:read'), async (req, res) => {
+    res.json({ photos: await service.list(knex, build(req), caller(req), target(req)) });
+  });
+  router.post('/', deps.access('photos:upload'), receivePhotos(deps), async (req, res) => {
+    try {
+      const fields = uploadPhotoFieldsSchema.parse({ ...req.body });
+      const files = (Array.isArray(req.files) ? req.files : []) as service.UploadedFile[];
+      const photos = await service.upload(
+        ctx,
+        build(req),
+        caller(req),
+        target(req),
+        files,
+        fields.caption ?? '',
+      );
+      res.status(201).json({ photos });
+    } finally {
+      await removeTemp(req);
+    }
   });
   return router;
 }

@@ -7,46 +7,34 @@
  */
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
-import type { Role } from '../../../shared/permissions';
-import { idSchema } from '../../../shared/schemas/common';
 import type { Photo, PhotoSize, UpdatePhotoInput } from '../../../shared/schemas/photos';
 import { AppError, ForbiddenError, NotFoundError } from '../../lib/errors';
 import type { Logger } from '../../lib/logger';
+import { parseId, type Caller } from '../../lib/scope';
 import type { Storage } from '../../lib/storage';
-import * as installRepo from '../install-log/install-log.repository';
-import { findPart } from '../parts/parts.repository';
+import * as storedFiles from '../files';
+import * as installLog from '../install-log';
+import * as parts from '../parts';
 import * as repo from './photos.repository';
 import { processPhoto, type ProcessedPhoto } from './photos.images';
 
-export type Caller = { userId: string; role: Role };
+export type { Caller };
 export type Ctx = { knex: Knex; storage: Storage; logger: Logger };
 export type Subject = { stepId: string } | { partId: string };
 export type UploadedFile = { path: string; originalname: string; size: number };
 
-function parseId(raw: string, what: string) {
-  const parsed = idSchema.safeParse(raw);
-  if (!parsed.success) throw new NotFoundError(`${what} not found`);
-  return parsed.data;
-}
-
 async function shopScope(knex: Knex, buildId: string, caller: Caller) {
-  if (caller.role !== 'shop') return undefined;
-  const stepIds = await installRepo.stepIdsForShop(knex, buildId, caller.userId);
-  return { userId: caller.userId, stepIds: [...stepIds] };
+  const stepIds = await installLog.visibleSteps(knex, buildId, caller);
+  return stepIds ? { userId: caller.userId, stepIds: [...stepIds] } : undefined;
 }
 
 /** The step or part a photo belongs to, checked against what the caller may see. */
 async function loadSubject(knex: Knex, buildId: string, subject: Subject, caller: Caller) {
   if ('stepId' in subject) {
-    const step = await installRepo.findStep(knex, buildId, parseId(subject.stepId, 'Step'));
-    const shop = await shopScope(knex, buildId, caller);
-    if (!step || (shop && !shop.stepIds.includes(step.id)))
-      throw new NotFoundError('Step not found');
+    const step = await installLog.getVisibleStep(knex, buildId, subject.stepId, caller);
     return { stepId: step.id, partId: null };
   }
-  const part = await findPart(knex, buildId, parseId(subject.partId, 'Part'));
-  if (!part || (caller.role === 'shop' && part.shopUserId !== caller.userId))
-    throw new NotFoundError('Part not found');
+  const part = await parts.getVisible(knex, buildId, subject.partId, caller);
   return { stepId: null, partId: part.id };
 }
 
@@ -76,13 +64,15 @@ export async function list(
 async function load(knex: Knex, buildId: string, rawPhotoId: string, caller: Caller) {
   const photo = await repo.findPhoto(knex, buildId, parseId(rawPhotoId, 'Photo'));
   if (!photo) throw new NotFoundError('Photo not found');
-  const shop = await shopScope(knex, buildId, caller);
-  if (shop) {
-    const mine = photo.stepId
-      ? shop.stepIds.includes(photo.stepId)
-      : (await findPart(knex, buildId, photo.partId!))?.shopUserId === caller.userId;
-    if (!mine) throw new NotFoundError('Photo not found');
-  }
+  // A photo of something the caller may not see does not exist for them.
+  await loadSubject(
+    knex,
+    buildId,
+    photo.stepId ? { stepId: photo.stepId } : { partId: photo.partId! },
+    caller,
+  ).catch((err: unknown) => {
+    throw err instanceof NotFoundError ? new NotFoundError('Photo not found') : err;
+  });
   return photo;
 }
 
@@ -158,8 +148,8 @@ export async function upload(
     }
     await ctx.knex.transaction((trx) => repo.insertPhotos(trx, rows));
   } catch (err) {
-    // Nothing half-stored: files written before the failure go too.
-    for (const key of written) await ctx.storage.delete(key).catch(() => undefined);
+    // Nothing half-stored: files written before the failure go too (retried if they resist).
+    await storedFiles.discard(ctx, written);
     throw err;
   }
   const all = await repo.listPhotos(
@@ -188,22 +178,9 @@ export async function updateCaption(
   return get(knex, buildId, photo.id, caller);
 }
 
-/** Removes stored files after their rows are gone; a file that will not go is logged, not fatal. */
-export async function deleteFiles(ctx: Omit<Ctx, 'knex'>, keys: string[]) {
-  for (const key of keys) {
-    await ctx.storage
-      .delete(key)
-      .catch((err) => ctx.logger.error({ err, key }, 'could not delete a photo file'));
-  }
-}
-
-/** Owner only: the row goes, then its files. */
+/** Owner only: the row goes and its files are queued with it, then removed. */
 export async function remove(ctx: Ctx, buildId: string, rawPhotoId: string, caller: Caller) {
   const photo = await load(ctx.knex, buildId, rawPhotoId, caller);
-  const keys = await repo.deletePhotos(ctx.knex, { ids: [photo.id] });
-  for (const key of keys) {
-    await ctx.storage
-      .delete(key)
-      .catch((err) => ctx.logger.error({ err, key }, 'could not delete a photo file'));
-  }
+  await repo.deletePhoto(ctx.knex, photo.id);
+  await storedFiles.purgeSoon(ctx);
 }

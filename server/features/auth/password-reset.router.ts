@@ -4,7 +4,7 @@ import {
   passwordResetRequestedMessage,
   requestPasswordResetInputSchema,
 } from '../../../shared/schemas/password-reset';
-import type { AppDeps } from '../../app';
+import type { AppDeps } from '../../lib/deps';
 import { createRateLimit } from '../../middleware/rate-limit';
 import { validate } from '../../middleware/validate';
 import * as service from './password-reset.service';

@@ -6,9 +6,8 @@ import {
 import { hashPassword, type SessionUser } from '../../lib/auth';
 import { AppError } from '../../lib/errors';
 import { hashToken, isTokenShaped, newToken } from '../../lib/tokens';
-import { findUserByEmail } from '../auth/auth.repository';
-import { countQueuedSince, enqueueMail } from '../mail/mail.repository';
-import { mailDateTime } from '../mail/mail.format';
+import { countQueuedSince, enqueueMail, mailDateTime } from '../mail';
+import { findUserByEmail } from './auth.repository';
 import * as repo from './password-reset.repository';
 
 /** Where the client lets a person choose the new password; the mail's button leads here. */

@@ -5,9 +5,9 @@
  */
 import type { Knex } from 'knex';
 import { partCategoryLabels, type UpdatePartInput } from '../../../shared/schemas/parts';
-import type { PartRecord } from '../parts/parts.repository';
-import { quoted } from '../mail/mail.format';
-import { actorName, notify } from './notices.service';
+import { quoted } from '../mail';
+import { actorName, notify } from '../notices';
+import type { PartRecord } from './parts.repository';
 
 /** Client path of a build's parts ledger. */
 export const partsPath = (buildId: string) => `/builds/${buildId}/parts`;

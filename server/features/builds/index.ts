@@ -1,0 +1,2 @@
+/** The builds feature's public surface. */
+export { get } from './builds.service';

@@ -1,0 +1,2 @@
+/** The members feature's public surface. */
+export { addMember, findRole } from './members.service';

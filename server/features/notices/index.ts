@@ -1,0 +1,2 @@
+/** The notices feature's public surface: any feature queues a notice with notify(). */
+export { actorName, notify, type Notice, type NoticeAudience } from './notices.service';

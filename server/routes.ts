@@ -1,0 +1,64 @@
+/**
+ * The API's URL tree, in one place: every router is mounted here once, under
+ * /api, and its own routes are relative to that mount. A feature's URLs read
+ * from this table; the fuzz test reads it too, so new routes are fuzzed.
+ */
+import type { Router } from 'express';
+import type { AppDeps } from './lib/deps';
+import { authRouter, meRouter } from './features/auth/auth.router';
+import { passwordResetRouter } from './features/auth/password-reset.router';
+import { budgetRouter } from './features/budget/budget.router';
+import { buildsRouter } from './features/builds/builds.router';
+import {
+  assumptionsRouter,
+  buildEstimateRouter,
+  estimateRouter,
+} from './features/estimate/estimate.router';
+import { healthRouter } from './features/health/health.router';
+import {
+  checklistRouter,
+  fastenersRouter,
+  jobsRouter,
+  retorqueRouter,
+  stepsRouter,
+} from './features/install-log/install-log.router';
+import {
+  buildInvitationsRouter,
+  invitationLinksRouter,
+} from './features/invitations/invitations.router';
+import { membersRouter } from './features/members/members.router';
+import { noticePreferencesRouter } from './features/notices/notices.router';
+import { partsCsvRouter, partsRouter } from './features/parts/parts.router';
+import { photosRouter, subjectPhotosRouter } from './features/photos/photos.router';
+
+export type Mount = { path: string; router: Router };
+
+/** Every /api mount, relative to /api. A build's own data lives under /builds/:buildId/. */
+export function apiRoutes(deps: AppDeps): Mount[] {
+  const b = '/builds/:buildId';
+  return [
+    { path: '/health', router: healthRouter(deps) },
+    { path: '/auth/password-reset', router: passwordResetRouter(deps) },
+    { path: '/auth', router: authRouter(deps) },
+    { path: '/me', router: meRouter() },
+    { path: '/estimate', router: estimateRouter(deps) },
+    { path: '/invitations', router: invitationLinksRouter(deps) },
+    { path: '/builds', router: buildsRouter(deps) },
+    { path: `${b}/members`, router: membersRouter(deps) },
+    { path: `${b}/invitations`, router: buildInvitationsRouter(deps) },
+    { path: `${b}/notice-preferences`, router: noticePreferencesRouter(deps) },
+    { path: `${b}/parts.csv`, router: partsCsvRouter(deps) },
+    { path: `${b}/parts/:partId/photos`, router: subjectPhotosRouter(deps, 'partId') },
+    { path: `${b}/parts`, router: partsRouter(deps) },
+    { path: `${b}/budget`, router: budgetRouter(deps) },
+    { path: `${b}/estimate`, router: buildEstimateRouter(deps) },
+    { path: `${b}/assumptions`, router: assumptionsRouter(deps) },
+    { path: `${b}/jobs`, router: jobsRouter(deps) },
+    { path: `${b}/steps/:stepId/photos`, router: subjectPhotosRouter(deps, 'stepId') },
+    { path: `${b}/steps`, router: stepsRouter(deps) },
+    { path: `${b}/checklist`, router: checklistRouter(deps) },
+    { path: `${b}/fasteners`, router: fastenersRouter(deps) },
+    { path: `${b}/retorque-checks`, router: retorqueRouter(deps) },
+    { path: `${b}/photos`, router: photosRouter(deps) },
+  ];
+}
