@@ -14,6 +14,7 @@ import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { createBuildAccess } from './middleware/build-access';
 import { moneyFilter } from './middleware/money-filter';
 import { originCheck } from './middleware/origin-check';
+import { assertNoNul } from './middleware/validate';
 import { loadSession } from './middleware/require-auth';
 import type { AppDeps } from './lib/deps';
 import { devMailRouter } from './features/mail/dev-mail.router';
@@ -65,6 +66,11 @@ export function createApp(opts: {
 
   const api = express.Router();
   api.use(express.json({ limit: '2mb' }));
+  // Every JSON body, before any route: PostgreSQL cannot store U+0000, so it is a 400 here.
+  api.use((req, _res, next) => {
+    assertNoNul(req.body);
+    next();
+  });
   api.use(originCheck(opts.config.allowedOrigins));
   api.use(loadSession(deps.sessions));
   api.use(moneyFilter);

@@ -10,7 +10,19 @@ export const centsSchema = z
   .min(0, { message: 'Money cannot be negative' })
   .max(100_000_000_00, { message: 'That amount is too large' });
 
-export const isoDateSchema = z.iso.date({ message: 'Use a date like 2027-05-30' });
+/** Calendar dates Headroom accepts: wide enough for any vehicle's life, narrow enough for PostgreSQL. */
+export const earliestDate = '1900-01-01';
+export const latestDate = '2100-12-31';
+
+export const isoDateSchema = z.iso
+  .date({ message: 'Use a date like 2027-05-30' })
+  .refine((d) => d >= earliestDate && d <= latestDate, {
+    message: 'Use a date between 1900 and 2100',
+  });
+
+/** PostgreSQL refuses U+0000 in text; a NUL is never part of anything a person means to type. */
+export const hasNul = (s: string) => s.includes('\u0000');
+export const nulMessage = 'Remove the invisible NUL character from this text';
 
 /** Currencies offered for a build's money; ISO 4217 codes. */
 export const currencies = ['USD', 'CAD', 'AUD', 'NZD', 'EUR', 'GBP', 'MXN', 'ZAR'] as const;
@@ -20,7 +32,8 @@ export const trimmed = (max: number, label = 'This') =>
   z
     .string({ message: `${label} must be text` })
     .trim()
-    .max(max, { message: `${label} must be at most ${max} characters` });
+    .max(max, { message: `${label} must be at most ${max} characters` })
+    .refine((s) => !hasNul(s), { message: nulMessage });
 
 export const apiErrorSchema = z.object({
   error: z.object({

@@ -49,21 +49,26 @@ export async function preferences(knex: Knex, buildId: string, userId: string) {
   return rows;
 }
 
-export async function replacePreferences(
+/**
+ * Writes the member's choice for every kind in one upsert, so simultaneous first
+ * saves cannot collide on the primary key (the last one wins, as it should).
+ */
+export async function savePreferences(
   knex: Knex,
   buildId: string,
   userId: string,
   choices: { kind: NoticeKind; enabled: boolean }[],
 ) {
-  await knex('notice_preferences').where({ build_id: buildId, user_id: userId }).delete();
-  if (choices.length) {
-    await knex('notice_preferences').insert(
+  if (!choices.length) return;
+  await knex('notice_preferences')
+    .insert(
       choices.map((c) => ({
         build_id: buildId,
         user_id: userId,
         kind: c.kind,
         enabled: c.enabled,
       })),
-    );
-  }
+    )
+    .onConflict(['build_id', 'user_id', 'kind'])
+    .merge({ enabled: knex.raw('excluded.enabled'), updated_at: knex.fn.now() });
 }

@@ -86,16 +86,14 @@ export async function getPreferences(
   return prefs;
 }
 
-/** Replaces the member's choices; a kind left out goes back to on. Only "off" needs a row. */
+/** Replaces the member's choices; a kind left out goes back to on. */
 export async function setPreferences(
   knex: Knex,
   buildId: string,
   userId: string,
   input: NoticePreferencesInput,
 ) {
-  const choices = noticeKinds
-    .filter((k) => input[k] === false)
-    .map((kind) => ({ kind, enabled: false }));
-  await knex.transaction((trx) => repo.replacePreferences(trx, buildId, userId, choices));
+  const choices = noticeKinds.map((kind) => ({ kind, enabled: input[kind] !== false }));
+  await repo.savePreferences(knex, buildId, userId, choices);
   return getPreferences(knex, buildId, userId);
 }

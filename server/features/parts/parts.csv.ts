@@ -59,9 +59,21 @@ const dateColumns = [
   'installedOn',
 ] as const;
 
-/** Stops a spreadsheet from running a cell as a formula (CSV injection). */
-function safeCell(value: string) {
-  return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
+/**
+ * A cell a spreadsheet could run as a formula: one whose first character, or
+ * first after spaces, is = + - @ (or their full-width forms), or that starts
+ * with a tab, carriage return or line feed (OWASP, "CSV Injection").
+ */
+const formulaLike = /^(?:[\t\r\n]|\s*[=+\-@\uFF1D\uFF0B\uFF0D\uFF20])/;
+
+/** Stops a spreadsheet from running a cell as a formula: a leading ' makes it text. */
+export function safeCell(value: string) {
+  return formulaLike.test(value) ? `'${value}` : value;
+}
+
+/** Undoes safeCell on import, so a round trip gives back what was exported. */
+export function unsafeCell(value: string) {
+  return value.startsWith("'") && formulaLike.test(value.slice(1)) ? value.slice(1) : value;
 }
 
 export function partsToCsv(
@@ -72,7 +84,8 @@ export function partsToCsv(
   const rows = parts.map((p) =>
     columns.map((c): string => {
       if (c in moneyColumns) return centsToInput(p[moneyColumns[c as keyof typeof moneyColumns]]);
-      if (c === 'shopEmail') return p.shopUserId ? (opts.shopEmails.get(p.shopUserId) ?? '') : '';
+      if (c === 'shopEmail')
+        return safeCell(p.shopUserId ? (opts.shopEmails.get(p.shopUserId) ?? '') : '');
       const v = p[c as Exclude<CsvColumn, 'shopEmail' | keyof typeof moneyColumns>];
       return v == null ? '' : safeCell(String(v));
     }),
@@ -129,11 +142,11 @@ export function parseCsv(
   const rows = parsed.data.map((cells, i): CsvRowResult => {
     const input: Record<string, unknown> = {};
     const fields: Record<string, string> = {};
-    const get = (c: CsvColumn) => (cells[c] ?? '').trim();
+    const get = (c: CsvColumn) => unsafeCell(cells[c] ?? '').trim();
     input.category = lookup(partCategories, partCategoryLabels, get('category'));
     input.name = get('name');
     for (const c of ['vendor', 'partNumber', 'notes', 'ratingFor'] as const)
-      if (c in cells) input[c] = get(c).replace(/^'(?=[=+\-@])/, '');
+      if (c in cells) input[c] = get(c);
     if (get('quantity')) input.quantity = Number(get('quantity'));
     if (get('status')) input.status = lookup(partStatuses, partStatusLabels, get('status'));
     if (get('turnaroundDays')) input.turnaroundDays = Number(get('turnaroundDays'));

@@ -4,6 +4,7 @@ import { createPartInputSchema, updatePartInputSchema } from '../../../shared/sc
 import type { AppDeps } from '../../lib/deps';
 import { AppError } from '../../lib/errors';
 import { validate } from '../../middleware/validate';
+import { receiveUpload } from '../../lib/uploads';
 import * as service from './parts.service';
 
 export const maxCsvBytes = 2 * 1024 * 1024;
@@ -33,12 +34,22 @@ export function partsRouter(deps: AppDeps) {
       res.status(201).json({ part: await service.create(knex, req.membership!.buildId, req.body) });
     },
   );
-  router.post('/import', deps.access('parts:import'), upload.single('file'), async (req, res) => {
-    if (!req.file) throw new AppError(400, 'no_file', 'Attach a CSV file in the "file" field');
-    const dryRun = req.query.dryRun === '1' || req.query.dryRun === 'true';
-    const result = await service.importCsv(knex, req.membership!.buildId, req.file.buffer, dryRun);
-    res.status(dryRun ? 200 : 201).json({ dryRun, saved: result.saved, rows: result.rows });
-  });
+  router.post(
+    '/import',
+    deps.access('parts:import'),
+    receiveUpload(upload.single('file')),
+    async (req, res) => {
+      if (!req.file) throw new AppError(400, 'no_file', 'Attach a CSV file in the "file" field');
+      const dryRun = req.query.dryRun === '1' || req.query.dryRun === 'true';
+      const result = await service.importCsv(
+        knex,
+        req.membership!.buildId,
+        req.file.buffer,
+        dryRun,
+      );
+      res.status(dryRun ? 200 : 201).json({ dryRun, saved: result.saved, rows: result.rows });
+    },
+  );
   router.get('/:partId', deps.access('parts:read'), shopQuote, async (req, res) => {
     res.json({
       part: await service.get(

@@ -1,6 +1,6 @@
 import fs from 'node:fs/promises';
 import { Router, type Request, type RequestHandler } from 'express';
-import multer, { MulterError } from 'multer';
+import multer from 'multer';
 import {
   maxPhotosPerUpload,
   photoUploadField,
@@ -9,8 +9,8 @@ import {
   type PhotoSize,
 } from '../../../shared/schemas/photos';
 import type { AppDeps } from '../../lib/deps';
-import { AppError } from '../../lib/errors';
-import { validate } from '../../middleware/validate';
+import { receiveUpload } from '../../lib/uploads';
+import { assertNoNul, validate } from '../../middleware/validate';
 import * as service from './photos.service';
 
 /**
@@ -29,24 +29,15 @@ function receivePhotos(deps: AppDeps): RequestHandler {
       fieldSize: 10_000,
     },
   }).array(photoUploadField, maxPhotosPerUpload);
-  return (req, res, next) => {
-    upload(req, res, (err: unknown) => {
-      if (!(err instanceof MulterError)) return next(err);
-      const message =
-        err.code === 'LIMIT_FILE_SIZE'
-          ? `${err.field ? 'A photo' : 'The file'} is larger than ${mb} MB; nothing was saved`
-          : err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE'
-            ? `Send up to ${maxPhotosPerUpload} photos at a time in the "${photoUploadField}" field`
-            : `The upload was refused: ${err.message}`;
-      next(
-        new AppError(
-          400,
-          err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload',
-          message,
-        ),
-      );
-    });
-  };
+  return receiveUpload(upload, (err) => ({
+    code: err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload',
+    message:
+      err.code === 'LIMIT_FILE_SIZE'
+        ? `${err.field ? 'A photo' : 'The file'} is larger than ${mb} MB; nothing was saved`
+        : err.code === 'LIMIT_FILE_COUNT' || err.code === 'LIMIT_UNEXPECTED_FILE'
+          ? `Send up to ${maxPhotosPerUpload} photos at a time in the "${photoUploadField}" field`
+          : `The upload was refused: ${err.message}`,
+  }));
 }
 
 async function removeTemp(req: Request) {
@@ -133,6 +124,7 @@ export function subjectPhotosRouter(deps: AppDeps, subject: 'stepId' | 'partId')
   });
   router.post('/', deps.access('photos:upload'), receivePhotos(deps), async (req, res) => {
     try {
+      assertNoNul(req.body);
       const fields = uploadPhotoFieldsSchema.parse({ ...req.body });
       const files = (Array.isArray(req.files) ? req.files : []) as service.UploadedFile[];
       const photos = await service.upload(
