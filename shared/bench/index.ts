@@ -1,0 +1,8 @@
+/**
+ * Bench results (injector flow-bench sheets): pure, shared by the server (the
+ * authority) and the client. Schemas and result types are in
+ * shared/schemas/bench.
+ */
+export * from './limits';
+export * from './points';
+export * from './units';
