@@ -3,6 +3,11 @@
  * authority) and the client. Schemas and result types are in
  * shared/schemas/bench.
  */
+export * from './analyse';
+export * from './compare';
+export * from './imbalance';
 export * from './limits';
 export * from './points';
+export * from './statistics';
 export * from './units';
+export * from './words';
