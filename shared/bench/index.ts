@@ -5,6 +5,7 @@
  */
 export * from './analyse';
 export * from './compare';
+export * from './csv';
 export * from './imbalance';
 export * from './limits';
 export * from './points';
