@@ -18,7 +18,13 @@ import {
   toMm3PerStroke,
   type BenchPointInput,
 } from '../../shared/bench';
-import { createBenchSheetInputSchema, type TestPoint } from '../../shared/schemas/bench';
+import {
+  benchComparisonSchema,
+  benchSheetResultSchema,
+  createBenchSheetInputSchema,
+  imbalanceRecoverySchema,
+  type TestPoint,
+} from '../../shared/schemas/bench';
 import { convertPressure } from '../../shared/units';
 
 function expectRel(actual: number | null, expected: number, rel: number) {
@@ -148,11 +154,8 @@ describe('flow-bench statistics', () => {
           );
           const maxDev = (100 * Math.max(max - mean, mean - min)) / mean;
           expect(Math.abs(s.maxDeviationPct! - maxDev)).toBeLessThanOrEqual(1e-9 * (1 + maxDev));
-          expectRel(
-            s.spreadPct === 0 ? 1 : s.spreadPct,
-            max === min ? 1 : (100 * (max - min)) / mean,
-            1e-9,
-          );
+          if (max === min) expect(s.spreadPct).toBe(0);
+          else expectRel(s.spreadPct, (100 * (max - min)) / mean, 1e-9);
         },
       ),
       { numRuns: 300 },
@@ -470,7 +473,7 @@ describe('imbalance cost (rule of thumb, reference.md)', () => {
     expect(r.power.unit).toBe('hp-crank');
     expect(r.power.working.rule.status).toBe('rule of thumb');
     expect(r.power.working.steps.at(-1)!.value).toBeCloseTo(14, 10);
-    expect(r.power.working.inputs.map((i) => i.value)).toEqual([700, r.sharePct.value]);
+    expect(r.power.working.inputs.map((i) => i.value)).toEqual([700, expect.closeTo(2, 12)]);
     expect(r.summary).toBe(
       'Imbalance at full load costs about 14 hp of the 700 crank hp target (2 %, rule of thumb)',
     );
@@ -558,5 +561,26 @@ describe('two sheets compared', () => {
     expect(() =>
       compareBenchSheets({ partId: 'a', points: [] }, { partId: 'b', points: [] }),
     ).toThrow(RangeError);
+  });
+});
+
+describe('results match their schemas', () => {
+  it('a judged sheet, a comparison and an imbalance recovery parse as the API will send them', () => {
+    const before = {
+      points: [
+        point('full-load', REFERENCE_EIGHT),
+        point('idle', [6, 6.1, null, 5.9, 6, 6, 6.2, 5.8]),
+        point('return-flow', [10, 10.2, 21, 9.9, 10.1, 10, 9.8, 10.1], { returnLimit: 15 }),
+      ],
+    };
+    const after = {
+      points: [point('full-load', [52.2, 52.3, 52.1, 52.2, 52.2, 52.3, 52.2, 52.1])],
+    };
+    const target = { powerHp: 650, basis: 'wheel' as const };
+    expect(benchSheetResultSchema.safeParse(analyseBenchSheet(before)).success).toBe(true);
+    expect(benchComparisonSchema.safeParse(compareBenchSheets(before, after)).success).toBe(true);
+    expect(
+      imbalanceRecoverySchema.safeParse(imbalanceCostRecovered(before, after, target)).success,
+    ).toBe(true);
   });
 });
