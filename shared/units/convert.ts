@@ -93,20 +93,22 @@ const volumeFlowFactors: Record<VolumeFlowUnit, number> = {
 /** Converts a volume flow; "gal" is the US gallon, 3.785411784 L (NIST SP 811 (2008) B.8). */
 export const convertVolumeFlow = converter(volumeFlowFactors);
 
-/** Pressure units. */
-export const pressureUnits = ['kpa', 'pa', 'bar', 'mbar', 'psi', 'inhg'] as const;
+/** Pressure units (MPa for injection and opening pressures on a flow bench). */
+export const pressureUnits = ['kpa', 'pa', 'mpa', 'bar', 'mbar', 'psi', 'inhg'] as const;
 export type PressureUnit = (typeof pressureUnits)[number];
 /** kPa in one of each unit. */
 const pressureFactors: Record<PressureUnit, number> = {
   kpa: 1,
   pa: 1e-3,
+  mpa: 1000,
   bar: 100,
   mbar: 0.1,
   psi: PSI_KPA,
   inhg: INHG_KPA,
 };
 /**
- * Converts a pressure. psi = 6.894757293168361 kPa (NIST SP 811 (2008) B.9);
+ * Converts a pressure. bar = 100 kPa exactly (NIST SP 811 (2008) B.8); MPa =
+ * 1000 kPa (SI prefixes); psi = 6.894757293168361 kPa (NIST SP 811 (2008) B.9);
  * inHg is the conventional inch of mercury, 3.386389 kPa (NIST SP 811 (2008) B.8).
  */
 export const convertPressure = converter(pressureFactors);
