@@ -8,7 +8,7 @@ import {
   updateBenchSheetInputSchema,
   updateBenchSheetInputSchemaFor,
 } from '../../shared/schemas/bench';
-import { fieldsFromZod } from '../../server/middleware/error-handler';
+import { fieldsFromZod } from '../../server/lib/errors';
 
 const partId = '6f1c1f0e-8a4b-4c55-9d7e-2f0a1b2c3d4e';
 
