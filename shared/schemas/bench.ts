@@ -28,22 +28,6 @@ import { workingConstantSchema } from './estimate';
 
 // ---------------------------------------------------------------- text and numbers
 
-/** Trimmed text of at most `max` characters with no NUL character (U+0000), which PostgreSQL refuses. */
-export function benchText(max: number, label: string) {
-  return trimmed(max, label).refine((s) => !s.includes('\u0000'), {
-    message: `${label} contains a hidden null character; type it again`,
-  });
-}
-
-export const BENCH_DATE_MIN = '1900-01-01';
-export const BENCH_DATE_MAX = '2100-12-31';
-
-/** The day a test was run: YYYY-MM-DD between 1900-01-01 and 2100-12-31. */
-export const benchDateSchema = isoDateSchema.refine(
-  (d) => d >= BENCH_DATE_MIN && d <= BENCH_DATE_MAX,
-  { message: 'Use a date between 1900-01-01 and 2100-12-31' },
-);
-
 /** One injector's value at a point: a number of zero or more in the point's unit, or null when not measured. */
 export const benchValueSchema = z
   .number({ message: 'Enter a number, or leave the cell empty' })
@@ -76,7 +60,7 @@ export type BenchTolerance = z.infer<typeof benchToleranceSchema>;
 export const testPointFieldsSchema = z.object({
   kind: z.enum(testPointKinds, { message: 'Choose a kind of test point from the list' }),
   /** The point's name on the sheet and its column in a CSV; unique in a sheet. */
-  label: benchText(80, 'Label').min(1, { message: 'Name the test point' }),
+  label: trimmed(80, 'Label').min(1, { message: 'Name the test point' }),
   unit: z.enum(benchUnits, { message: 'Choose a unit from the list' }),
   /** Stroke rate the point was run at; needed to turn ml/min into mm³/stroke. */
   strokesPerMin: z
@@ -86,7 +70,7 @@ export const testPointFieldsSchema = z.object({
     .nullable()
     .optional(),
   /** Free text, e.g. "at 1,600 bar, 1,000 strokes/min". */
-  condition: benchText(200, 'Condition').optional(),
+  condition: trimmed(200, 'Condition').optional(),
   /** The maker's figure for the point, in the point's unit. */
   nominal: optionalNonNegative('nominal value'),
   tolerance: benchToleranceSchema,
@@ -219,16 +203,16 @@ export const benchSheetFieldsSchema = z.object({
   /** The injector set (a part of the build) the sheet tests. */
   partId: idSchema,
   /** When in the part's life the test was run, e.g. "as received", "after rebuild". */
-  occasion: benchText(120, 'Occasion').min(1, {
+  occasion: trimmed(120, 'Occasion').min(1, {
     message: 'Say when the test was run, e.g. "as received"',
   }),
-  testedOn: benchDateSchema,
+  testedOn: isoDateSchema,
   /** Who ran the test: a person or a shop, as free text. */
-  testedBy: benchText(120, 'Tested by').optional(),
+  testedBy: trimmed(120, 'Tested by').optional(),
   /** Test fluid, e.g. "calibration fluid to ISO 4113". */
-  fluid: benchText(200, 'Test fluid').optional(),
+  fluid: trimmed(200, 'Test fluid').optional(),
   fluidTemperature: fluidTemperatureSchema.nullable().optional(),
-  notes: benchText(4000, 'Notes').optional(),
+  notes: trimmed(4000, 'Notes').optional(),
   points: pointsSchema,
 });
 

@@ -17,7 +17,7 @@ export const latestDate = '2100-12-31';
 export const isoDateSchema = z.iso
   .date({ message: 'Use a date like 2027-05-30' })
   .refine((d) => d >= earliestDate && d <= latestDate, {
-    message: 'Use a date between 1900 and 2100',
+    message: `Use a date between ${earliestDate} and ${latestDate}`,
   });
 
 /** PostgreSQL refuses U+0000 in text; a NUL is never part of anything a person means to type. */
