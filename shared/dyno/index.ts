@@ -4,6 +4,10 @@
  * working, corrected runs and curves, wheel/crank basis, comparisons, and the
  * curve CSV format. Schemas and types are in shared/schemas/dyno.
  */
+export * from './apply';
+export * from './basis';
+export * from './compare';
 export * from './correction';
+export * from './curve';
 export * from './vapour-pressure';
 export * from './working';
