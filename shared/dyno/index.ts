@@ -8,6 +8,7 @@ export * from './apply';
 export * from './basis';
 export * from './compare';
 export * from './correction';
+export * from './csv';
 export * from './curve';
 export * from './vapour-pressure';
 export * from './working';
