@@ -202,6 +202,7 @@ const temperatureUnitText: Record<DynoTemperatureUnit, string> = { c: '°C', f: 
 const pressureUnitText: Record<PressureUnit, string> = {
   kpa: 'kPa',
   pa: 'Pa',
+  mpa: 'MPa',
   bar: 'bar',
   mbar: 'mbar',
   psi: 'psi',
