@@ -28,20 +28,20 @@ test('the owner invites a crew member by e-mail; they sign up from the mail and 
   const owner = await browser.newContext();
   const page = await owner.newPage();
   await signUpThroughPage(page, 'Dale Kowalski', uniqueEmail('owner'));
-  await startBuild(page, 'Blue Oval Puller');
+  await startBuild(page, 'Switchback Puller');
   const buildUrl = new URL(page.url()).pathname;
 
   const crewEmail = uniqueEmail('crew');
   await invite(page, crewEmail, 'crew');
 
-  const mail = await waitForMail(page.request, crewEmail, /invited you to .*Blue Oval Puller/);
+  const mail = await waitForMail(page.request, crewEmail, /invited to a build on Headroom/);
   const invitePath = linkTo(mail, '/invite/');
 
   const crew = await browser.newContext();
   const crewPage = await crew.newPage();
   await crewPage.goto(invitePath);
   await expect(
-    crewPage.getByRole('heading', { level: 1, name: 'Join Blue Oval Puller' }),
+    crewPage.getByRole('heading', { level: 1, name: 'Join Switchback Puller' }),
   ).toBeVisible();
   await expect(crewPage.getByText('Dale Kowalski invited you')).toBeVisible();
   await expect(crewPage.getByText(crewEmail).first()).toBeVisible();
@@ -50,7 +50,9 @@ test('the owner invites a crew member by e-mail; they sign up from the mail and 
   await crewPage.getByRole('button', { name: 'Join the build' }).click();
 
   await expect(crewPage).toHaveURL(buildUrl);
-  await expect(crewPage.getByRole('heading', { level: 1, name: 'Blue Oval Puller' })).toBeVisible();
+  await expect(
+    crewPage.getByRole('heading', { level: 1, name: 'Switchback Puller' }),
+  ).toBeVisible();
   await expect(crewPage.getByTestId('signed-in-user')).toHaveText('Marisol Ortega');
   await expect(crewPage.getByText('You: Crew')).toBeVisible();
   // Crew never see money, and have no invitations to manage.
@@ -86,9 +88,9 @@ test('an existing user signs in from the invitation and accepts with one click',
   const owner = await browser.newContext();
   const page = await owner.newPage();
   await signUpThroughPage(page, 'Wes Harlow', uniqueEmail('owner'));
-  await startBuild(page, 'Cummins Sled');
+  await startBuild(page, 'Quarry Sled');
   await invite(page, viewerEmail, 'viewer');
-  const mail = await waitForMail(page.request, viewerEmail, /invited you to .*Cummins Sled/);
+  const mail = await waitForMail(page.request, viewerEmail, /invited to a build on Headroom/);
   await owner.close();
 
   await viewerPage.goto(linkTo(mail, '/invite/'));
@@ -98,7 +100,7 @@ test('an existing user signs in from the invitation and accepts with one click',
   await viewerPage.getByRole('button', { name: 'Sign in' }).click();
 
   await viewerPage.getByRole('button', { name: 'Accept and open the build' }).click();
-  await expect(viewerPage.getByRole('heading', { level: 1, name: 'Cummins Sled' })).toBeVisible();
+  await expect(viewerPage.getByRole('heading', { level: 1, name: 'Quarry Sled' })).toBeVisible();
   await expect(viewerPage.getByText('You: Viewer')).toBeVisible();
   await viewer.close();
 });

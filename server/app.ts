@@ -65,6 +65,12 @@ export function createApp(opts: {
   );
 
   const api = express.Router();
+  // API answers are per person and may carry money: no browser or proxy cache keeps them.
+  // Routes that send photo or file bytes set their own private caching.
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
   api.use(express.json({ limit: '2mb' }));
   // Every JSON body, before any route: PostgreSQL cannot store U+0000, so it is a 400 here.
   api.use((req, _res, next) => {

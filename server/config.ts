@@ -10,10 +10,16 @@ const envSchema = z.object({
     .regex(/^postgres(ql)?:\/\//, { message: 'DATABASE_URL must be a postgres:// URL' }),
   PORT: z.coerce.number().int().min(1).max(65535).default(3000),
   HOST: z.string().default('127.0.0.1'),
-  /** Extra origins allowed to send state-changing requests, comma-separated. */
+  /** Extra origins allowed to send state-changing requests, comma-separated (APP_URL's is always allowed). */
   ALLOWED_ORIGINS: z.string().default(''),
-  /** Sign-in/sign-up attempts per client per 15 minutes. */
-  AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(20),
+  /**
+   * Failed sign-ins (and, each on its own counter, failed sign-ups, invitation
+   * accepts and password-reset completions) per client address per 15 minutes.
+   * High, because a whole garage or shop can share one address.
+   */
+  AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(100),
+  /** Failed sign-ins to one account per 15 minutes, from anywhere. */
+  ACCOUNT_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   /** Set when a reverse proxy terminates TLS in front of the app. */
   TRUST_PROXY: z.enum(['0', '1']).default('0'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'silent']).default('info'),
@@ -68,8 +74,14 @@ export type AppConfig = {
   databaseUrl: string;
   port: number;
   host: string;
+  /**
+   * Origins whose pages may send state-changing requests: APP_URL's (and, when
+   * APP_URL is not set, http://localhost:PORT too) plus ALLOWED_ORIGINS. Never
+   * the request's own Host header, which a DNS-rebinding page controls.
+   */
   allowedOrigins: string[];
   authRateLimit: number;
+  accountRateLimit: number;
   /** Key prefix for rate-limit counters; tests give each app its own. */
   rateLimitPrefix: string;
   trustProxy: boolean;
@@ -120,10 +132,17 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     databaseUrl: e.DATABASE_URL,
     port: e.PORT,
     host: e.HOST,
-    allowedOrigins: e.ALLOWED_ORIGINS.split(',')
-      .map((s) => s.trim())
-      .filter(Boolean),
+    allowedOrigins: [
+      ...new Set([
+        new URL(e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).origin,
+        ...(e.APP_URL ? [] : [`http://localhost:${e.PORT}`]),
+        ...e.ALLOWED_ORIGINS.split(',')
+          .map((s) => s.trim().replace(/\/+$/, ''))
+          .filter(Boolean),
+      ]),
+    ],
     authRateLimit: e.AUTH_RATE_LIMIT,
+    accountRateLimit: e.ACCOUNT_RATE_LIMIT,
     rateLimitPrefix: 'rl:',
     trustProxy: e.TRUST_PROXY === '1',
     logLevel: e.LOG_LEVEL,

@@ -5,17 +5,32 @@ const stateChanging = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
 /**
  * Cross-site request forgery guard: a state-changing request must carry an
- * Origin header equal to the app's own origin (scheme + the Host it was sent
- * to) or one listed in ALLOWED_ORIGINS. Browsers always send Origin on these.
+ * Origin header equal to one of the configured origins (APP_URL's, or one in
+ * ALLOWED_ORIGINS). Browsers always send Origin on these. The request's own
+ * Host is never trusted: a DNS-rebinding page sets both Host and Origin to its
+ * own name.
  */
-export function originCheck(allowed: string[]): RequestHandler {
+export function originCheck(allowed: readonly string[]): RequestHandler {
+  const origins = new Set(allowed);
   return (req, _res, next) => {
     if (!stateChanging.has(req.method)) return next();
     const origin = req.get('origin');
-    const own = `${req.protocol}://${req.get('host')}`;
-    if (!origin || (origin !== own && !allowed.includes(origin))) {
+    if (!origin || !origins.has(origin)) {
       throw new AppError(403, 'bad_origin', "This request did not come from Headroom's own pages");
     }
     next();
   };
+}
+
+/** Host headers (name:port) of the configured origins: what a local-only page answers to. */
+export function configuredHosts(allowed: readonly string[]): Set<string> {
+  const hosts = new Set<string>();
+  for (const o of allowed) {
+    try {
+      hosts.add(new URL(o).host);
+    } catch {
+      // not a URL: ignored
+    }
+  }
+  return hosts;
 }

@@ -233,11 +233,8 @@ function pressureRangeText(limits: { min: number; max: number }, unit: PressureU
 
 // ---------------------------------------------------------------- field helpers
 
-/** Free text: trimmed, at most `max` characters, and no NUL character (PostgreSQL text cannot hold it). */
-export const dynoText = (max: number, label: string) =>
-  trimmed(max, label).refine((v) => !v.includes('\u0000'), {
-    message: `${label}: remove the NUL character (U+0000), which cannot be saved`,
-  });
+/** Free text: trimmed, at most `max` characters, and no NUL character (the common text rule). */
+export const dynoText = (max: number, label: string) => trimmed(max, label);
 
 /** A finite number (zod rejects NaN and ±Infinity) with a plain message naming the field. */
 const numberField = (label: string) => z.number({ message: `${label} must be a number` });

@@ -4,7 +4,7 @@
  * the same process and the same session once it is back. The mail worker too.
  */
 import type { AddressInfo } from 'node:net';
-import type { Server } from 'node:http';
+import { createServer, type Server } from 'node:http';
 import knexFactory from 'knex';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -29,17 +29,17 @@ beforeAll(async () => {
   cluster = await createPgCluster();
   const migrator = knexFactory(knexConfig(cluster.url));
   await migrator.migrate.latest().finally(() => migrator.destroy());
+  server = createServer();
+  await new Promise<void>((r) => server.listen(0, '127.0.0.1', r));
+  origin = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   const config = {
     ...loadConfig({ ...process.env, DATABASE_URL: cluster.url, NODE_ENV: 'test' }),
     serveClient: false,
     rateLimitPrefix: 'restart-test:',
+    allowedOrigins: [origin],
   };
   db = createDatabase(cluster.url, { onError: (e) => poolErrors.push(e) });
-  const app = createApp({ db, config, logger: createLogger('silent') });
-  server = await new Promise<Server>((r) => {
-    const s = app.listen(0, '127.0.0.1', () => r(s));
-  });
-  origin = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  server.on('request', createApp({ db, config, logger: createLogger('silent') }));
 }, 60_000);
 
 afterAll(async () => {

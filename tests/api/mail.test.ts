@@ -43,7 +43,7 @@ describe('when the SMTP server is down', () => {
     await app.mail.deliver();
     const mails = await app.mail.to(email);
     expect(mails).toHaveLength(1);
-    expect(mails[0].subject).toMatch(/invited you/);
+    expect(mails[0].subject).toMatch(/invited to a build/);
     expect((await app.mail.to(owner.email)).map((m) => m.subject)).toContain(
       'Set a new Headroom password',
     );

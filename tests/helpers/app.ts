@@ -3,7 +3,7 @@
  * loopback port, and signed-in agents that carry cookies and the right Origin.
  */
 import type { AddressInfo } from 'node:net';
-import type { Server } from 'node:http';
+import { createServer, type Server } from 'node:http';
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -45,6 +45,11 @@ export function useTestApp(
   let filesDir: string | undefined;
   beforeAll(async () => {
     filesDir = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-test-files-'));
+    // Listen first: the app's origin (its port) is part of its config, as APP_URL is in production.
+    ctx.server = createServer();
+    await new Promise<void>((resolve) => ctx.server.listen(0, '127.0.0.1', resolve));
+    const { port } = ctx.server.address() as AddressInfo;
+    ctx.origin = `http://127.0.0.1:${port}`;
     const base = loadConfig({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' });
     let config: AppConfig = {
       ...base,
@@ -54,6 +59,8 @@ export function useTestApp(
       serveClient: false,
       storageDir: path.join(filesDir, 'uploads'),
       uploadTmpDir: path.join(filesDir, 'upload-tmp'),
+      appUrl: ctx.origin,
+      allowedOrigins: [ctx.origin],
       ...overrides,
     };
     if (options.mail) {
@@ -64,11 +71,7 @@ export function useTestApp(
     ctx.uploadTmpDir = config.uploadTmpDir;
     ctx.db = createDatabase(config.databaseUrl);
     const app = createApp({ db: ctx.db, config, logger: createLogger('silent') });
-    ctx.server = await new Promise<Server>((resolve) => {
-      const s = app.listen(0, '127.0.0.1', () => resolve(s));
-    });
-    const { port } = ctx.server.address() as AddressInfo;
-    ctx.origin = `http://127.0.0.1:${port}`;
+    ctx.server.on('request', app);
     ctx.agent = () => supertest.agent(ctx.origin).set('Origin', ctx.origin);
     ctx.bare = () => supertest(ctx.origin);
     if (mailSetup) ctx.mail = mailSetup.attach(ctx.db, ctx.origin);

@@ -1,3 +1,4 @@
+import { nulMessage } from '../../shared/schemas/common';
 import { describe, expect, it } from 'vitest';
 import {
   MAX_CURVE_ROWS,
@@ -146,7 +147,7 @@ describe('sessions', () => {
   it('refuses text with a NUL character and over-long text', () => {
     expect(
       issuesOf(createDynoSessionInputSchema.safeParse({ ...session, notes: 'pull 3\u0000' })),
-    ).toEqual(['notes: Notes: remove the NUL character (U+0000), which cannot be saved']);
+    ).toEqual([`notes: ${nulMessage}`]);
     expect(
       issuesOf(createDynoSessionInputSchema.safeParse({ ...session, place: 'x'.repeat(201) })),
     ).toEqual(['place: Place must be at most 200 characters']);
@@ -280,7 +281,7 @@ describe('runs', () => {
 
   it('refuses NUL and over-long text in a run', () => {
     expect(issuesOf(createDynoRunInputSchema.safeParse({ ...run, gear: '3rd\u0000' }))).toEqual([
-      'gear: Gear: remove the NUL character (U+0000), which cannot be saved',
+      `gear: ${nulMessage}`,
     ]);
     expect(
       issuesOf(createDynoRunInputSchema.safeParse({ ...run, tuneRevision: 'r'.repeat(121) })),

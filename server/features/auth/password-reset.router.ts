@@ -5,7 +5,7 @@ import {
   requestPasswordResetInputSchema,
 } from '../../../shared/schemas/password-reset';
 import type { AppDeps } from '../../lib/deps';
-import { createRateLimit } from '../../middleware/rate-limit';
+import { authLimits, createRateLimit } from '../../middleware/rate-limit';
 import { validate } from '../../middleware/validate';
 import * as service from './password-reset.service';
 
@@ -19,13 +19,8 @@ export function passwordResetRouter({ db, config, sessions }: AppDeps) {
     windowMs: 15 * 60_000,
     message: 'Too many password-reset requests from here. Wait 15 minutes and try again.',
   });
-  // Choosing the new password shares the sign-in/sign-up counter.
-  const authLimit = createRateLimit(knex, {
-    prefix: `${config.rateLimitPrefix}auth:`,
-    limit: config.authRateLimit,
-    windowMs: 15 * 60_000,
-    message: 'Too many sign-in attempts from here. Wait 15 minutes and try again.',
-  });
+  // Choosing the new password: failed attempts on a counter of its own.
+  const authLimit = authLimits(knex, config, 'reset-complete');
 
   router.post(
     '/',
@@ -41,7 +36,7 @@ export function passwordResetRouter({ db, config, sessions }: AppDeps) {
   });
   router.post(
     '/:token',
-    authLimit,
+    ...authLimit,
     validate({ body: completePasswordResetInputSchema }),
     async (req, res) => {
       const user = await service.complete(knex, String(req.params.token), req.body.password);

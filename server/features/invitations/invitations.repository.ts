@@ -159,3 +159,29 @@ export async function buildName(knex: Knex, buildId: string): Promise<string | u
   const row = await knex('builds').where({ id: buildId }).first('name');
   return row?.name;
 }
+
+/**
+ * Serialises the invitation sends of one sender (in the caller's transaction),
+ * so simultaneous requests cannot all count below the limit and all send.
+ */
+export async function lockSender(trx: Knex.Transaction, senderId: string) {
+  await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [
+    `invitations:${senderId}`,
+  ]);
+}
+
+/** Invitation mails sent since `since`, by a sender and to a build. */
+export async function countSends(knex: Knex, buildId: string, senderId: string, since: Date) {
+  const row = await knex('invitation_sends')
+    .where('sent_at', '>', since)
+    .select(
+      knex.raw('count(*) filter (where sent_by = ?)::int as by_sender', [senderId]),
+      knex.raw('count(*) filter (where build_id = ?)::int as to_build', [buildId]),
+    )
+    .first();
+  return { bySender: row?.by_sender ?? 0, toBuild: row?.to_build ?? 0 };
+}
+
+export async function recordSend(knex: Knex, buildId: string, senderId: string) {
+  await knex('invitation_sends').insert({ build_id: buildId, sent_by: senderId });
+}

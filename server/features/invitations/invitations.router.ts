@@ -4,7 +4,7 @@ import {
   createInvitationInputSchema,
 } from '../../../shared/schemas/invitations';
 import type { AppDeps } from '../../lib/deps';
-import { createRateLimit } from '../../middleware/rate-limit';
+import { authLimits } from '../../middleware/rate-limit';
 import { validate } from '../../middleware/validate';
 import * as service from './invitations.service';
 
@@ -44,24 +44,19 @@ export function buildInvitationsRouter(deps: AppDeps) {
 export function invitationLinksRouter({ db, config, sessions }: AppDeps) {
   const router = Router();
   const knex = db.knex;
-  // Accepting may create an account: it shares the sign-in/sign-up counter.
-  const limit = createRateLimit(knex, {
-    prefix: `${config.rateLimitPrefix}auth:`,
-    limit: config.authRateLimit,
-    windowMs: 15 * 60_000,
-    message: 'Too many sign-in attempts from here. Wait 15 minutes and try again.',
-  });
+  // Accepting may create an account: failed attempts on a counter of its own.
+  const limit = authLimits(knex, config, 'invitation-accept');
 
   router.get('/:token', async (req, res) => {
     res.json({ invitation: await service.preview(knex, String(req.params.token)) });
   });
   router.post(
     '/:token/accept',
-    limit,
+    ...limit,
     validate({ body: acceptInvitationInputSchema }),
     async (req, res) => {
       const result = await service.accept(knex, String(req.params.token), req.user, req.body);
-      if (result.accountCreated) await sessions.start(req, res, result.user.id);
+      if (result.accountCreated) await sessions.replace(req, res, result.user.id);
       res.status(result.accountCreated ? 201 : 200).json(result);
     },
   );

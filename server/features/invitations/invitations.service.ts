@@ -34,7 +34,8 @@ function invitationMail(p: {
   return {
     kind: 'invitation',
     to: p.to,
-    subject: `${p.inviterName} invited you to ${quoted(p.buildName)} on Headroom`,
+    // Nothing a user typed goes in the subject: names are shown in the body, quoted, as data.
+    subject: 'You are invited to a build on Headroom',
     heading: `Join ${quoted(p.buildName)} as ${p.role}`,
     body: [
       `${p.inviterName} invited you to the Headroom build ${quoted(p.buildName)} as ${p.role}: ${description}.`,
@@ -44,6 +45,33 @@ function invitationMail(p: {
     action: { label: 'Accept the invitation', path: invitePath(p.token) },
     footer: `You received this because ${p.inviterName} entered ${p.to} on Headroom. If you did not expect it, ignore it: nothing happens unless you follow the link.`,
   };
+}
+
+/**
+ * Invitation mails an owner may send, per hour and per day, counted per sender
+ * and per build: enough for any real crew, too few to use Headroom as a mailer.
+ */
+export const invitationLimits = { perHour: 20, perDay: 50 };
+
+async function checkSendLimit(trx: Knex.Transaction, buildId: string, senderId: string) {
+  await repo.lockSender(trx, senderId);
+  const now = Date.now();
+  const hour = await repo.countSends(trx, buildId, senderId, new Date(now - 3600_000));
+  const day = await repo.countSends(trx, buildId, senderId, new Date(now - 24 * 3600_000));
+  const over =
+    Math.max(hour.bySender, hour.toBuild) >= invitationLimits.perHour
+      ? `${invitationLimits.perHour} an hour`
+      : Math.max(day.bySender, day.toBuild) >= invitationLimits.perDay
+        ? `${invitationLimits.perDay} a day`
+        : null;
+  if (over) {
+    throw new AppError(
+      429,
+      'invitation_limit',
+      `Headroom sends at most ${over} invitations from one owner or to one build. Try again later.`,
+    );
+  }
+  await repo.recordSend(trx, buildId, senderId);
 }
 
 function isOpenInvitationConflict(err: unknown) {
@@ -71,6 +99,7 @@ export async function create(
   const expiresAt = expiry();
   try {
     const id = await knex.transaction(async (trx) => {
+      await checkSendLimit(trx, buildId, inviter.id);
       const buildName = (await repo.buildName(trx, buildId))!;
       const invitationId = await repo.insertInvitation(trx, {
         buildId,
@@ -122,6 +151,7 @@ export async function resend(knex: Knex, buildId: string, rawId: string, sender:
   await knex.transaction(async (trx) => {
     const inv = await repo.findOpen(trx, buildId, id, { forUpdate: true });
     if (!inv) throw new NotFoundError('Invitation not found');
+    await checkSendLimit(trx, buildId, sender.id);
     const buildName = (await repo.buildName(trx, buildId))!;
     await repo.renewInvitation(trx, id, hash, expiresAt);
     await enqueueMail(

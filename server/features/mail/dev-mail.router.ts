@@ -12,6 +12,7 @@ import {
   readCaughtMailSource,
   type CaughtMail,
 } from '../../lib/mail-catcher';
+import { configuredHosts } from '../../middleware/origin-check';
 import { escapeHtml } from './mail.templates';
 
 const wantsJson = (req: Request) =>
@@ -72,9 +73,14 @@ export function devMailRouter(config: AppConfig) {
 
   // Caught mail holds live sign-in links: answer only on this machine, even
   // when the app itself listens on every interface.
+  // And only under the configured host names: a DNS-rebinding page reaches this
+  // machine's loopback under a name of its own, which is not on the list.
   const loopback = new Set(['127.0.0.1', '::1', '::ffff:127.0.0.1']);
+  const hosts = configuredHosts(config.allowedOrigins);
   router.use((req, res, next) =>
-    loopback.has(req.socket.remoteAddress ?? '') ? next() : notFound(req, res, next),
+    loopback.has(req.socket.remoteAddress ?? '') && hosts.has(req.get('host') ?? '')
+      ? next()
+      : notFound(req, res, next),
   );
 
   router.get('/', async (req, res) => {

@@ -176,7 +176,7 @@ export function BuildForm({
           label="Vehicle"
           optional
           error={errors.vehicleDescription?.message}
-          hint="Make, model, cab and drive, e.g. Ram 2500 crew cab 4x4"
+          hint="Size, cab and drive, e.g. one-ton crew cab 4x4"
         >
           {(c) => <TextInput {...c} {...register('vehicleDescription')} autoComplete="off" />}
         </FormField>
@@ -184,7 +184,7 @@ export function BuildForm({
           label="Engine"
           optional
           error={errors.engineDescription?.message}
-          hint="e.g. Cummins 6.7 L, common rail"
+          hint="e.g. 6.7 L inline-six, common rail"
           className="sm:col-span-2"
         >
           {(c) => <TextInput {...c} {...register('engineDescription')} autoComplete="off" />}

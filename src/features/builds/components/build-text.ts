@@ -1,7 +1,7 @@
 import { aspirationLabels, powerBasisLabels, type Build } from '../../../../shared/schemas/builds';
 import { formatNumber } from '../../../../shared/format';
 
-/** "2019 Ram 2500 Laramie", or the description alone when no year was given. */
+/** "2019 one-ton crew cab", or the description alone when no year was given. */
 export function vehicleLine(build: Pick<Build, 'vehicleYear' | 'vehicleDescription'>): string {
   return [build.vehicleYear ?? '', build.vehicleDescription ?? ''].join(' ').trim();
 }
