@@ -53,7 +53,17 @@ export function assertOpen(step: { status: string }) {
   }
 }
 
-/** Locks the step's row for the rest of the transaction and refuses a signed-off step. */
+/**
+ * Locks the step's row for the rest of the transaction and answers its status;
+ * 404 if it was deleted since it was loaded (writing under it would fail its foreign key).
+ */
+export async function lockStep(trx: Knex.Transaction, stepId: string) {
+  const status = await stepsRepo.lockStep(trx, stepId);
+  if (!status) throw new NotFoundError('Step not found');
+  return status;
+}
+
+/** lockStep, and 409 if the step is signed off. */
 export async function lockOpenStep(trx: Knex.Transaction, stepId: string) {
-  assertOpen({ status: (await stepsRepo.lockStep(trx, stepId)) ?? '' });
+  assertOpen({ status: await lockStep(trx, stepId) });
 }

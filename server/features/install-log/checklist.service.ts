@@ -7,7 +7,7 @@ import { NotFoundError } from '../../lib/errors';
 import { parseId, type BuildScope } from '../../lib/scope';
 import { loadStep, lockOpenStep, renameNotFound } from './access';
 import * as repo from './checklist.repository';
-import * as ordering from './ordering.repository';
+import { lockOrdering } from './ordering.repository';
 import * as stepsRepo from './steps.repository';
 
 export async function addChecklistItem(
@@ -18,8 +18,9 @@ export async function addChecklistItem(
   const { knex, buildId } = scope;
   const step = await loadStep(scope, rawStepId);
   const id = await knex.transaction(async (trx) => {
+    const order = await lockOrdering(trx, buildId);
     await lockOpenStep(trx, step.id);
-    const position = await ordering.nextPosition(trx, 'install_checklist_items', step.id);
+    const position = await order.nextPosition('install_checklist_items', step.id);
     return repo.insertChecklistItem(trx, step.id, input.label, position);
   });
   return (await repo.findChecklistItem(knex, buildId, id))!;
@@ -53,8 +54,9 @@ export async function updateChecklistItem(
 export async function deleteChecklistItem(scope: BuildScope, rawItemId: string) {
   const { item, step } = await loadItem(scope, rawItemId);
   await scope.knex.transaction(async (trx) => {
+    const order = await lockOrdering(trx, scope.buildId);
     await lockOpenStep(trx, step.id);
     await repo.deleteChecklistItem(trx, item.id);
-    await ordering.closeGaps(trx, 'install_checklist_items', step.id);
+    await order.closeGaps('install_checklist_items', step.id);
   });
 }

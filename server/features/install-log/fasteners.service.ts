@@ -14,11 +14,11 @@ import {
 } from '../../../shared/schemas/install-log';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import { parseId, type BuildScope } from '../../lib/scope';
-import { assertOpen, loadStep, lockOpenStep, renameNotFound } from './access';
+import { assertOpen, loadStep, lockOpenStep, lockStep, renameNotFound } from './access';
 import { presentReading, presentSpec } from './fasteners.present';
 import * as repo from './fasteners.repository';
 import { notifyTorqueOutOfSpec } from './install-log.notices';
-import * as ordering from './ordering.repository';
+import { lockOrdering } from './ordering.repository';
 import * as readingsRepo from './readings.repository';
 import * as stepsRepo from './steps.repository';
 
@@ -50,11 +50,12 @@ export async function addFastener(
   checkSpec(input);
   const { position, ...fields } = input;
   const id = await scope.knex.transaction(async (trx) => {
+    const order = await lockOrdering(trx, scope.buildId);
     await lockOpenStep(trx, step.id);
-    const last = await ordering.nextPosition(trx, 'fastener_specs', step.id);
+    const last = await order.nextPosition('fastener_specs', step.id);
     const specId = await repo.insertSpec(trx, step.id, fields, last);
     if (position !== undefined && position < last) {
-      await ordering.moveTo(trx, 'fastener_specs', step.id, specId, position);
+      await order.moveTo('fastener_specs', step.id, specId, position);
     }
     return specId;
   });
@@ -100,9 +101,10 @@ export async function updateFastener(
 export async function deleteFastener(scope: BuildScope, rawSpecId: string) {
   const { spec, step } = await loadSpec(scope, rawSpecId);
   await scope.knex.transaction(async (trx) => {
+    const order = await lockOrdering(trx, scope.buildId);
     await lockOpenStep(trx, step.id);
     await repo.deleteSpec(trx, spec.id);
-    await ordering.closeGaps(trx, 'fastener_specs', step.id);
+    await order.closeGaps('fastener_specs', step.id);
   });
 }
 
@@ -147,8 +149,8 @@ export async function recordReading(
     });
   }
   const { id, supersededId } = await knex.transaction(async (trx) => {
-    const status = await stepsRepo.lockStep(trx, step.id);
-    if (kind === 'install') assertOpen({ status: status ?? '' });
+    const status = await lockStep(trx, step.id);
+    if (kind === 'install') assertOpen({ status });
     else if (status !== 'signed-off') {
       throw new ConflictError(
         'step_not_signed_off',

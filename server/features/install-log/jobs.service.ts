@@ -5,7 +5,7 @@ import type { BuildScope } from '../../lib/scope';
 import * as files from '../files';
 import { loadJob, visibleSteps } from './access';
 import * as repo from './jobs.repository';
-import * as ordering from './ordering.repository';
+import { lockOrdering } from './ordering.repository';
 import { assembleSteps, summarize } from './steps.detail';
 import * as stepsRepo from './steps.repository';
 
@@ -38,8 +38,8 @@ export async function getJob(scope: BuildScope, rawJobId: string): Promise<Job> 
 export async function createJob(scope: BuildScope, input: CreateJobInput) {
   const { knex, buildId, caller } = scope;
   const id = await knex.transaction(async (trx) => {
-    await ordering.lockParent(trx, 'install_jobs', buildId);
-    const position = await ordering.nextPosition(trx, 'install_jobs', buildId);
+    const order = await lockOrdering(trx, buildId);
+    const position = await order.nextPosition('install_jobs', buildId);
     return repo.insertJob(trx, buildId, { ...input, position, createdBy: caller.userId });
   });
   return getJob(scope, id);
@@ -49,10 +49,12 @@ export async function updateJob(scope: BuildScope, rawJobId: string, input: Upda
   const { knex, buildId } = scope;
   const job = await loadJob(scope, rawJobId);
   await knex.transaction(async (trx) => {
+    const order = await lockOrdering(trx, buildId);
+    // Deleted while this request waited for the lock: 404.
+    await loadJob({ ...scope, knex: trx }, job.id);
     await repo.updateJob(trx, job.id, input);
     if (input.position !== undefined) {
-      await ordering.lockParent(trx, 'install_jobs', buildId);
-      await ordering.moveTo(trx, 'install_jobs', buildId, job.id, input.position);
+      await order.moveTo('install_jobs', buildId, job.id, input.position);
     }
   });
   return getJob(scope, job.id);
@@ -67,9 +69,9 @@ export async function deleteJob(
   const { knex, buildId } = scope;
   const job = await loadJob(scope, rawJobId);
   await knex.transaction(async (trx) => {
-    await ordering.lockParent(trx, 'install_jobs', buildId);
+    const order = await lockOrdering(trx, buildId);
     await repo.deleteJob(trx, job.id);
-    await ordering.closeGaps(trx, 'install_jobs', buildId);
+    await order.closeGaps('install_jobs', buildId);
   });
   await files.purgeSoon({ knex, ...store });
 }

@@ -9,10 +9,10 @@ import type {
 import { ConflictError, ForbiddenError, ValidationError } from '../../lib/errors';
 import type { BuildScope } from '../../lib/scope';
 import * as files from '../files';
-import { assertOpen, loadJob, loadStep } from './access';
+import { assertOpen, loadJob, loadStep, lockStep } from './access';
 import { notifyStepSignedOff } from './install-log.notices';
 import * as jobsRepo from './jobs.repository';
-import * as ordering from './ordering.repository';
+import { lockOrdering } from './ordering.repository';
 import * as stepPartsRepo from './step-parts.repository';
 import { assembleSteps, stepDetail } from './steps.detail';
 import * as repo from './steps.repository';
@@ -32,11 +32,13 @@ export async function createStep(scope: BuildScope, rawJobId: string, input: Cre
   const job = await loadJob(scope, rawJobId);
   await checkParts(scope, input.partIds);
   const id = await knex.transaction(async (trx) => {
-    await ordering.lockParent(trx, 'install_steps', job.id);
-    const last = await ordering.nextPosition(trx, 'install_steps', job.id);
+    const order = await lockOrdering(trx, buildId);
+    // Deleted while this request waited for the lock: 404, not a foreign-key error.
+    await loadJob({ ...scope, knex: trx }, job.id);
+    const last = await order.nextPosition('install_steps', job.id);
     const stepId = await repo.insertStep(trx, buildId, job.id, { ...input, position: last });
     if (input.position !== undefined && input.position < last) {
-      await ordering.moveTo(trx, 'install_steps', job.id, stepId, input.position);
+      await order.moveTo('install_steps', job.id, stepId, input.position);
     }
     if (input.partIds) await stepPartsRepo.setStepParts(trx, stepId, input.partIds);
     return stepId;
@@ -54,13 +56,13 @@ export async function updateStep(scope: BuildScope, rawStepId: string, input: Up
   if (input.status !== undefined) assertOpen(step);
   await checkParts(scope, input.partIds);
   await scope.knex.transaction(async (trx) => {
-    const status = await repo.lockStep(trx, step.id);
-    if (input.status !== undefined) assertOpen({ status: status ?? '' });
+    const order = await lockOrdering(trx, scope.buildId);
+    const status = await lockStep(trx, step.id);
+    if (input.status !== undefined) assertOpen({ status });
     await repo.updateStep(trx, step.id, input);
     if (input.partIds) await stepPartsRepo.setStepParts(trx, step.id, input.partIds);
     if (input.position !== undefined) {
-      await ordering.lockParent(trx, 'install_steps', step.jobId);
-      await ordering.moveTo(trx, 'install_steps', step.jobId, step.id, input.position);
+      await order.moveTo('install_steps', step.jobId, step.id, input.position);
     }
   });
   return stepDetail(scope, step.id);
@@ -75,9 +77,9 @@ export async function deleteStep(
   const { knex } = scope;
   const step = await loadStep(scope, rawStepId);
   await knex.transaction(async (trx) => {
-    await ordering.lockParent(trx, 'install_steps', step.jobId);
+    const order = await lockOrdering(trx, scope.buildId);
     await repo.deleteStep(trx, step.id);
-    await ordering.closeGaps(trx, 'install_steps', step.jobId);
+    await order.closeGaps('install_steps', step.jobId);
   });
   await files.purgeSoon({ knex, ...store });
 }
@@ -103,7 +105,7 @@ export async function signOff(scope: BuildScope, rawStepId: string, input: SignO
     throw new ForbiddenError('Only the owner can sign off over out-of-spec or missing readings');
   }
   await knex.transaction(async (trx) => {
-    const status = await repo.lockStep(trx, step.id);
+    const status = await lockStep(trx, step.id);
     if (status === 'signed-off')
       throw new ConflictError('already_signed_off', 'This step is already signed off');
     const [current] = await assembleSteps(trx, [(await repo.findStep(trx, buildId, step.id))!]);
@@ -139,7 +141,7 @@ export async function signOff(scope: BuildScope, rawStepId: string, input: SignO
 export async function reopen(scope: BuildScope, rawStepId: string) {
   const step = await loadStep(scope, rawStepId);
   await scope.knex.transaction(async (trx) => {
-    const status = await repo.lockStep(trx, step.id);
+    const status = await lockStep(trx, step.id);
     if (status !== 'signed-off')
       throw new ConflictError('not_signed_off', 'This step is not signed off');
     await repo.reopenStep(trx, step.id);
