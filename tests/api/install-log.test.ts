@@ -587,6 +587,37 @@ describe('install log: who may do what', () => {
     expect((await otherShop.agent.get(`${c.base}/steps/${c.stepA.id}`)).status).toBe(404);
   });
 
+  it('shows a shop only the parts sent to it among a step’s linked parts, while the owner sees them all', async () => {
+    const c = await castWithJob();
+    // Step A fits the shop's injectors and, now, the garage's head studs.
+    await c.owner.agent
+      .patch(`${c.base}/steps/${c.stepA.id}`)
+      .send({ partIds: [c.shopPart.id, c.studs.id] })
+      .expect(200);
+    const ids = (step: { parts: { id: string }[] }) => step.parts.map((p) => p.id).sort();
+
+    const shopStep = (await c.shop.agent.get(`${c.base}/steps/${c.stepA.id}`).expect(200)).body
+      .step;
+    expect(shopStep.parts).toEqual([
+      {
+        id: c.shopPart.id,
+        name: 'Injectors, new nozzles',
+        category: 'fuel-injection',
+        status: 'at-shop',
+      },
+    ]);
+    const shopJobs = (await c.shop.agent.get(`${c.base}/jobs`).expect(200)).body;
+    const shopJob = (await c.shop.agent.get(`${c.base}/jobs/${c.job.id}`).expect(200)).body;
+    for (const answer of [shopStep, shopJobs, shopJob]) {
+      expect(JSON.stringify(answer)).not.toContain(c.studs.id);
+    }
+
+    for (const member of [c.owner, c.crew, c.viewer]) {
+      const step = (await member.agent.get(`${c.base}/steps/${c.stepA.id}`).expect(200)).body.step;
+      expect(ids(step)).toEqual([c.shopPart.id, c.studs.id].sort());
+    }
+  });
+
   it('lets a viewer read everything and write nothing', async () => {
     const c = await castWithJob();
     const v = c.viewer.agent;

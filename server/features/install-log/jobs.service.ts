@@ -18,7 +18,7 @@ export async function listJobs(scope: BuildScope): Promise<Job[]> {
     visibleSteps(scope),
   ]);
   const shown = visible ? steps.filter((s) => visible.has(s.id)) : steps;
-  const full = await assembleSteps(knex, shown);
+  const full = await assembleSteps(scope, shown);
   return jobs
     .map((j) => ({ ...j, steps: full.filter((s) => s.jobId === j.id).map(summarize) }))
     .filter((j) => !visible || j.steps.length > 0);
@@ -32,7 +32,7 @@ export async function getJob(scope: BuildScope, rawJobId: string): Promise<Job> 
     (s) => !visible || visible.has(s.id),
   );
   if (visible && steps.length === 0) throw new NotFoundError('Job not found');
-  return { ...job, steps: (await assembleSteps(knex, steps)).map(summarize) };
+  return { ...job, steps: (await assembleSteps(scope, steps)).map(summarize) };
 }
 
 export async function createJob(scope: BuildScope, input: CreateJobInput) {

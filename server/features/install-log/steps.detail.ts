@@ -3,11 +3,11 @@
  * readings, cautions, sign-off blockers, progress and photo count; and the
  * summary of it that a job lists.
  */
-import type { Knex } from 'knex';
 import { cautionsForStep } from '../../../shared/install-log/cautions';
 import { signOffBlockers } from '../../../shared/install-log/sign-off';
 import type { ChecklistItem, Step, StepSummary } from '../../../shared/schemas/install-log';
 import type { BuildScope } from '../../lib/scope';
+import { seesPart } from '../parts';
 import * as checklistRepo from './checklist.repository';
 import * as fastenersRepo from './fasteners.repository';
 import { presentSpec } from './fasteners.present';
@@ -15,8 +15,16 @@ import * as readingsRepo from './readings.repository';
 import * as stepPartsRepo from './step-parts.repository';
 import * as stepsRepo from './steps.repository';
 
-/** Full steps with their parts, checklist, fasteners, readings, cautions and blockers. */
-export async function assembleSteps(knex: Knex, steps: stepsRepo.StepRecord[]): Promise<Step[]> {
+/**
+ * Full steps with their parts, checklist, fasteners, readings, cautions and
+ * blockers. Parts are those the caller may see (a shop: only parts sent to it,
+ * as in the parts ledger); cautions still weigh every linked part, as they are
+ * about the work, not the parts.
+ */
+export async function assembleSteps(
+  { knex, caller }: BuildScope,
+  steps: stepsRepo.StepRecord[],
+): Promise<Step[]> {
   const ids = steps.map((s) => s.id);
   // One after another: inside a transaction there is one connection, which runs one query at a time.
   const links = await stepPartsRepo.listStepParts(knex, ids);
@@ -28,8 +36,9 @@ export async function assembleSteps(knex: Knex, steps: stepsRepo.StepRecord[]): 
     specs.map((s) => s.id),
   );
   return steps.map((s) => {
-    const parts = links
-      .filter((l) => l.stepId === s.id)
+    const linked = links.filter((l) => l.stepId === s.id);
+    const parts = linked
+      .filter((l) => seesPart(caller, l))
       .map(({ id, name, category, status }) => ({ id, name, category, status }));
     const items: ChecklistItem[] = checklist.filter((c) => c.stepId === s.id);
     const fasteners = specs.filter((f) => f.stepId === s.id).map((f) => presentSpec(f, readings));
@@ -61,7 +70,7 @@ export async function assembleSteps(knex: Knex, steps: stepsRepo.StepRecord[]): 
       cautions: cautionsForStep({
         title: s.title,
         description: s.description,
-        partCategories: parts.map((p) => p.category),
+        partCategories: linked.map((p) => p.category),
         liftsVehicle: s.liftsVehicle,
         fastenerCount: fasteners.length,
       }),
@@ -95,7 +104,8 @@ export function summarize(step: Step): StepSummary {
 }
 
 /** One step in full; the caller has already been shown it exists and is visible (loadStep). */
-export async function stepDetail({ knex, buildId }: BuildScope, stepId: string) {
-  const [step] = await assembleSteps(knex, [(await stepsRepo.findStep(knex, buildId, stepId))!]);
-  return step;
+export async function stepDetail(scope: BuildScope, stepId: string) {
+  const step = (await stepsRepo.findStep(scope.knex, scope.buildId, stepId))!;
+  const [detail] = await assembleSteps(scope, [step]);
+  return detail;
 }

@@ -108,7 +108,8 @@ export async function signOff(scope: BuildScope, rawStepId: string, input: SignO
     const status = await lockStep(trx, step.id);
     if (status === 'signed-off')
       throw new ConflictError('already_signed_off', 'This step is already signed off');
-    const [current] = await assembleSteps(trx, [(await repo.findStep(trx, buildId, step.id))!]);
+    const inTrx = { ...scope, knex: trx };
+    const [current] = await assembleSteps(inTrx, [(await repo.findStep(trx, buildId, step.id))!]);
     const blockers = current.signOffBlockers;
     if (blockers.length && input.overrideReason === undefined) {
       const fields: Record<string, string> = {};
