@@ -3,7 +3,9 @@ import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { seedDemo } from '../../db/seeds/demo';
-import * as installLog from '../../server/features/install-log/install-log.service';
+import { listJobs } from '../../server/features/install-log/jobs.service';
+import { listRetorqueChecks } from '../../server/features/install-log/retorque.service';
+import { getStep } from '../../server/features/install-log/steps.service';
 import { createLocalDiskStorage } from '../../server/lib/storage';
 import { useTestApp, type Agent } from '../helpers/app';
 import { addMember, buildWithCast, moneyKeys, signUp } from '../helpers/factories';
@@ -585,6 +587,37 @@ describe('install log: who may do what', () => {
     expect((await otherShop.agent.get(`${c.base}/steps/${c.stepA.id}`)).status).toBe(404);
   });
 
+  it('shows a shop only the parts sent to it among a step’s linked parts, while the owner sees them all', async () => {
+    const c = await castWithJob();
+    // Step A fits the shop's injectors and, now, the garage's head studs.
+    await c.owner.agent
+      .patch(`${c.base}/steps/${c.stepA.id}`)
+      .send({ partIds: [c.shopPart.id, c.studs.id] })
+      .expect(200);
+    const ids = (step: { parts: { id: string }[] }) => step.parts.map((p) => p.id).sort();
+
+    const shopStep = (await c.shop.agent.get(`${c.base}/steps/${c.stepA.id}`).expect(200)).body
+      .step;
+    expect(shopStep.parts).toEqual([
+      {
+        id: c.shopPart.id,
+        name: 'Injectors, new nozzles',
+        category: 'fuel-injection',
+        status: 'at-shop',
+      },
+    ]);
+    const shopJobs = (await c.shop.agent.get(`${c.base}/jobs`).expect(200)).body;
+    const shopJob = (await c.shop.agent.get(`${c.base}/jobs/${c.job.id}`).expect(200)).body;
+    for (const answer of [shopStep, shopJobs, shopJob]) {
+      expect(JSON.stringify(answer)).not.toContain(c.studs.id);
+    }
+
+    for (const member of [c.owner, c.crew, c.viewer]) {
+      const step = (await member.agent.get(`${c.base}/steps/${c.stepA.id}`).expect(200)).body.step;
+      expect(ids(step)).toEqual([c.shopPart.id, c.studs.id].sort());
+    }
+  });
+
   it('lets a viewer read everything and write nothing', async () => {
     const c = await castWithJob();
     const v = c.viewer.agent;
@@ -727,8 +760,12 @@ describe('demo data', () => {
             storage: createLocalDiskStorage(dir),
           });
           expect(Date.now() - started).toBeLessThan(5_000);
-          const crew = { userId: userIds.crew, role: 'crew' as const };
-          const jobs = await installLog.listJobs(trx, buildId, crew);
+          const crew = {
+            knex: trx,
+            buildId,
+            caller: { userId: userIds.crew, role: 'crew' as const },
+          };
+          const jobs = await listJobs(crew);
           expect(jobs.map((j) => j.title)).toEqual([
             'Fit the down-pipe and EGT probe',
             'Fit the rebuilt injectors',
@@ -741,7 +778,7 @@ describe('demo data', () => {
             'not-started',
           ]);
 
-          const pipe = await installLog.getStep(trx, buildId, jobs[0].steps[1].id, crew);
+          const pipe = await getStep(crew, jobs[0].steps[1].id);
           const flange = pipe.fasteners.find((f) => f.name === 'Down-pipe flange nuts')!;
           expect(flange.positions.map((p) => p.current?.verdict)).toEqual([
             'in-spec',
@@ -751,7 +788,7 @@ describe('demo data', () => {
           expect(flange.positions[1].supersededCount).toBe(1);
           expect(flange.specSource).toMatch(/Demo values only/);
           expect(pipe.photoCount).toBe(1);
-          const probe = await installLog.getStep(trx, buildId, jobs[0].steps[2].id, crew);
+          const probe = await getStep(crew, jobs[0].steps[2].id);
           // 20.5 N·m read against 180 lbf·in ± 10 %: 181.44 lbf·in (NIST SP 811 (2008) B.9: 1 lbf·in = 0.1129848 N·m).
           expect(probe.fasteners[0].positions[0].current).toMatchObject({
             unit: 'n-m',
@@ -759,9 +796,9 @@ describe('demo data', () => {
           });
           expect(probe.fasteners[0].positions[0].current!.valueInSpecUnit).toBeCloseTo(181.44, 2);
 
-          const open = await installLog.listRetorqueChecks(trx, buildId, crew, 'open');
+          const open = await listRetorqueChecks(crew, 'open');
           expect(open.map((c) => c.specName)).toEqual(['Down-pipe flange nuts']);
-          const seat = await installLog.getStep(trx, buildId, jobs[1].steps[2].id, crew);
+          const seat = await getStep(crew, jobs[1].steps[2].id);
           expect(seat.cautions.map((c) => c.id)).toEqual([
             'high-pressure-fuel',
             'service-information',

@@ -1,2 +1,12 @@
 /** The install log's public surface: step visibility, for photos and notices of steps. */
-export { loadStep as getVisibleStep, visibleSteps } from './install-log.service';
+import type { Knex } from 'knex';
+import type { Caller } from '../../lib/scope';
+import { loadStep, visibleSteps as visibleIn } from './access';
+
+/** Steps a caller may read: all of them (null), or for a shop only those linked to its parts. */
+export const visibleSteps = (knex: Knex, buildId: string, caller: Caller) =>
+  visibleIn({ knex, buildId, caller });
+
+/** A step the caller may see, or 404 (a malformed id, another build's step, or hidden from a shop). */
+export const getVisibleStep = (knex: Knex, buildId: string, rawStepId: string, caller: Caller) =>
+  loadStep({ knex, buildId, caller }, rawStepId);

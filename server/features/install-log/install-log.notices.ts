@@ -16,6 +16,7 @@ import {
 } from '../../../shared/install-log/torque';
 import { quoted } from '../mail';
 import { actorName, notify } from '../notices';
+import { shopsOfStep } from './step-parts.repository';
 
 /** Client path of a step's page (the client's route for it must match). */
 export const stepPath = (buildId: string, stepId: string) =>
@@ -23,12 +24,8 @@ export const stepPath = (buildId: string, stepId: string) =>
 
 /** The one shop whose parts the step fits, if exactly one. */
 async function stepShop(trx: Knex, stepId: string): Promise<string | null> {
-  const rows: { shop_user_id: string }[] = await trx('install_step_parts as sp')
-    .join('parts as p', 'p.id', 'sp.part_id')
-    .where('sp.step_id', stepId)
-    .whereNotNull('p.shop_user_id')
-    .distinct('p.shop_user_id');
-  return rows.length === 1 ? rows[0].shop_user_id : null;
+  const shops = await shopsOfStep(trx, stepId);
+  return shops.length === 1 ? shops[0] : null;
 }
 
 export async function notifyStepSignedOff(

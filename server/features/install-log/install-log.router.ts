@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import {
   closeRetorqueInputSchema,
   createChecklistItemInputSchema,
@@ -16,7 +16,11 @@ import type { AppDeps } from '../../lib/deps';
 import { ValidationError } from '../../lib/errors';
 import { param, scoped } from '../../lib/scope';
 import { validate } from '../../middleware/validate';
-import * as service from './install-log.service';
+import * as checklist from './checklist.service';
+import * as fasteners from './fasteners.service';
+import * as jobs from './jobs.service';
+import * as retorque from './retorque.service';
+import * as steps from './steps.service';
 
 /**
  * The install log's routers, one per entity, each mounted once in server/routes.ts:
@@ -30,48 +34,43 @@ function access(deps: AppDeps) {
     remove: deps.access('install:delete'),
     owner: deps.access('install:override'),
     knex: deps.db.knex,
-    files: { storage: deps.storage, logger: deps.logger },
+    store: { storage: deps.storage, logger: deps.logger },
   };
 }
 
 /** Mounted at /api/builds/:buildId/jobs. */
 export function jobsRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
-  const { read, write, remove, knex, files } = access(deps);
+  const { read, write, remove, knex, store } = access(deps);
+  const body = { create: createJobInputSchema, update: updateJobInputSchema };
   router.get(
     '/',
     read,
-    scoped(knex, async (s) => ({ jobs: await service.listJobs(s.knex, s.buildId, s.caller) })),
+    scoped(knex, async (s) => ({ jobs: await jobs.listJobs(s) })),
   );
   router.post(
     '/',
     write,
-    validate({ body: createJobInputSchema }),
-    scoped(
-      knex,
-      async (s, req) => ({ job: await service.createJob(s.knex, s.buildId, s.caller, req.body) }),
-      201,
-    ),
+    validate({ body: body.create }),
+    scoped(knex, async (s, req) => ({ job: await jobs.createJob(s, req.body) }), 201),
   );
   router.get(
     '/:jobId',
     read,
-    scoped(knex, async (s, req) => ({
-      job: await service.getJob(s.knex, s.buildId, param(req, 'jobId'), s.caller),
-    })),
+    scoped(knex, async (s, req) => ({ job: await jobs.getJob(s, param(req, 'jobId')) })),
   );
   router.patch(
     '/:jobId',
     write,
-    validate({ body: updateJobInputSchema }),
+    validate({ body: body.update }),
     scoped(knex, async (s, req) => ({
-      job: await service.updateJob(s.knex, s.buildId, param(req, 'jobId'), s.caller, req.body),
+      job: await jobs.updateJob(s, param(req, 'jobId'), req.body),
     })),
   );
   router.delete(
     '/:jobId',
     remove,
-    scoped(knex, (s, req) => service.deleteJob(s.knex, files, s.buildId, param(req, 'jobId'))),
+    scoped(knex, (s, req) => jobs.deleteJob(s, store, param(req, 'jobId'))),
   );
   router.post(
     '/:jobId/steps',
@@ -79,9 +78,7 @@ export function jobsRouter(deps: AppDeps) {
     validate({ body: createStepInputSchema }),
     scoped(
       knex,
-      async (s, req) => ({
-        step: await service.createStep(s.knex, s.buildId, param(req, 'jobId'), s.caller, req.body),
-      }),
+      async (s, req) => ({ step: await steps.createStep(s, param(req, 'jobId'), req.body) }),
       201,
     ),
   );
@@ -91,43 +88,34 @@ export function jobsRouter(deps: AppDeps) {
 /** Mounted at /api/builds/:buildId/steps. Sign-off: owner and crew; only the owner overrides blockers or reopens. */
 export function stepsRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
-  const { read, write, remove, owner, knex, files } = access(deps);
+  const { read, write, remove, owner, knex, store } = access(deps);
+  const id = (req: Request) => param(req, 'stepId');
   router.get(
     '/:stepId',
     read,
-    scoped(knex, async (s, req) => ({
-      step: await service.getStep(s.knex, s.buildId, param(req, 'stepId'), s.caller),
-    })),
+    scoped(knex, async (s, req) => ({ step: await steps.getStep(s, id(req)) })),
   );
   router.patch(
     '/:stepId',
     write,
     validate({ body: updateStepInputSchema }),
-    scoped(knex, async (s, req) => ({
-      step: await service.updateStep(s.knex, s.buildId, param(req, 'stepId'), s.caller, req.body),
-    })),
+    scoped(knex, async (s, req) => ({ step: await steps.updateStep(s, id(req), req.body) })),
   );
   router.delete(
     '/:stepId',
     remove,
-    scoped(knex, (s, req) =>
-      service.deleteStep(s.knex, files, s.buildId, param(req, 'stepId'), s.caller),
-    ),
+    scoped(knex, (s, req) => steps.deleteStep(s, store, id(req))),
   );
   router.post(
     '/:stepId/sign-off',
     write,
     validate({ body: signOffInputSchema }),
-    scoped(knex, async (s, req) => ({
-      step: await service.signOff(s.knex, s.buildId, param(req, 'stepId'), s.caller, req.body),
-    })),
+    scoped(knex, async (s, req) => ({ step: await steps.signOff(s, id(req), req.body) })),
   );
   router.delete(
     '/:stepId/sign-off',
     owner,
-    scoped(knex, async (s, req) => ({
-      step: await service.reopen(s.knex, s.buildId, param(req, 'stepId'), s.caller),
-    })),
+    scoped(knex, async (s, req) => ({ step: await steps.reopen(s, id(req)) })),
   );
   router.post(
     '/:stepId/checklist',
@@ -135,15 +123,7 @@ export function stepsRouter(deps: AppDeps) {
     validate({ body: createChecklistItemInputSchema }),
     scoped(
       knex,
-      async (s, req) => ({
-        item: await service.addChecklistItem(
-          s.knex,
-          s.buildId,
-          param(req, 'stepId'),
-          s.caller,
-          req.body,
-        ),
-      }),
+      async (s, req) => ({ item: await checklist.addChecklistItem(s, id(req), req.body) }),
       201,
     ),
   );
@@ -153,15 +133,7 @@ export function stepsRouter(deps: AppDeps) {
     validate({ body: createFastenerSpecInputSchema }),
     scoped(
       knex,
-      async (s, req) => ({
-        fastener: await service.addFastener(
-          s.knex,
-          s.buildId,
-          param(req, 'stepId'),
-          s.caller,
-          req.body,
-        ),
-      }),
+      async (s, req) => ({ fastener: await fasteners.addFastener(s, id(req), req.body) }),
       201,
     ),
   );
@@ -172,26 +144,19 @@ export function stepsRouter(deps: AppDeps) {
 export function checklistRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
   const { write, remove, knex } = access(deps);
+  const id = (req: Request) => param(req, 'itemId');
   router.patch(
     '/:itemId',
     write,
     validate({ body: updateChecklistItemInputSchema }),
     scoped(knex, async (s, req) => ({
-      item: await service.updateChecklistItem(
-        s.knex,
-        s.buildId,
-        param(req, 'itemId'),
-        s.caller,
-        req.body,
-      ),
+      item: await checklist.updateChecklistItem(s, id(req), req.body),
     })),
   );
   router.delete(
     '/:itemId',
     remove,
-    scoped(knex, (s, req) =>
-      service.deleteChecklistItem(s.knex, s.buildId, param(req, 'itemId'), s.caller),
-    ),
+    scoped(knex, (s, req) => checklist.deleteChecklistItem(s, id(req))),
   );
   return router;
 }
@@ -200,44 +165,30 @@ export function checklistRouter(deps: AppDeps) {
 export function fastenersRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
   const { read, write, remove, knex } = access(deps);
+  const id = (req: Request) => param(req, 'specId');
   router.patch(
     '/:specId',
     write,
     validate({ body: updateFastenerSpecInputSchema }),
     scoped(knex, async (s, req) => ({
-      fastener: await service.updateFastener(
-        s.knex,
-        s.buildId,
-        param(req, 'specId'),
-        s.caller,
-        req.body,
-      ),
+      fastener: await fasteners.updateFastener(s, id(req), req.body),
     })),
   );
   router.delete(
     '/:specId',
     remove,
-    scoped(knex, (s, req) =>
-      service.deleteFastener(s.knex, s.buildId, param(req, 'specId'), s.caller),
-    ),
+    scoped(knex, (s, req) => fasteners.deleteFastener(s, id(req))),
   );
   router.get(
     '/:specId/readings',
     read,
-    scoped(knex, (s, req) =>
-      service.listReadings(s.knex, s.buildId, param(req, 'specId'), s.caller),
-    ),
+    scoped(knex, (s, req) => fasteners.listReadings(s, id(req))),
   );
   router.post(
     '/:specId/readings',
     write,
     validate({ body: createReadingInputSchema }),
-    scoped(
-      knex,
-      (s, req) =>
-        service.recordReading(s.knex, s.buildId, param(req, 'specId'), s.caller, req.body),
-      201,
-    ),
+    scoped(knex, (s, req) => fasteners.recordReading(s, id(req), req.body), 201),
   );
   return router;
 }
@@ -254,7 +205,7 @@ export function retorqueRouter(deps: AppDeps) {
       if (status !== 'open' && status !== 'all') {
         throw new ValidationError('Unknown filter', { status: 'Use open or all' });
       }
-      return { checks: await service.listRetorqueChecks(s.knex, s.buildId, s.caller, status) };
+      return { checks: await retorque.listRetorqueChecks(s, status) };
     }),
   );
   router.post(
@@ -262,13 +213,7 @@ export function retorqueRouter(deps: AppDeps) {
     write,
     validate({ body: closeRetorqueInputSchema }),
     scoped(knex, async (s, req) => ({
-      check: await service.closeRetorqueCheck(
-        s.knex,
-        s.buildId,
-        param(req, 'specId'),
-        s.caller,
-        req.body,
-      ),
+      check: await retorque.closeRetorqueCheck(s, param(req, 'specId'), req.body),
     })),
   );
   return router;

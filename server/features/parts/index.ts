@@ -1,3 +1,3 @@
 /** The parts feature's public surface: what other features may call. */
-export { getVisible, listAll } from './parts.service';
+export { getVisible, listAll, seesPart } from './parts.service';
 export type { PartRecord } from './parts.repository';

@@ -35,7 +35,12 @@ function present(p: repo.PartRecord, now = today()): Part {
   return { ...p, totalCents: partTotalCents(p), sendOut: sendOutStatus(p, now) };
 }
 
-/** A shop sees only what was sent to it. */
+/** A shop sees only what was sent to it; every other member sees every part. */
+export function seesPart(caller: Caller, part: { shopUserId: string | null }) {
+  return caller.role !== 'shop' || part.shopUserId === caller.userId;
+}
+
+/** seesPart as a query filter. */
 function scope(caller: Caller) {
   return caller.role === 'shop' ? { shopUserId: caller.userId } : {};
 }
@@ -52,8 +57,7 @@ export async function getVisible(knex: Knex, buildId: string, rawPartId: string,
   if (!parsed.success) throw new NotFoundError('Part not found');
   const part = await repo.findPart(knex, buildId, parsed.data);
   // Another shop's part is as invisible as a part that does not exist.
-  if (!part || (caller.role === 'shop' && part.shopUserId !== caller.userId))
-    throw new NotFoundError('Part not found');
+  if (!part || !seesPart(caller, part)) throw new NotFoundError('Part not found');
   return part;
 }
 

@@ -1,0 +1,191 @@
+/**
+ * Fastener specs of a step and their torque readings: how readings supersede
+ * each other, and who may change a target that readings were judged against.
+ */
+import { asksRetorque } from '../../../shared/install-log/retorque';
+import { judgeTorque } from '../../../shared/install-log/torque';
+import { can } from '../../../shared/permissions';
+import {
+  fastenerSpecIssues,
+  torqueDefiningFields,
+  type CreateFastenerSpecInput,
+  type CreateReadingInput,
+  type UpdateFastenerSpecInput,
+} from '../../../shared/schemas/install-log';
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
+import { parseId, type BuildScope } from '../../lib/scope';
+import { assertOpen, loadStep, lockOpenStep, lockStep, renameNotFound } from './access';
+import { presentReading, presentSpec } from './fasteners.present';
+import * as repo from './fasteners.repository';
+import { notifyTorqueOutOfSpec } from './install-log.notices';
+import { lockOrdering } from './ordering.repository';
+import * as readingsRepo from './readings.repository';
+import * as stepsRepo from './steps.repository';
+
+/** A spec on a step the caller may see, with that step, or 404. */
+export async function loadSpec(scope: BuildScope, rawSpecId: string) {
+  const spec = await repo.findSpec(scope.knex, scope.buildId, parseId(rawSpecId, 'Fastener'));
+  if (!spec) throw new NotFoundError('Fastener not found');
+  const step = await loadStep(scope, spec.stepId).catch(renameNotFound('Fastener not found'));
+  return { spec, step };
+}
+
+function checkSpec(merged: Record<string, unknown>) {
+  const issues = fastenerSpecIssues(merged);
+  if (Object.keys(issues).length)
+    throw new ValidationError('Some fields contradict each other', issues);
+}
+
+async function presentOne({ knex, buildId }: BuildScope, specId: string) {
+  const spec = (await repo.findSpec(knex, buildId, specId))!;
+  return presentSpec(spec, await readingsRepo.listReadings(knex, [spec.id]));
+}
+
+export async function addFastener(
+  scope: BuildScope,
+  rawStepId: string,
+  input: CreateFastenerSpecInput,
+) {
+  const step = await loadStep(scope, rawStepId);
+  checkSpec(input);
+  const { position, ...fields } = input;
+  const id = await scope.knex.transaction(async (trx) => {
+    const order = await lockOrdering(trx, scope.buildId);
+    await lockOpenStep(trx, step.id);
+    const last = await order.nextPosition('fastener_specs', step.id);
+    const specId = await repo.insertSpec(trx, step.id, fields, last);
+    if (position !== undefined && position < last) {
+      await order.moveTo('fastener_specs', step.id, specId, position);
+    }
+    return specId;
+  });
+  return presentOne(scope, id);
+}
+
+export async function updateFastener(
+  scope: BuildScope,
+  rawSpecId: string,
+  input: UpdateFastenerSpecInput,
+) {
+  const { spec, step } = await loadSpec(scope, rawSpecId);
+  checkSpec({ ...spec, ...input });
+  await scope.knex.transaction(async (trx) => {
+    await lockOpenStep(trx, step.id);
+    const changesTorque = torqueDefiningFields.some(
+      (k) => input[k] !== undefined && input[k] !== spec[k],
+    );
+    // Changing the target under recorded readings changes their verdicts: the owner's call only.
+    if (
+      changesTorque &&
+      !can(scope.caller.role, 'install:override') &&
+      (await readingsRepo.specHasReadings(trx, spec.id))
+    ) {
+      throw new ForbiddenError(
+        'This fastener already has readings; only the owner can change its target or tolerance',
+      );
+    }
+    // Fewer fasteners than positions already torqued would hide those readings.
+    if (input.count !== undefined && input.count < spec.count) {
+      const highest = await readingsRepo.highestReadPosition(trx, spec.id);
+      if (input.count < highest) {
+        throw new ValidationError('Readings exist for higher positions', {
+          count: `Position ${highest} already has a reading; keep at least ${highest}`,
+        });
+      }
+    }
+    await repo.updateSpec(trx, spec.id, input);
+  });
+  return presentOne(scope, spec.id);
+}
+
+export async function deleteFastener(scope: BuildScope, rawSpecId: string) {
+  const { spec, step } = await loadSpec(scope, rawSpecId);
+  await scope.knex.transaction(async (trx) => {
+    const order = await lockOrdering(trx, scope.buildId);
+    await lockOpenStep(trx, step.id);
+    await repo.deleteSpec(trx, spec.id);
+    await order.closeGaps('fastener_specs', step.id);
+  });
+}
+
+// ---- readings -------------------------------------------------------------------------------
+
+/** Every reading of a fastener, newest first per position, superseded ones included. */
+export async function listReadings(scope: BuildScope, rawSpecId: string) {
+  const { spec } = await loadSpec(scope, rawSpecId);
+  const readings = await readingsRepo.listReadings(scope.knex, [spec.id]);
+  return {
+    fastener: presentSpec(spec, readings),
+    readings: readings.map((r) => presentReading(r, spec)),
+  };
+}
+
+/**
+ * Records a reading. Supersede rule: the new reading replaces the current one
+ * of the same fastener, position and kind (fitting or re-torque); the old one
+ * is kept, marked superseded by the new one. Fitting readings are refused on a
+ * signed-off step; re-torque readings need a signed-off step and a spec that
+ * asks for a re-check.
+ */
+export async function recordReading(
+  scope: BuildScope,
+  rawSpecId: string,
+  input: CreateReadingInput,
+) {
+  const { knex, buildId, caller } = scope;
+  const { spec, step } = await loadSpec(scope, rawSpecId);
+  if (input.position > spec.count) {
+    throw new ValidationError(
+      `${spec.name} has ${spec.count} position${spec.count === 1 ? '' : 's'}`,
+      {
+        position: `Choose a position from 1 to ${spec.count}`,
+      },
+    );
+  }
+  const kind = input.retorque ? 'retorque' : 'install';
+  if (kind === 'retorque' && !asksRetorque(spec)) {
+    throw new ValidationError('This fastener asks for no re-torque check', {
+      retorque: 'Record it as a fitting reading',
+    });
+  }
+  const { id, supersededId } = await knex.transaction(async (trx) => {
+    const status = await lockStep(trx, step.id);
+    if (kind === 'install') assertOpen({ status });
+    else if (status !== 'signed-off') {
+      throw new ConflictError(
+        'step_not_signed_off',
+        'Re-torque checks come after the step is signed off',
+      );
+    }
+    const result = await readingsRepo.insertReading(trx, {
+      specId: spec.id,
+      position: input.position,
+      kind,
+      value: input.value,
+      unit: input.unit,
+      wrench: input.wrench ?? '',
+      note: input.note ?? '',
+      userId: caller.userId,
+    });
+    if (kind === 'install') await stepsRepo.markUnderWay(trx, step.id);
+    const { verdict } = judgeTorque(input, spec);
+    if (verdict !== 'in-spec') {
+      await notifyTorqueOutOfSpec(trx, {
+        buildId,
+        stepId: step.id,
+        stepTitle: step.title,
+        specName: spec.name,
+        spec,
+        position: input.position,
+        verdict,
+        value: input.value,
+        unit: input.unit,
+        retorque: kind === 'retorque',
+        actorUserId: caller.userId,
+      });
+    }
+    return result;
+  });
+  const reading = presentReading((await readingsRepo.findReading(knex, id))!, spec);
+  return { reading, supersededId, fastener: await presentOne(scope, spec.id) };
+}

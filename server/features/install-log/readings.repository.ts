@@ -1,0 +1,123 @@
+/** Torque readings: never edited, only superseded by a newer reading of the same position. */
+import type { Knex } from 'knex';
+import type { TorqueUnit } from '../../../shared/install-log/torque';
+import { iso, person } from './rows';
+
+type ReadingRow = {
+  id: string;
+  spec_id: string;
+  position: number;
+  kind: 'install' | 'retorque';
+  value: number;
+  unit: TorqueUnit;
+  wrench: string;
+  note: string;
+  recorded_by: string | null;
+  recorded_by_name: string | null;
+  recorded_at: Date;
+  superseded_by_id: string | null;
+  superseded_at: Date | null;
+};
+
+function toReading(r: ReadingRow) {
+  return {
+    id: r.id,
+    specId: r.spec_id,
+    position: r.position,
+    kind: r.kind,
+    value: r.value,
+    unit: r.unit,
+    wrench: r.wrench,
+    note: r.note,
+    recordedBy: person(r.recorded_by, r.recorded_by_name),
+    recordedAt: r.recorded_at.toISOString(),
+    supersededById: r.superseded_by_id,
+    supersededAt: iso(r.superseded_at),
+  };
+}
+export type ReadingRecord = ReturnType<typeof toReading>;
+
+/** Readings of these specs, newest first (superseded ones included). */
+export async function listReadings(knex: Knex, specIds: string[]) {
+  if (!specIds.length) return [];
+  const rows: ReadingRow[] = await knex('torque_readings as r')
+    .leftJoin('users as u', 'u.id', 'r.recorded_by')
+    .whereIn('r.spec_id', specIds)
+    .orderBy([
+      { column: 'r.position' },
+      { column: 'r.recorded_at', order: 'desc' },
+      { column: 'r.superseded_at', order: 'desc', nulls: 'first' },
+    ])
+    .select('r.*', 'u.display_name as recorded_by_name');
+  return rows.map(toReading);
+}
+
+export async function findReading(knex: Knex, readingId: string) {
+  const row: ReadingRow | undefined = await knex('torque_readings as r')
+    .leftJoin('users as u', 'u.id', 'r.recorded_by')
+    .where('r.id', readingId)
+    .first('r.*', 'u.display_name as recorded_by_name');
+  return row ? toReading(row) : undefined;
+}
+
+/**
+ * Records a reading. The current reading of the same spec, kind and position,
+ * if any, is kept and marked superseded by the new one. Run inside a
+ * transaction that holds the step's row lock (lockStep), so two readings cannot both become current.
+ */
+export async function insertReading(
+  trx: Knex.Transaction,
+  input: {
+    specId: string;
+    position: number;
+    kind: 'install' | 'retorque';
+    value: number;
+    unit: TorqueUnit;
+    wrench: string;
+    note: string;
+    userId: string;
+  },
+) {
+  // Mark the old one first: the unique index allows one current reading at a time.
+  const previous: { id: string }[] = await trx('torque_readings')
+    .where({ spec_id: input.specId, kind: input.kind, position: input.position })
+    .whereNull('superseded_at')
+    .update({ superseded_at: trx.fn.now() })
+    .returning('id');
+  const [row] = await trx('torque_readings')
+    .insert({
+      spec_id: input.specId,
+      position: input.position,
+      kind: input.kind,
+      value: input.value,
+      unit: input.unit,
+      wrench: input.wrench,
+      note: input.note,
+      recorded_by: input.userId,
+    })
+    .returning('id');
+  if (previous.length) {
+    await trx('torque_readings')
+      .whereIn(
+        'id',
+        previous.map((p) => p.id),
+      )
+      .update({ superseded_by_id: row.id });
+  }
+  return { id: row.id as string, supersededId: previous[0]?.id ?? null };
+}
+
+/** The highest fastener position that holds a reading (0 when none). */
+export async function highestReadPosition(knex: Knex, specId: string): Promise<number> {
+  const row = await knex('torque_readings')
+    .where({ spec_id: specId })
+    .max('position as max')
+    .first();
+  return Number(row?.max ?? 0);
+}
+
+/** Whether a spec has any readings (its torque fields are then the owner's to change). */
+export async function specHasReadings(knex: Knex, specId: string) {
+  const row = await knex('torque_readings').where({ spec_id: specId }).first('id');
+  return Boolean(row);
+}

@@ -1,0 +1,111 @@
+/**
+ * A step in full, as the API shows it: its parts, checklist, fasteners with
+ * readings, cautions, sign-off blockers, progress and photo count; and the
+ * summary of it that a job lists.
+ */
+import { cautionsForStep } from '../../../shared/install-log/cautions';
+import { signOffBlockers } from '../../../shared/install-log/sign-off';
+import type { ChecklistItem, Step, StepSummary } from '../../../shared/schemas/install-log';
+import type { BuildScope } from '../../lib/scope';
+import { seesPart } from '../parts';
+import * as checklistRepo from './checklist.repository';
+import * as fastenersRepo from './fasteners.repository';
+import { presentSpec } from './fasteners.present';
+import * as readingsRepo from './readings.repository';
+import * as stepPartsRepo from './step-parts.repository';
+import * as stepsRepo from './steps.repository';
+
+/**
+ * Full steps with their parts, checklist, fasteners, readings, cautions and
+ * blockers. Parts are those the caller may see (a shop: only parts sent to it,
+ * as in the parts ledger); cautions still weigh every linked part, as they are
+ * about the work, not the parts.
+ */
+export async function assembleSteps(
+  { knex, caller }: BuildScope,
+  steps: stepsRepo.StepRecord[],
+): Promise<Step[]> {
+  const ids = steps.map((s) => s.id);
+  // One after another: inside a transaction there is one connection, which runs one query at a time.
+  const links = await stepPartsRepo.listStepParts(knex, ids);
+  const checklist = await checklistRepo.listChecklist(knex, ids);
+  const specs = await fastenersRepo.listSpecs(knex, ids);
+  const photoCounts = await stepsRepo.countPhotosByStep(knex, ids);
+  const readings = await readingsRepo.listReadings(
+    knex,
+    specs.map((s) => s.id),
+  );
+  return steps.map((s) => {
+    const linked = links.filter((l) => l.stepId === s.id);
+    const parts = linked
+      .filter((l) => seesPart(caller, l))
+      .map(({ id, name, category, status }) => ({ id, name, category, status }));
+    const items: ChecklistItem[] = checklist.filter((c) => c.stepId === s.id);
+    const fasteners = specs.filter((f) => f.stepId === s.id).map((f) => presentSpec(f, readings));
+    const blockers =
+      s.status === 'signed-off' ? [] : signOffBlockers({ fasteners, checklist: items });
+    const positionsTotal = fasteners.reduce((n, f) => n + f.count, 0);
+    const current = fasteners.flatMap((f) =>
+      f.positions.map((p) => p.current).filter((c) => c != null),
+    );
+    return {
+      id: s.id,
+      buildId: s.buildId,
+      jobId: s.jobId,
+      position: s.position,
+      title: s.title,
+      description: s.description,
+      liftsVehicle: s.liftsVehicle,
+      status: s.status,
+      progress: {
+        checklistDone: items.filter((i) => i.done).length,
+        checklistTotal: items.length,
+        positionsRecorded: current.length,
+        positionsTotal,
+        outOfSpec: current.filter((c) => c.verdict !== 'in-spec').length,
+      },
+      parts,
+      checklist: items,
+      fasteners,
+      cautions: cautionsForStep({
+        title: s.title,
+        description: s.description,
+        partCategories: linked.map((p) => p.category),
+        liftsVehicle: s.liftsVehicle,
+        fastenerCount: fasteners.length,
+      }),
+      signOff: s.signedOffAt
+        ? {
+            by: s.signedOffBy,
+            at: s.signedOffAt,
+            override: s.overrideReason
+              ? { reason: s.overrideReason, blockers: s.overrideBlockers ?? [] }
+              : null,
+          }
+        : null,
+      signOffBlockers: blockers,
+      photoCount: photoCounts.get(s.id) ?? 0,
+      createdAt: s.createdAt,
+      updatedAt: s.updatedAt,
+    };
+  });
+}
+
+export function summarize(step: Step): StepSummary {
+  return {
+    id: step.id,
+    jobId: step.jobId,
+    position: step.position,
+    title: step.title,
+    status: step.status,
+    signedOffAt: step.signOff?.at ?? null,
+    progress: step.progress,
+  };
+}
+
+/** One step in full; the caller has already been shown it exists and is visible (loadStep). */
+export async function stepDetail(scope: BuildScope, stepId: string) {
+  const step = (await stepsRepo.findStep(scope.knex, scope.buildId, stepId))!;
+  const [detail] = await assembleSteps(scope, [step]);
+  return detail;
+}
