@@ -19,7 +19,7 @@ import { loadSession } from './middleware/require-auth';
 import type { AppDeps } from './lib/deps';
 import { devMailRouter } from './features/mail/dev-mail.router';
 import { findRole } from './features/members';
-import { apiRoutes } from './routes';
+import { apiRoutes, listRoutes } from './routes';
 
 /** Builds the Express app. Never listens: server/index.ts and the tests do that. */
 export function createApp(opts: {
@@ -80,7 +80,8 @@ export function createApp(opts: {
   api.use(originCheck(opts.config.allowedOrigins));
   api.use(loadSession(deps.sessions));
   api.use(moneyFilter);
-  for (const mount of apiRoutes(deps)) api.use(mount.path, mount.router);
+  const mounts = apiRoutes(deps);
+  for (const mount of mounts) api.use(mount.path, mount.router);
   api.use(notFoundApi);
   api.use(errorHandler(logger));
   app.use('/api', api);
@@ -94,5 +95,6 @@ export function createApp(opts: {
     app.get(/.*/, (_req, res) => res.sendFile(path.join(distDir, 'index.html')));
   }
   app.use(errorHandler(logger));
-  return app;
+  // The route table, for the fuzz test and the README's route list.
+  return Object.assign(app, { routes: listRoutes(mounts) });
 }

@@ -20,6 +20,11 @@ const envSchema = z.object({
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(100),
   /** Failed sign-ins to one account per 15 minutes, from anywhere. */
   ACCOUNT_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  /** Open estimates (the landing page's calculator) per client per minute. */
+  ESTIMATE_RATE_LIMIT: z.coerce.number().int().min(1).default(120),
+  /** Invitation mails one owner may send, and one build may receive, per hour and per day. */
+  INVITATIONS_PER_HOUR: z.coerce.number().int().min(1).default(20),
+  INVITATIONS_PER_DAY: z.coerce.number().int().min(1).default(50),
   /** Set when a reverse proxy terminates TLS in front of the app. */
   TRUST_PROXY: z.enum(['0', '1']).default('0'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'silent']).default('info'),
@@ -82,6 +87,8 @@ export type AppConfig = {
   allowedOrigins: string[];
   authRateLimit: number;
   accountRateLimit: number;
+  estimateRateLimit: number;
+  invitationLimits: { perHour: number; perDay: number };
   /** Key prefix for rate-limit counters; tests give each app its own. */
   rateLimitPrefix: string;
   trustProxy: boolean;
@@ -143,6 +150,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     ],
     authRateLimit: e.AUTH_RATE_LIMIT,
     accountRateLimit: e.ACCOUNT_RATE_LIMIT,
+    estimateRateLimit: e.ESTIMATE_RATE_LIMIT,
+    invitationLimits: { perHour: e.INVITATIONS_PER_HOUR, perDay: e.INVITATIONS_PER_DAY },
     rateLimitPrefix: 'rl:',
     trustProxy: e.TRUST_PROXY === '1',
     logLevel: e.LOG_LEVEL,

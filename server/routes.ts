@@ -62,3 +62,22 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/photos`, router: photosRouter(deps) },
   ];
 }
+
+export type RouteInfo = { method: string; path: string };
+
+/** Every route under the mounts, as `METHOD /api/…` with Express path parameters. */
+export function listRoutes(mounts: Mount[]): RouteInfo[] {
+  const out: RouteInfo[] = [];
+  for (const { path, router } of mounts) {
+    const stack = (router as unknown as { stack: { route?: { path: string; methods: object } }[] })
+      .stack;
+    for (const layer of stack) {
+      if (!layer.route) continue;
+      for (const method of Object.keys(layer.route.methods)) {
+        const sub = layer.route.path === '/' ? '' : layer.route.path;
+        out.push({ method: method.toUpperCase(), path: `/api${path}${sub}` });
+      }
+    }
+  }
+  return out;
+}

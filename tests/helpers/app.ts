@@ -11,6 +11,7 @@ import path from 'node:path';
 import supertest from 'supertest';
 import { afterAll, beforeAll } from 'vitest';
 import { createApp } from '../../server/app';
+import type { RouteInfo } from '../../server/routes';
 import { loadConfig, type AppConfig } from '../../server/config';
 import { createDatabase, type Database } from '../../server/lib/database';
 import { createLogger } from '../../server/lib/logger';
@@ -27,6 +28,8 @@ export type TestApp = {
   bare: () => ReturnType<typeof supertest>;
   /** Only with useTestApp(…, { mail: true }): the catcher, the worker and the caught messages. */
   mail: TestMail;
+  /** Every API route of the app, from its routers (server/routes.ts). */
+  routes: RouteInfo[];
   /** This app's own photo store and upload temp folder (fresh temp folders, removed afterwards). */
   storageDir: string;
   uploadTmpDir: string;
@@ -72,6 +75,7 @@ export function useTestApp(
     ctx.db = createDatabase(config.databaseUrl);
     const app = createApp({ db: ctx.db, config, logger: createLogger('silent') });
     ctx.server.on('request', app);
+    ctx.routes = app.routes;
     ctx.agent = () => supertest.agent(ctx.origin).set('Origin', ctx.origin);
     ctx.bare = () => supertest(ctx.origin);
     if (mailSetup) ctx.mail = mailSetup.attach(ctx.db, ctx.origin);

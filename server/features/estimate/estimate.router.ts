@@ -6,8 +6,9 @@ import { validate } from '../../middleware/validate';
 import * as service from './estimate.service';
 
 /**
- * Stateless estimates per client per minute. Generous: the page computes its
- * what-if in the browser, so this only guards the open endpoint from abuse.
+ * Stateless estimates per client per minute by default (ESTIMATE_RATE_LIMIT).
+ * Generous: the page computes its what-if in the browser, so this only guards
+ * the open endpoint from abuse.
  */
 export const ESTIMATE_RATE_LIMIT = 120;
 
@@ -16,7 +17,7 @@ export function estimateRouter({ db, config }: AppDeps) {
   const router = Router();
   const limit = createRateLimit(db.knex, {
     prefix: `${config.rateLimitPrefix}estimate:`,
-    limit: ESTIMATE_RATE_LIMIT,
+    limit: config.estimateRateLimit,
     windowMs: 60_000,
     message: 'Too many estimates from here. Wait a minute and try again.',
   });

@@ -20,7 +20,13 @@ export function buildInvitationsRouter(deps: AppDeps) {
   });
   router.post('/', manage, validate({ body: createInvitationInputSchema }), async (req, res) => {
     res.status(201).json({
-      invitation: await service.create(knex, req.membership!.buildId, req.user!, req.body),
+      invitation: await service.create(
+        knex,
+        req.membership!.buildId,
+        req.user!,
+        req.body,
+        deps.config.invitationLimits,
+      ),
     });
   });
   router.post('/:invitationId/resend', manage, async (req, res) => {
@@ -30,6 +36,7 @@ export function buildInvitationsRouter(deps: AppDeps) {
         req.membership!.buildId,
         String(req.params.invitationId),
         req.user!,
+        deps.config.invitationLimits,
       ),
     });
   });

@@ -49,11 +49,17 @@ function invitationMail(p: {
 
 /**
  * Invitation mails an owner may send, per hour and per day, counted per sender
- * and per build: enough for any real crew, too few to use Headroom as a mailer.
+ * and per build (INVITATIONS_PER_HOUR / _PER_DAY): enough for any real crew,
+ * too few to use Headroom as a mailer.
  */
-export const invitationLimits = { perHour: 20, perDay: 50 };
+export type InvitationLimits = { perHour: number; perDay: number };
 
-async function checkSendLimit(trx: Knex.Transaction, buildId: string, senderId: string) {
+async function checkSendLimit(
+  trx: Knex.Transaction,
+  buildId: string,
+  senderId: string,
+  invitationLimits: InvitationLimits,
+) {
   await repo.lockSender(trx, senderId);
   const now = Date.now();
   const hour = await repo.countSends(trx, buildId, senderId, new Date(now - 3600_000));
@@ -89,6 +95,7 @@ export async function create(
   buildId: string,
   inviter: SessionUser,
   input: CreateInvitationInput,
+  limits: InvitationLimits,
 ) {
   if (await repo.findMemberByEmail(knex, buildId, input.email)) {
     throw new ConflictError('already_member', 'That person is already on this build', {
@@ -99,7 +106,7 @@ export async function create(
   const expiresAt = expiry();
   try {
     const id = await knex.transaction(async (trx) => {
-      await checkSendLimit(trx, buildId, inviter.id);
+      await checkSendLimit(trx, buildId, inviter.id, limits);
       const buildName = (await repo.buildName(trx, buildId))!;
       const invitationId = await repo.insertInvitation(trx, {
         buildId,
@@ -144,14 +151,20 @@ function invitationId(raw: string) {
 }
 
 /** A new link (the old one stops working), valid for another full week, mailed again. */
-export async function resend(knex: Knex, buildId: string, rawId: string, sender: SessionUser) {
+export async function resend(
+  knex: Knex,
+  buildId: string,
+  rawId: string,
+  sender: SessionUser,
+  limits: InvitationLimits,
+) {
   const id = invitationId(rawId);
   const { token, hash } = newToken();
   const expiresAt = expiry();
   await knex.transaction(async (trx) => {
     const inv = await repo.findOpen(trx, buildId, id, { forUpdate: true });
     if (!inv) throw new NotFoundError('Invitation not found');
-    await checkSendLimit(trx, buildId, sender.id);
+    await checkSendLimit(trx, buildId, sender.id, limits);
     const buildName = (await repo.buildName(trx, buildId))!;
     await repo.renewInvitation(trx, id, hash, expiresAt);
     await enqueueMail(
