@@ -15,7 +15,7 @@ import { createDatabase, type Database } from '../../server/lib/database';
 import { createLogger } from '../../server/lib/logger';
 import { createMailWorker } from '../../server/features/mail/mail.worker';
 import { enqueueMail } from '../../server/features/mail/mail.repository';
-import { createPgCluster, type PgCluster } from '../helpers/pg-cluster';
+import { createPgCluster, type PgCluster } from '../../scripts/lib/pg-cluster';
 import { password } from '../helpers/factories';
 
 let cluster: PgCluster;

@@ -9,7 +9,7 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { freePort } from '../helpers/pg-cluster';
+import { freePort } from '../../scripts/lib/pg-cluster';
 
 const root = path.resolve(import.meta.dirname, '../..');
 const dataRoot = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-start-'));

@@ -1,0 +1,182 @@
+/**
+ * npm run bench:api — the API under load, measured against a floor.
+ *
+ * Starts its own throwaway PostgreSQL with the demo data, the Headroom server as
+ * `npm start` runs it, and a bare Express + pg `select 1` endpoint on the same
+ * database (the floor). Then, on loopback only, runs autocannon against the floor
+ * and each endpoint in alternation and prints req/s, p50 and p99 latency, their
+ * ratio to the floor, errors and the server's memory. Prints figures; asserts nothing.
+ *
+ *   npm run bench:api                       all endpoints, 50 connections, 5 s a run, 2 rounds
+ *   npm run bench:api -- --connections 200 --duration 30 --rounds 1 --only parts
+ */
+import { fork, spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { parseArgs } from 'node:util';
+import autocannon from 'autocannon';
+import knexFactory from 'knex';
+import { knexConfig } from '../db/knexfile';
+import { seedDemo } from '../db/seeds/demo';
+import { createLocalDiskStorage } from '../server/lib/storage';
+import { createPgCluster, freePort } from './lib/pg-cluster';
+
+const { values: opts } = parseArgs({
+  options: {
+    connections: { type: 'string', default: '50' },
+    duration: { type: 'string', default: '5' },
+    rounds: { type: 'string', default: '2' },
+    only: { type: 'string' },
+  },
+});
+const connections = Math.min(1000, Number(opts.connections));
+const duration = Math.min(120, Number(opts.duration));
+const rounds = Math.min(10, Number(opts.rounds));
+const root = path.resolve(import.meta.dirname, '..');
+
+function rssOf(pid: number): number {
+  const status = fs.readFileSync(`/proc/${pid}/status`, 'utf8');
+  return Number(/VmRSS:\s+(\d+)/.exec(status)?.[1] ?? 0) / 1024;
+}
+
+async function waitFor(url: string) {
+  for (let i = 0; i < 300; i++) {
+    try {
+      if ((await fetch(url)).ok) return;
+    } catch {
+      // not yet
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`${url} never answered`);
+}
+
+type Result = { rps: number; p50: number; p99: number; errors: number; non2xx: number };
+
+async function run(url: string, headers: Record<string, string>): Promise<Result> {
+  const r = await autocannon({ url, connections, duration, headers, pipelining: 1 });
+  return {
+    rps: r.requests.average,
+    p50: r.latency.p50,
+    p99: r.latency.p99,
+    errors: r.errors + r.timeouts,
+    non2xx: r.non2xx,
+  };
+}
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
+const children: ChildProcess[] = [];
+const cluster = await createPgCluster('headroom_bench');
+try {
+  const knex = knexFactory(knexConfig(cluster.url));
+  await knex.migrate.latest();
+  const storageDir = fs.mkdtempSync('/tmp/headroom-bench-files-');
+  await knex.transaction((trx) => seedDemo(trx, { storage: createLocalDiskStorage(storageDir) }));
+  await knex.destroy();
+
+  const [appPort, floorPort, mailPort] = [await freePort(), await freePort(), await freePort()];
+  const server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
+    cwd: root,
+    env: {
+      ...process.env,
+      DATABASE_URL: cluster.url,
+      PORT: String(appPort),
+      NODE_ENV: 'development',
+      SERVE_CLIENT: '0',
+      MAIL_CATCHER_PORT: String(mailPort),
+      MAIL_DIR: path.join(storageDir, 'mail'),
+      STORAGE_DIR: storageDir,
+      LOG_LEVEL: process.env.LOG_LEVEL ?? 'info',
+    },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  children.push(server);
+  const floor = fork(path.join(root, 'scripts/bench/floor-server.ts'), {
+    env: { ...process.env, DATABASE_URL: cluster.url, PORT: String(floorPort) },
+    execArgv: ['--import', 'tsx'],
+  });
+  children.push(floor);
+  const base = `http://127.0.0.1:${appPort}`;
+  await waitFor(`${base}/api/health`);
+  await waitFor(`http://127.0.0.1:${floorPort}/floor`);
+
+  const signIn = await fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json', Origin: `http://127.0.0.1:${appPort}` },
+    body: JSON.stringify({ email: 'owner@example.test', password: 'headroom-demo' }),
+  });
+  const cookie = (signIn.headers.get('set-cookie') ?? '').split(';')[0];
+  const headers = { cookie };
+  const builds = (await (await fetch(`${base}/api/builds`, { headers })).json()) as {
+    builds: { id: string }[];
+  };
+  const b = `/api/builds/${builds.builds[0].id}`;
+  const endpoints: [string, string][] = [
+    ['health', '/api/health'],
+    ['build', b],
+    ['estimate', `${b}/estimate`],
+    ['budget', `${b}/budget`],
+    ['parts', `${b}/parts`],
+    ['jobs', `${b}/jobs`],
+  ];
+  const chosen = opts.only
+    ? endpoints.filter(([n]) => opts.only!.split(',').includes(n))
+    : endpoints;
+  for (const [, p] of chosen) {
+    const res = await fetch(base + p, { headers });
+    if (!res.ok) throw new Error(`${p} answered ${res.status} before the benchmark`);
+  }
+
+  console.log(
+    `\nHeadroom API benchmark: ${connections} connections, ${duration} s a run, ${rounds} round(s), loopback\n`,
+  );
+  const rssStart = rssOf(server.pid!);
+  const floorRuns: Result[] = [];
+  const table: { name: string; runs: Result[]; floor: Result[] }[] = [];
+  let peakRss = rssStart;
+  for (const [name, p] of chosen) {
+    const runs: Result[] = [];
+    const floors: Result[] = [];
+    for (let i = 0; i < rounds; i++) {
+      floors.push(await run(`http://127.0.0.1:${floorPort}/floor`, {}));
+      runs.push(await run(base + p, headers));
+      peakRss = Math.max(peakRss, rssOf(server.pid!));
+    }
+    floorRuns.push(...floors);
+    table.push({ name, runs, floor: floors });
+  }
+  const pad = (s: string | number, n: number) => String(s).padStart(n);
+  console.log(
+    `${'endpoint'.padEnd(10)}${pad('req/s', 9)}${pad('p50 ms', 9)}${pad('p99 ms', 9)}${pad('p50×floor', 11)}${pad('p99×floor', 11)}${pad('errors', 8)}${pad('non-2xx', 9)}`,
+  );
+  const fl = {
+    rps: median(floorRuns.map((r) => r.rps)),
+    p50: median(floorRuns.map((r) => r.p50)),
+    p99: median(floorRuns.map((r) => r.p99)),
+  };
+  console.log(
+    `${'floor'.padEnd(10)}${pad(Math.round(fl.rps), 9)}${pad(fl.p50, 9)}${pad(fl.p99, 9)}${pad('1.0', 11)}${pad('1.0', 11)}${pad(0, 8)}${pad(0, 9)}`,
+  );
+  for (const row of table) {
+    const rps = median(row.runs.map((r) => r.rps));
+    const p50 = median(row.runs.map((r) => r.p50));
+    const p99 = median(row.runs.map((r) => r.p99));
+    // Against the floor runs made next to these ones, so a busy machine shifts both alike.
+    const f50 = median(row.floor.map((r) => r.p50)) || 1;
+    const f99 = median(row.floor.map((r) => r.p99)) || 1;
+    const errors = row.runs.reduce((n, r) => n + r.errors, 0);
+    const non2xx = row.runs.reduce((n, r) => n + r.non2xx, 0);
+    console.log(
+      `${row.name.padEnd(10)}${pad(Math.round(rps), 9)}${pad(p50, 9)}${pad(p99, 9)}${pad((p50 / f50).toFixed(1), 11)}${pad((p99 / f99).toFixed(1), 11)}${pad(errors, 8)}${pad(non2xx, 9)}`,
+    );
+  }
+  console.log(
+    `\nserver memory (RSS): ${rssStart.toFixed(0)} MB at start, ${peakRss.toFixed(0)} MB at most, ${rssOf(server.pid!).toFixed(0)} MB at the end\n`,
+  );
+  fs.rmSync(storageDir, { recursive: true, force: true });
+} finally {
+  for (const c of children) c.kill('SIGTERM');
+  await new Promise((r) => setTimeout(r, 500));
+  cluster.remove();
+}
