@@ -9,6 +9,7 @@ export * from './csv';
 export * from './imbalance';
 export * from './limits';
 export * from './points';
+export * from './presets';
 export * from './statistics';
 export * from './units';
 export * from './words';

@@ -10,7 +10,6 @@
  * picked one. Every default is stored with the sheet once chosen, so a sheet
  * keeps the tolerance it was judged against.
  */
-import type { TestPointInput } from '../schemas/bench';
 import { convertBenchValue, type BenchUnit, type BenchUnitSpec } from './units';
 
 export const testPointKinds = [
@@ -180,37 +179,3 @@ export const TOLERANCE_EDGE_RULE = 'A value exactly on the edge of its tolerance
  * float error (~1e-16 relative).
  */
 export const BENCH_EDGE_EPSILON = 1e-9;
-
-/** A new test point of a kind, with Headroom's default label, unit and tolerance and no values. */
-export function testPointPreset(kind: TestPointKind): TestPointInput {
-  const unit = defaultUnitOfKind[kind];
-  const tolerance = defaultToleranceFor(kind, { unit })!;
-  return {
-    kind,
-    label: testPointKindLabels[kind],
-    unit,
-    tolerance: { type: tolerance.type, value: tolerance.value },
-    values: [],
-  };
-}
-
-/** The points a new sheet starts with: the usual common-rail test plan. */
-export const defaultPresetKinds: readonly TestPointKind[] = [
-  'full-load',
-  'part-load',
-  'idle',
-  'pilot',
-  'return-flow',
-];
-
-/**
- * A preset list of test points for a new sheet (fresh objects each call):
- * full load, part load, idle, pilot and return flow in mm³/stroke with the
- * default tolerances above. Pass other kinds, e.g. `['opening-pressure',
- * 'full-load']` for a mechanical injector.
- */
-export function defaultTestPoints(
-  kinds: readonly TestPointKind[] = defaultPresetKinds,
-): TestPointInput[] {
-  return kinds.map(testPointPreset);
-}

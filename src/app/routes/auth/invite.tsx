@@ -10,7 +10,7 @@ import { formatTimestampDate } from '../../../../shared/format';
 import { paths } from '../../../config/paths';
 import { useMe } from '../../../features/auth/api/get-me';
 import { AuthCard } from '../../../features/auth/components/auth-card';
-import { RoleBadge } from '../../../features/builds/components/role-badge';
+import { RoleBadge } from '../../../components/ui/role-badge';
 import type { AcceptInvitationResult } from '../../../features/invitations/api/accept-invitation';
 import { useInvitationLink } from '../../../features/invitations/api/get-invitation-link';
 import { InvitationAnswer } from '../../../features/invitations/components/invitation-answer';

@@ -10,7 +10,7 @@ import {
 } from '../../../features/builds/components/build-details';
 import { vehicleLine } from '../../../features/builds/components/build-text';
 import { DeleteBuild } from '../../../features/builds/components/delete-build';
-import { RoleBadge } from '../../../features/builds/components/role-badge';
+import { RoleBadge } from '../../../components/ui/role-badge';
 import { MembersPanel } from '../../../features/members/components/members-panel';
 import { InvitationsPanel } from '../../../features/invitations/components/invitations-panel';
 import { PageHeader } from '../../../components/layouts/page-header';

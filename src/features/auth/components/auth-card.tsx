@@ -32,7 +32,3 @@ export function AuthCard({
     </div>
   );
 }
-
-/** A link that reads as text but keeps a 44 px touch target. */
-export const authLinkClasses =
-  'inline-flex min-h-11 items-center font-semibold text-accent-700 underline';

@@ -11,7 +11,7 @@ import { FormError } from '../../../components/ui/form-error';
 import { paths } from '../../../config/paths';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useRequestPasswordReset } from '../api/request-password-reset';
-import { authLinkClasses } from './auth-card';
+import { textLinkClasses } from '../../../components/ui/text-link';
 
 type Input = z.input<typeof requestPasswordResetInputSchema>;
 type Output = z.output<typeof requestPasswordResetInputSchema>;
@@ -46,7 +46,7 @@ export function ForgotPasswordForm({ initialEmail = '' }: { initialEmail?: strin
   const backToSignIn = (
     <p className="text-center text-ink-2">
       Remembered it?{' '}
-      <Link to={paths.auth.signIn.getHref()} className={authLinkClasses}>
+      <Link to={paths.auth.signIn.getHref()} className={textLinkClasses}>
         Back to sign in
       </Link>
     </p>

@@ -3,7 +3,7 @@ import { Gauge, Flag } from 'lucide-react';
 import type { Build } from '../../../../shared/schemas/builds';
 import { paths } from '../../../config/paths';
 import { Countdown } from './countdown';
-import { RoleBadge } from './role-badge';
+import { RoleBadge } from '../../../components/ui/role-badge';
 import { powerText, vehicleLine } from './build-text';
 
 /** One build in "My builds". The whole card is the link (through the name's stretched link). */

@@ -7,7 +7,7 @@ import { Alert } from '../../../components/ui/alert';
 import { Button, ButtonLink } from '../../../components/ui/button';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
-import { authLinkClasses } from '../../auth/components/auth-card';
+import { textLinkClasses } from '../../../components/ui/text-link';
 import { useAcceptInvitation, type AcceptInvitationResult } from '../api/accept-invitation';
 import { useSignOutHere } from '../api/sign-out-here';
 import { JoinBuildForm } from './join-build-form';
@@ -95,7 +95,7 @@ function SignInToAccept({ token, email }: { token: string; email: string }) {
         <Link
           to={paths.auth.forgotPassword.getHref()}
           state={{ email }}
-          className={authLinkClasses}
+          className={textLinkClasses}
         >
           Forgot your password?
         </Link>

@@ -6,7 +6,7 @@ import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { isApiError } from '../../../lib/api-client';
-import { RoleBadge } from '../../builds/components/role-badge';
+import { RoleBadge } from '../../../components/ui/role-badge';
 import { useResendInvitation } from '../api/resend-invitation';
 import { useRevokeInvitation } from '../api/revoke-invitation';
 

@@ -10,7 +10,7 @@ import { SelectInput } from '../../../components/ui/form-field';
 import { Spinner } from '../../../components/ui/spinner';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
-import { RoleBadge } from '../../builds/components/role-badge';
+import { RoleBadge } from '../../../components/ui/role-badge';
 import { useRemoveMember } from '../api/remove-member';
 import { useUpdateMember } from '../api/update-member';
 

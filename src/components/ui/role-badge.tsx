@@ -1,5 +1,5 @@
-import { roleLabels, type Role } from '../../../../shared/permissions';
-import { Badge } from '../../../components/ui/badge';
+import { roleLabels, type Role } from '../../../shared/permissions';
+import { Badge } from './badge';
 
 export function RoleBadge({ role, prefix }: { role: Role; prefix?: string }) {
   return (
