@@ -78,10 +78,12 @@ export function createApp(opts: {
     next();
   });
   api.use(originCheck(opts.config.allowedOrigins));
+  const mounts = apiRoutes(deps);
+  // Routes that need no session (the health check) answer without the session lookup.
+  for (const mount of mounts.filter((m) => m.anonymous)) api.use(mount.path, mount.router);
   api.use(loadSession(deps.sessions));
   api.use(moneyFilter);
-  const mounts = apiRoutes(deps);
-  for (const mount of mounts) api.use(mount.path, mount.router);
+  for (const mount of mounts.filter((m) => !m.anonymous)) api.use(mount.path, mount.router);
   api.use(notFoundApi);
   api.use(errorHandler(logger));
   app.use('/api', api);

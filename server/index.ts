@@ -68,6 +68,7 @@ async function stop(signal: string) {
   mailer.close();
   await catcher?.close();
   await db.close().catch(() => undefined);
+  logger.flush();
   process.exit(0);
 }
 process.on('SIGINT', () => void stop('SIGINT'));

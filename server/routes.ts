@@ -31,13 +31,14 @@ import { noticePreferencesRouter } from './features/notices/notices.router';
 import { partsCsvRouter, partsRouter } from './features/parts/parts.router';
 import { photosRouter, subjectPhotosRouter } from './features/photos/photos.router';
 
-export type Mount = { path: string; router: Router };
+/** `anonymous`: served before the session is read (no cookie lookup), e.g. the health check. */
+export type Mount = { path: string; router: Router; anonymous?: boolean };
 
 /** Every /api mount, relative to /api. A build's own data lives under /builds/:buildId/. */
 export function apiRoutes(deps: AppDeps): Mount[] {
   const b = '/builds/:buildId';
   return [
-    { path: '/health', router: healthRouter(deps) },
+    { path: '/health', router: healthRouter(deps), anonymous: true },
     { path: '/auth/password-reset', router: passwordResetRouter(deps) },
     { path: '/auth', router: authRouter(deps) },
     { path: '/me', router: meRouter() },

@@ -7,6 +7,8 @@ import { NodePostgresAdapter } from '@lucia-auth/adapter-postgresql';
 import { Lucia, TimeSpan } from 'lucia';
 import type { Request, Response } from 'express';
 import type pg from 'pg';
+import type { Role } from '../../shared/permissions';
+import * as sessionsRepo from './sessions.repository';
 
 export const SESSION_COOKIE = 'headroom_session';
 
@@ -18,6 +20,8 @@ declare module 'lucia' {
 }
 
 export type SessionUser = { id: string; email: string; displayName: string };
+
+const sessionTerm = new TimeSpan(30, 'd');
 
 // OWASP's argon2id baseline (19 MiB, 2 passes, 1 lane); @node-rs/argon2 defaults to argon2id.
 const hashOptions = { memoryCost: 19456, timeCost: 2, parallelism: 1 };
@@ -47,8 +51,8 @@ export async function verifyPassword(
 export function createSessions(pool: pg.Pool) {
   const adapter = new NodePostgresAdapter(pool, { user: 'users', session: 'user_sessions' });
   const lucia = new Lucia(adapter, {
-    // Sessions last 30 days and lucia extends them when used in their second half.
-    sessionExpiresIn: new TimeSpan(30, 'd'),
+    // Sessions last 30 days and are extended when used in their second half.
+    sessionExpiresIn: sessionTerm,
     sessionCookie: { name: SESSION_COOKIE, attributes: { sameSite: 'lax' } },
     getUserAttributes: (a) => ({ email: a.email, displayName: a.display_name }),
   });
@@ -85,22 +89,38 @@ export function createSessions(pool: pg.Pool) {
       return session;
     },
 
-    /** Reads the cookie, validates it and refreshes or clears it as lucia says. */
+    /**
+     * Reads the cookie and validates the session with lucia's rules (expired:
+     * deleted and the cookie cleared; in its second half: extended to a full
+     * term and the cookie renewed), in one statement that also brings the
+     * user's role on `buildId` when the request is about a build.
+     */
     async resume(
       req: Request,
       res: Response,
-    ): Promise<{ user: SessionUser; sessionId: string } | null> {
+      buildId: string | null = null,
+    ): Promise<{
+      user: SessionUser;
+      sessionId: string;
+      membership: { buildId: string; role: Role | null } | null;
+    } | null> {
       const id = lucia.readSessionCookie(req.headers.cookie ?? '');
       if (!id) return null;
-      const { session, user } = await lucia.validateSession(id);
-      if (!session) {
+      const row = await sessionsRepo.findSession(pool, id, buildId);
+      const now = Date.now();
+      if (!row || row.expires_at.getTime() <= now) {
+        if (row) await sessionsRepo.deleteSession(pool, id);
         writeCookie(req, res, lucia.createBlankSessionCookie());
         return null;
       }
-      if (session.fresh) writeCookie(req, res, lucia.createSessionCookie(session.id));
+      if (row.expires_at.getTime() - sessionTerm.milliseconds() / 2 <= now) {
+        await sessionsRepo.extendSession(pool, id, new Date(now + sessionTerm.milliseconds()));
+        writeCookie(req, res, lucia.createSessionCookie(id));
+      }
       return {
-        user: { id: user.id, email: user.email, displayName: user.displayName },
-        sessionId: session.id,
+        user: { id: row.user_id, email: row.email, displayName: row.display_name },
+        sessionId: id,
+        membership: buildId ? { buildId, role: row.role } : null,
       };
     },
 

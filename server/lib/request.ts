@@ -9,6 +9,8 @@ declare global {
       sessionId?: string;
       /** Set by buildAccess(): the caller's role on the build in the path. */
       membership?: { buildId: string; role: Role };
+      /** Set by loadSession(): the role found with the session for the build in the path, if any. */
+      sessionMembership?: { buildId: string; role: Role | null } | null;
     }
   }
 }

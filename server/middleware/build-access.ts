@@ -18,7 +18,12 @@ export function createBuildAccess(knex: Knex, findRole: FindRole): BuildAccess {
     if (!req.user) throw new UnauthorizedError();
     const parsed = idSchema.safeParse(req.params.buildId);
     if (!parsed.success) throw new NotFoundError('Build not found');
-    const role = await findRole(knex, parsed.data, req.user.id);
+    // Usually found with the session already (one statement for both); asked here otherwise.
+    const known = req.sessionMembership;
+    const role =
+      known && known.buildId === parsed.data.toLowerCase()
+        ? (known.role ?? undefined)
+        : await findRole(knex, parsed.data, req.user.id);
     if (!role) throw new NotFoundError('Build not found');
     req.membership = { buildId: parsed.data, role };
     res.locals.hideMoney = !can(role, 'money:read');

@@ -2,13 +2,23 @@ import type { RequestHandler } from 'express';
 import type { Sessions } from '../lib/auth';
 import { UnauthorizedError } from '../lib/errors';
 
-/** Attaches req.user when the session cookie is valid; never refuses by itself. */
+// /builds/<uuid>… relative to /api: the build a request is about, looked up with the session.
+const buildInPath =
+  /^\/builds\/([0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})(?:[/.]|$)/i;
+
+/**
+ * Attaches req.user when the session cookie is valid; never refuses by itself.
+ * For a request under /builds/:buildId the same statement brings the caller's
+ * role there, which the access check then uses instead of asking again.
+ */
 export function loadSession(sessions: Sessions): RequestHandler {
   return async (req, res, next) => {
-    const found = await sessions.resume(req, res);
+    const buildId = buildInPath.exec(req.path)?.[1]?.toLowerCase() ?? null;
+    const found = await sessions.resume(req, res, buildId);
     if (found) {
       req.user = found.user;
       req.sessionId = found.sessionId;
+      req.sessionMembership = found.membership;
     }
     next();
   };

@@ -100,6 +100,40 @@ export async function listSpecs(knex: Knex, stepIds: string[]) {
   return rows.map(toSpec);
 }
 
+/**
+ * Every fastener spec of the build's steps with the current fitting reading of
+ * each position (value and unit only), in one statement: what progress counts need.
+ */
+export async function listSpecsWithCurrentReadings(knex: Knex, buildId: string) {
+  const rows: (SpecRow & {
+    reading_position: number | null;
+    reading_value: number | null;
+    reading_unit: TorqueUnit | null;
+  })[] = await specs(knex)
+    .join('install_steps as s', 's.id', 'f.step_id')
+    .leftJoin('torque_readings as r', function () {
+      this.on('r.spec_id', 'f.id').andOnVal('r.kind', 'install').andOnNull('r.superseded_at');
+    })
+    .where('s.build_id', buildId)
+    .select('r.position as reading_position', 'r.value as reading_value', 'r.unit as reading_unit');
+  const byId = new Map<
+    string,
+    { spec: SpecRecord; current: { position: number; value: number; unit: TorqueUnit }[] }
+  >();
+  for (const row of rows) {
+    const entry = byId.get(row.id) ?? { spec: toSpec(row), current: [] };
+    byId.set(row.id, entry);
+    if (row.reading_position != null && row.reading_value != null && row.reading_unit) {
+      entry.current.push({
+        position: row.reading_position,
+        value: row.reading_value,
+        unit: row.reading_unit,
+      });
+    }
+  }
+  return [...byId.values()];
+}
+
 export async function findSpec(knex: Knex, buildId: string, specId: string) {
   const row: SpecRow | undefined = await specs(knex)
     .join('install_steps as s', 's.id', 'f.step_id')

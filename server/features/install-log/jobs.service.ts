@@ -6,22 +6,19 @@ import * as files from '../files';
 import { loadJob, visibleSteps } from './access';
 import * as repo from './jobs.repository';
 import { lockOrdering } from './ordering.repository';
-import { assembleSteps, summarize } from './steps.detail';
+import { assembleSteps, summariesForBuild, summarize } from './steps.detail';
 import * as stepsRepo from './steps.repository';
 
 /** Every job with its step summaries; a shop gets only jobs holding steps it may see. */
 export async function listJobs(scope: BuildScope): Promise<Job[]> {
-  const { knex, buildId } = scope;
-  const [jobs, steps, visible] = await Promise.all([
-    repo.listJobs(knex, buildId),
-    stepsRepo.listSteps(knex, buildId),
-    visibleSteps(scope),
+  const [jobs, summaries] = await Promise.all([
+    repo.listJobs(scope.knex, scope.buildId),
+    summariesForBuild(scope),
   ]);
-  const shown = visible ? steps.filter((s) => visible.has(s.id)) : steps;
-  const full = await assembleSteps(scope, shown);
+  const shop = scope.caller.role === 'shop';
   return jobs
-    .map((j) => ({ ...j, steps: full.filter((s) => s.jobId === j.id).map(summarize) }))
-    .filter((j) => !visible || j.steps.length > 0);
+    .map((j) => ({ ...j, steps: summaries.filter((s) => s.jobId === j.id) }))
+    .filter((j) => !shop || j.steps.length > 0);
 }
 
 export async function getJob(scope: BuildScope, rawJobId: string): Promise<Job> {

@@ -5,6 +5,7 @@
  */
 import { cautionsForStep } from '../../../shared/install-log/cautions';
 import { signOffBlockers } from '../../../shared/install-log/sign-off';
+import { judgeTorque } from '../../../shared/install-log/torque';
 import type { ChecklistItem, Step, StepSummary } from '../../../shared/schemas/install-log';
 import type { BuildScope } from '../../lib/scope';
 import { seesPart } from '../parts';
@@ -101,6 +102,42 @@ export function summarize(step: Step): StepSummary {
     signedOffAt: step.signOff?.at ?? null,
     progress: step.progress,
   };
+}
+
+/**
+ * The summaries of every step a caller may see, for job lists, in three
+ * statements whatever the build's size: steps with checklist counts (shop
+ * filter included), and specs with their current readings, judged here alike
+ * with the full step view.
+ */
+export async function summariesForBuild({ knex, buildId, caller }: BuildScope) {
+  const [steps, specs] = await Promise.all([
+    stepsRepo.listStepsWithCounts(knex, buildId, {
+      shopUserId: caller.role === 'shop' ? caller.userId : undefined,
+    }),
+    fastenersRepo.listSpecsWithCurrentReadings(knex, buildId),
+  ]);
+  return steps.map((s): StepSummary => {
+    const mine = specs.filter((f) => f.spec.stepId === s.id);
+    const current = mine.flatMap(({ spec, current }) =>
+      current.filter((r) => r.position <= spec.count).map((r) => judgeTorque(r, spec).verdict),
+    );
+    return {
+      id: s.id,
+      jobId: s.jobId,
+      position: s.position,
+      title: s.title,
+      status: s.status,
+      signedOffAt: s.signedOffAt,
+      progress: {
+        checklistDone: s.checklistDone,
+        checklistTotal: s.checklistTotal,
+        positionsRecorded: current.length,
+        positionsTotal: mine.reduce((n, f) => n + f.spec.count, 0),
+        outOfSpec: current.filter((v) => v !== 'in-spec').length,
+      },
+    };
+  });
 }
 
 /** One step in full; the caller has already been shown it exists and is visible (loadStep). */
