@@ -3,26 +3,8 @@ import { roles } from '../permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
 import { emailSchema } from './auth';
 
-export const aspirations = [
-  'naturally-aspirated',
-  'single-turbo',
-  'twin-turbo',
-  'compound-turbo',
-  'supercharged',
-] as const;
-export const aspirationLabels: Record<(typeof aspirations)[number], string> = {
-  'naturally-aspirated': 'Naturally aspirated',
-  'single-turbo': 'Single turbo',
-  'twin-turbo': 'Twin turbo (parallel)',
-  'compound-turbo': 'Compound turbos',
-  supercharged: 'Supercharged',
-};
-
-export const powerBases = ['crank', 'wheel'] as const;
-export const powerBasisLabels: Record<(typeof powerBases)[number], string> = {
-  crank: 'crank hp',
-  wheel: 'wheel hp',
-};
+export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
+import { aspirations, powerBases } from '../builds/vocabulary';
 
 const optionalNumber = (schema: z.ZodNumber) => schema.nullable().optional();
 

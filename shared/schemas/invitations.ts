@@ -3,8 +3,7 @@ import type { Role } from '../permissions';
 import { displayNameSchema, emailSchema, passwordSchema } from './auth';
 import { roleSchema } from './builds';
 
-/** Days an invitation link stays usable. */
-export const invitationValidDays = 7;
+export { invitationValidDays } from '../invitations/rules';
 
 /** POST /api/builds/:buildId/invitations */
 export const createInvitationInputSchema = z

@@ -1,4 +1,4 @@
-import { apiErrorSchema } from '../../shared/schemas/common';
+import type { ApiErrorBody } from '../../shared/schemas/common';
 
 /** An answer from the API that was not a success, or no answer at all (status 0). */
 export class ApiError extends Error {
@@ -47,6 +47,23 @@ const fallbackMessages: Record<number, string> = {
   429: 'Too many attempts. Wait a moment and try again.',
 };
 
+/**
+ * The API's error shape (apiErrorSchema in shared/schemas/common), checked by hand:
+ * every page reads errors, and zod would otherwise load with every page.
+ */
+function isApiErrorBody(body: unknown): body is ApiErrorBody {
+  const error = (body as { error?: unknown } | null)?.error as Record<string, unknown> | undefined;
+  if (!error || typeof error !== 'object') return false;
+  if (typeof error.code !== 'string' || typeof error.message !== 'string') return false;
+  const fields = error.fields;
+  if (fields === undefined) return true;
+  return (
+    typeof fields === 'object' &&
+    fields !== null &&
+    Object.values(fields).every((v) => typeof v === 'string')
+  );
+}
+
 async function readError(response: Response): Promise<ApiError> {
   let body: unknown = null;
   try {
@@ -54,9 +71,8 @@ async function readError(response: Response): Promise<ApiError> {
   } catch {
     // A proxy or a crash page: not our JSON. Fall through to a generic message.
   }
-  const parsed = apiErrorSchema.safeParse(body);
-  if (parsed.success) {
-    const { code, message, fields } = parsed.data.error;
+  if (isApiErrorBody(body)) {
+    const { code, message, fields } = body.error;
     return new ApiError(response.status, code, message, fields);
   }
   const message =

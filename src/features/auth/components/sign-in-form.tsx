@@ -1,17 +1,23 @@
 import { Link } from 'react-router-dom';
 import { useForm, type Path } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { signInInputSchema } from '../../../../shared/schemas/auth';
+import type { signInInputSchema } from '../../../../shared/schemas/auth';
 import { Button } from '../../../components/ui/button';
 import { FormField, TextInput } from '../../../components/ui/form-field';
 import { FormError } from '../../../components/ui/form-error';
 import { paths } from '../../../config/paths';
 import { applyServerErrors } from '../../../lib/form-errors';
+import { lazyResolver } from '../../../lib/lazy-resolver';
 import { useSignIn } from '../api/sign-in';
 
 type Input = z.input<typeof signInInputSchema>;
 type Output = z.output<typeof signInInputSchema>;
+// zod and the schema load when the form is first used, not with the page.
+const resolver = lazyResolver<Input, Output>(() =>
+  Promise.all([import('@hookform/resolvers/zod'), import('../../../../shared/schemas/auth')]).then(
+    ([{ zodResolver }, schemas]) => zodResolver(schemas.signInInputSchema),
+  ),
+);
 const fieldNames: Path<Input>[] = ['email', 'password'];
 
 /** On success the session is cached and the sign-in page redirects to `next`. */
@@ -24,7 +30,7 @@ export function SignInForm({ next }: { next: string | null }) {
     watch,
     formState: { errors, isSubmitting },
   } = useForm<Input, unknown, Output>({
-    resolver: zodResolver(signInInputSchema),
+    resolver,
     defaultValues: { email: '', password: '' },
   });
 
@@ -37,7 +43,12 @@ export function SignInForm({ next }: { next: string | null }) {
   });
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-4">
+    <form
+      onSubmit={submit}
+      onInputCapture={resolver.preload}
+      noValidate
+      className="flex flex-col gap-4"
+    >
       <FormField label="E-mail" error={errors.email?.message}>
         {(c) => (
           <TextInput

@@ -1,7 +1,8 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { Flag, Gauge, Truck, Wallet } from 'lucide-react';
-import { powerBasisLabels, type Build } from '../../../../shared/schemas/builds';
+import { powerBasisLabels } from '../../../../shared/builds/vocabulary';
+import type { Build } from '../../../../shared/schemas/builds';
 import { can } from '../../../../shared/permissions';
 import { formatIsoDate, formatMoney, formatNumber } from '../../../../shared/format';
 import { Section } from '../../../components/ui/card';

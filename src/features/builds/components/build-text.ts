@@ -1,4 +1,5 @@
-import { aspirationLabels, powerBasisLabels, type Build } from '../../../../shared/schemas/builds';
+import { aspirationLabels, powerBasisLabels } from '../../../../shared/builds/vocabulary';
+import type { Build } from '../../../../shared/schemas/builds';
 import { formatNumber } from '../../../../shared/format';
 
 /** "2019 one-ton crew cab", or the description alone when no year was given. */

@@ -1,22 +1,27 @@
 import { useState } from 'react';
 import { useForm, type Path } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { Send } from 'lucide-react';
 import { roleDescriptions, roleLabels, roles, type Role } from '../../../../shared/permissions';
-import {
-  createInvitationInputSchema,
-  invitationValidDays,
-} from '../../../../shared/schemas/invitations';
+import { invitationValidDays } from '../../../../shared/invitations/rules';
+import type { createInvitationInputSchema } from '../../../../shared/schemas/invitations';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
 import { FormError } from '../../../components/ui/form-error';
 import { applyServerErrors } from '../../../lib/form-errors';
+import { lazyResolver } from '../../../lib/lazy-resolver';
 import { useCreateInvitation } from '../api/create-invitation';
 
 type Input = z.input<typeof createInvitationInputSchema>;
 type Output = z.output<typeof createInvitationInputSchema>;
+// zod and the schema load when the form is first used, not with the page.
+const resolver = lazyResolver<Input, Output>(() =>
+  Promise.all([
+    import('@hookform/resolvers/zod'),
+    import('../../../../shared/schemas/invitations'),
+  ]).then(([{ zodResolver }, schemas]) => zodResolver(schemas.createInvitationInputSchema)),
+);
 const fieldNames: Path<Input>[] = ['email', 'role'];
 
 /**
@@ -35,7 +40,7 @@ export function InviteForm({ buildId }: { buildId: string }) {
     setError,
     formState: { errors, isSubmitting },
   } = useForm<Input, unknown, Output>({
-    resolver: zodResolver(createInvitationInputSchema),
+    resolver,
     defaultValues: { email: '', role: 'crew' },
   });
   const role = (watch('role') ?? 'crew') as Role;
@@ -55,6 +60,7 @@ export function InviteForm({ buildId }: { buildId: string }) {
 
   return (
     <form
+      onInputCapture={resolver.preload}
       onSubmit={submit}
       noValidate
       aria-label="Send an invitation"

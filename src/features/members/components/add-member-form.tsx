@@ -1,9 +1,8 @@
 import { useState } from 'react';
 import { useForm, type Path } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { UserPlus } from 'lucide-react';
-import { addMemberInputSchema } from '../../../../shared/schemas/builds';
+import type { addMemberInputSchema } from '../../../../shared/schemas/builds';
 import { roleDescriptions, roleLabels, roles, type Role } from '../../../../shared/permissions';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -11,10 +10,18 @@ import { FormField, SelectInput, TextInput } from '../../../components/ui/form-f
 import { FormError } from '../../../components/ui/form-error';
 import { isApiError } from '../../../lib/api-client';
 import { applyServerErrors } from '../../../lib/form-errors';
+import { lazyResolver } from '../../../lib/lazy-resolver';
 import { useAddMember } from '../api/add-member';
 
 type Input = z.input<typeof addMemberInputSchema>;
 type Output = z.output<typeof addMemberInputSchema>;
+// zod and the schema load when the form is first used, not with the page.
+const resolver = lazyResolver<Input, Output>(() =>
+  Promise.all([
+    import('@hookform/resolvers/zod'),
+    import('../../../../shared/schemas/builds'),
+  ]).then(([{ zodResolver }, schemas]) => zodResolver(schemas.addMemberInputSchema)),
+);
 const fieldNames: Path<Input>[] = ['email', 'role'];
 
 /** Owners add someone who already has a Headroom account, by e-mail, with a role. */
@@ -29,7 +36,7 @@ export function AddMemberForm({ buildId }: { buildId: string }) {
     setError,
     formState: { errors, isSubmitting },
   } = useForm<Input, unknown, Output>({
-    resolver: zodResolver(addMemberInputSchema),
+    resolver,
     defaultValues: { email: '', role: 'crew' },
   });
   const role = (watch('role') ?? 'crew') as Role;
@@ -55,6 +62,7 @@ export function AddMemberForm({ buildId }: { buildId: string }) {
 
   return (
     <form
+      onInputCapture={resolver.preload}
       onSubmit={submit}
       noValidate
       aria-labelledby="add-member-title"
