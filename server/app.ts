@@ -1,4 +1,5 @@
 import express from 'express';
+import compression from 'compression';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import fs from 'node:fs';
@@ -40,6 +41,8 @@ export function createApp(opts: {
   const app = express();
 
   app.disable('x-powered-by');
+  // gzip for the client's files and JSON (photo bytes are JPEG already and are skipped).
+  app.use(compression({ threshold: 1024 }));
   app.set('trust proxy', opts.config.trustProxy ? 1 : false);
   app.use(
     helmet({
