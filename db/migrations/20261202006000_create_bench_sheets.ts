@@ -60,10 +60,12 @@ export async function up(knex: Knex): Promise<void> {
     add constraint bench_test_points_unit check (unit in
       ('mm3-per-stroke','ml-per-1000-strokes','ml-per-min','bar','mpa','psi')),
     add constraint bench_test_points_tolerance check (
-      tolerance_type in ('percent','absolute') and tolerance_value > 0),
-    add constraint bench_test_points_non_negative check (
-      (nominal is null or nominal >= 0) and (return_limit is null or return_limit >= 0)
-      and (strokes_per_min is null or strokes_per_min > 0))`);
+      tolerance_type in ('percent','absolute') and tolerance_value > 0
+      and tolerance_value <= 1000000),
+    add constraint bench_test_points_figures check (
+      (nominal is null or nominal between 0 and 1000000)
+      and (return_limit is null or return_limit between 0 and 1000000)
+      and (strokes_per_min is null or (strokes_per_min > 0 and strokes_per_min <= 10000)))`);
   await knex.raw(
     `create unique index bench_test_points_label on bench_test_points (sheet_id, lower(label))`,
   );
@@ -77,7 +79,7 @@ export async function up(knex: Knex): Promise<void> {
   });
   await knex.raw(`alter table bench_values
     add constraint bench_values_position check (position between 1 and 16),
-    add constraint bench_values_non_negative check (value >= 0)`);
+    add constraint bench_values_range check (value >= 0 and value <= 1000000)`);
 
   // The shop's original sheet: one per sheet. Files live in the storage module
   // under original_key (and, for a photo, web_key and thumb_key).
