@@ -1,7 +1,11 @@
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
+import { seedDemo } from '../../db/seeds/demo';
+import * as benchService from '../../server/features/bench/bench.service';
+import { createLocalDiskStorage } from '../../server/lib/storage';
 import { BENCH_ORIGINAL_MAX_BYTES } from '../../shared/schemas/bench';
 import { useTestApp } from '../helpers/app';
 import { addMember, buildWithCast, moneyKeys, signUp, type TestUser } from '../helpers/factories';
@@ -714,5 +718,54 @@ describe('bench sheets: the owner hears when a shop adds or changes one', () => 
     expect((await app.mail.to(owner.email)).filter((m) => /removed/.test(m.subject ?? ''))).toEqual(
       [],
     );
+  });
+});
+
+// ---- demo data -------------------------------------------------------------------------
+
+describe('bench sheets: demo data', () => {
+  it('gives the demo injector set an "as received" sheet with one worn injector and an "after rebuild" sheet matched within 1 %', async () => {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-bench-seed-'));
+    const rollback = new Error('rollback');
+    try {
+      await app.db.knex
+        .transaction(async (trx) => {
+          const { buildId, userIds } = await seedDemo(trx, {
+            storage: createLocalDiskStorage(dir),
+          });
+          const owner = { userId: userIds.owner, role: 'owner' as const };
+          const shop = { userId: userIds.shop, role: 'shop' as const };
+          const sheets = await benchService.list(trx, buildId, shop, {});
+          expect(sheets.map((s) => s.occasion)).toEqual(['As received', 'After rebuild']);
+          expect(sheets.every((s) => s.partName.startsWith('Injectors, new nozzles'))).toBe(true);
+
+          const before = await benchService.get(trx, buildId, sheets[0].id, owner);
+          expect(before.result.findings[0]).toMatchObject({ kind: 'worn', positions: [3] });
+          const full = before.result.points.find((p) => p.kind === 'full-load')!;
+          expect(full.injectors[2].vsMean).toBe('low');
+          expect(before.sheet.original).toMatchObject({ format: 'png' });
+
+          const after = await benchService.get(trx, buildId, sheets[1].id, owner);
+          expect(after.result.status).toBe('in-tolerance');
+          const matched = after.result.points.find((p) => p.kind === 'full-load')!;
+          expect(matched.statistics.maxDeviationPct).toBeLessThanOrEqual(1);
+
+          const compared = await benchService.compare(trx, buildId, owner, {
+            before: sheets[0].id,
+            after: sheets[1].id,
+          });
+          expect(compared.recovery.recovered!.value).toBeGreaterThan(0);
+
+          const original = await trx('bench_sheet_originals').first();
+          for (const key of [original.original_key, original.web_key, original.thumb_key])
+            expect(fs.existsSync(path.join(dir, key))).toBe(true);
+          throw rollback;
+        })
+        .catch((err) => {
+          if (err !== rollback) throw err;
+        });
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
