@@ -81,10 +81,10 @@ function points(values: {
 }
 
 const asReceived = {
-  full: [92.4, 91.8, 86.1, 92.9, 91.5, 93.2, 92.0, 91.1],
-  part: [38.2, 37.9, 35.4, 38.6, 38.0, 38.4, 37.7, 38.1],
-  idle: [6.1, 6.3, 5.2, 6.0, 6.2, 5.9, 6.4, 6.1],
-  pilot: [1.6, 1.5, 1.2, 1.7, 1.6, 1.5, 1.6, 1.4],
+  full: [92.2, 91.9, 89.4, 92.3, 91.8, 92.1, 92.0, 91.7],
+  part: [38.2, 38.0, 37.6, 38.3, 38.1, 38.2, 37.9, 38.0],
+  idle: [6.1, 6.2, 5.9, 6.0, 6.2, 6.0, 6.3, 6.1],
+  pilot: [1.6, 1.5, 1.4, 1.6, 1.6, 1.5, 1.6, 1.5],
   back: [14.2, 15.1, 31.8, 13.9, 14.6, 15.4, 14.0, 14.8],
 };
 
@@ -119,8 +119,9 @@ function paperSheet(testedOn: string) {
       <rect width="1300" height="1000" fill="#f3efe4"/>
       <g font-family="DejaVu Sans Mono, Liberation Mono, monospace" fill="#23262b" font-size="34">
         <text x="90" y="110" font-size="46" font-weight="bold">RIDGEBACK FUEL LAB — FLOW TEST</text>
-        <text x="90" y="170">Set of 8, as received · ${testedOn} · ISO 4113 fluid, 40 °C</text>
-        <text x="90" y="225">mm³/stroke · return flow at full-load test</text>
+        <text x="90" y="170">Set of 8, as received · ${testedOn}</text>
+        <text x="90" y="220">ISO 4113 fluid at 40 °C · mm³/stroke</text>
+        <text x="90" y="270">Return flow measured during the full-load test</text>
         <line x1="80" y1="375" x2="1220" y2="375" stroke="#23262b" stroke-width="3"/>
         ${heads}${rows.join('')}
         <text x="90" y="960" font-size="30">Inj. 3: high leak-off — replace body. Signed: bench 2</text>
@@ -194,4 +195,6 @@ export async function seedBench(knex: Knex, { buildId, userIds, day }: Ids, stor
     thumbKey: `${prefix}/thumb.jpg`,
     uploadedBy: shop,
   });
+  const at = new Date(`${day(-18)}T16:40:00Z`);
+  await knex('bench_sheet_originals').where({ id }).update({ created_at: at, updated_at: at });
 }
