@@ -129,7 +129,7 @@ function BenchPage({ build }: { build: Build }) {
             canWrite={canWrite}
           />
         ))}
-        {rest.length > 0 && (
+        {canWrite && rest.length > 0 && (
           <Section
             id="other-parts"
             title={main.length ? 'Other fuel-injection parts' : 'Fuel-injection parts'}

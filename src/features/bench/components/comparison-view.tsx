@@ -154,21 +154,23 @@ export function ComparisonView({ answer }: { answer: BenchComparisonAnswer }) {
         )}
       </Section>
 
-      {comparison.points.map((p) => (
-        <Section
-          key={`${p.kind}-${p.label}`}
-          id={`compare-${p.kind}-${p.label.replace(/\W+/g, '-').toLowerCase()}`}
-          title={`${p.label} (${unitText(p.unit)})`}
-        >
-          {p.converted && (
-            <p className="mb-2 text-sm text-muted">
-              The after sheet recorded this point in another unit; its values are restated in{' '}
-              {unitText(p.unit)}.
-            </p>
-          )}
-          <PointTable point={p} />
-        </Section>
-      ))}
+      <div className="grid grid-cols-1 gap-5 lg:grid-cols-2">
+        {comparison.points.map((p) => (
+          <Section
+            key={`${p.kind}-${p.label}`}
+            id={`compare-${p.kind}-${p.label.replace(/\W+/g, '-').toLowerCase()}`}
+            title={`${p.label} (${unitText(p.unit)})`}
+          >
+            {p.converted && (
+              <p className="mb-2 text-sm text-muted">
+                The after sheet recorded this point in another unit; its values are restated in{' '}
+                {unitText(p.unit)}.
+              </p>
+            )}
+            <PointTable point={p} />
+          </Section>
+        ))}
+      </div>
 
       {(comparison.onlyBefore.length > 0 ||
         comparison.onlyAfter.length > 0 ||

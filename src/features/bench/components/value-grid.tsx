@@ -175,16 +175,21 @@ export function ValueGrid({
   }
 
   const positions = Array.from({ length: cylinders }, (_, i) => i);
+  // One unit for every column is said once, not squeezed under each heading.
+  const oneUnit = headings.length > 0 && headings.every((h) => h.unit === headings[0]!.unit);
   return (
     <div className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+      {oneUnit && (
+        <p className="mb-1 text-sm text-muted">All values in {unitText(headings[0]!.unit)}.</p>
+      )}
       <table
         ref={tableRef}
         onKeyDown={onKeyDown}
         onPaste={onPaste}
-        // Equal columns across the width, each at least 4rem: five points fit a phone's 390 px,
+        // Equal columns across the width, each at least 3.5rem: five points fit a phone's 390 px,
         // more scroll sideways.
         className="w-full table-fixed border-collapse"
-        style={{ minWidth: `${2.25 + cols * 4}rem` }}
+        style={{ minWidth: `${2.25 + cols * 3.5}rem` }}
         aria-label="Values by injector and test point"
       >
         <colgroup>
@@ -206,7 +211,11 @@ export function ValueGrid({
                 <span className="block text-sm leading-tight font-bold break-words">
                   {h.label || `Point ${col + 1}`}
                 </span>
-                <span className="block text-xs font-normal text-muted">{unitText(h.unit)}</span>
+                {!oneUnit && (
+                  <span className="block text-xs font-normal break-words text-muted">
+                    {unitText(h.unit).replace('/', '/\u200b')}
+                  </span>
+                )}
               </th>
             ))}
           </tr>
@@ -238,12 +247,12 @@ export function ValueGrid({
                       aria-describedby={described}
                       onFocus={(e) => e.target.select()}
                       className={cn(
-                        'block min-h-11 w-full rounded border bg-white px-1.5 text-right text-base tabular-nums',
+                        'block min-h-11 w-full rounded border px-1 text-right text-base tabular-nums',
                         message
-                          ? 'border-over ring-2 ring-over/40'
+                          ? 'border-over bg-white ring-2 ring-over/40'
                           : cellFlags.length
-                            ? 'border-over/70 bg-over-soft'
-                            : 'border-rule-strong',
+                            ? 'border-over/70 bg-over-soft text-[#7d1f17]'
+                            : 'border-rule-strong bg-white',
                       )}
                     />
                     {described && (
