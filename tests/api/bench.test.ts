@@ -756,7 +756,7 @@ describe('bench sheets: demo data', () => {
           });
           expect(compared.recovery.recovered!.value).toBeGreaterThan(0);
 
-          const original = await trx('bench_sheet_originals').first();
+          const original = await trx('bench_sheet_originals').where({ build_id: buildId }).first();
           for (const key of [original.original_key, original.web_key, original.thumb_key])
             expect(fs.existsSync(path.join(dir, key))).toBe(true);
           throw rollback;
