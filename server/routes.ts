@@ -6,6 +6,7 @@
 import type { Router } from 'express';
 import type { AppDeps } from './lib/deps';
 import { authRouter, meRouter } from './features/auth/auth.router';
+import { benchSheetsRouter } from './features/bench/bench.router';
 import { passwordResetRouter } from './features/auth/password-reset.router';
 import { budgetRouter } from './features/budget/budget.router';
 import { buildsRouter } from './features/builds/builds.router';
@@ -61,6 +62,7 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/fasteners`, router: fastenersRouter(deps) },
     { path: `${b}/retorque-checks`, router: retorqueRouter(deps) },
     { path: `${b}/photos`, router: photosRouter(deps) },
+    { path: `${b}/bench-sheets`, router: benchSheetsRouter(deps) },
   ];
 }
 

@@ -52,6 +52,11 @@ export const permissions = {
   'photos:upload': ['owner', 'crew', 'shop'],
   'photos:update': ['owner', 'crew', 'shop'],
   'photos:delete': ownerOnly,
+  // Bench results (injector flow sheets). A shop reads and writes only its own sheets of the
+  // parts sent to it, and crew never changes a shop's sheet: see canChangeBenchSheet.
+  'bench:read': everyone,
+  'bench:write': ['owner', 'crew', 'shop'],
+  'bench:delete': ['owner', 'shop'],
   // Invite by e-mail, list, resend and revoke invitations.
   'invitations:manage': ownerOnly,
   // Each member chooses, for themself only, which notices they receive.
@@ -62,4 +67,25 @@ export type Action = keyof typeof permissions;
 
 export function can(role: Role, action: Action): boolean {
   return (permissions[action] as readonly Role[]).includes(role);
+}
+
+/** Who entered a bench sheet: the shop member, or null when the owner or crew typed it in. */
+type BenchSheetAuthor = { shopUserId: string | null };
+
+/**
+ * Whether a member may edit a bench sheet (its values, its original): the owner any sheet;
+ * crew the sheets no shop entered (a shop's sheet is the shop's own statement of its work);
+ * a shop only the sheets it entered. The server also checks that a shop's part was sent to it.
+ */
+export function canChangeBenchSheet(role: Role, userId: string, sheet: BenchSheetAuthor): boolean {
+  if (!can(role, 'bench:write')) return false;
+  if (role === 'owner') return true;
+  if (role === 'shop') return sheet.shopUserId === userId;
+  return sheet.shopUserId === null;
+}
+
+/** Whether a member may delete a bench sheet or its original: the owner any, a shop its own. */
+export function canDeleteBenchSheet(role: Role, userId: string, sheet: BenchSheetAuthor): boolean {
+  if (!can(role, 'bench:delete')) return false;
+  return role === 'owner' || sheet.shopUserId === userId;
 }

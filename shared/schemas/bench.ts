@@ -595,3 +595,121 @@ export const benchCellErrorSchema = z.object({
   message: z.string(),
 });
 export type BenchCellError = z.infer<typeof benchCellErrorSchema>;
+
+// ---------------------------------------------------------------- the shop's original sheet
+
+/** Largest original sheet accepted: 20 MiB (a phone photo or a scanned PDF of a page or two). */
+export const BENCH_ORIGINAL_MAX_BYTES = 20 * 1024 * 1024;
+/** The multipart field an original sheet (and a CSV of values) travels in. */
+export const benchUploadField = 'file';
+/** For the file picker's accept attribute. */
+export const benchOriginalAccept =
+  'application/pdf,.pdf,image/jpeg,image/png,image/webp,image/heic,image/heif,.heic,.heif';
+
+/** What an original sheet is, by its content: a PDF, or a photo in one of these formats. */
+export const benchOriginalFormats = ['pdf', 'jpeg', 'png', 'webp', 'heif'] as const;
+export type BenchOriginalFormat = (typeof benchOriginalFormats)[number];
+
+/** The shop's original sheet as the API describes it. Every file is served as a download. */
+export type BenchOriginal = {
+  id: string;
+  /** The name it was uploaded under (its extension follows the content). */
+  fileName: string;
+  format: BenchOriginalFormat;
+  /** The stored original's type: application/pdf, image/jpeg, image/png or image/webp. */
+  contentType: string;
+  /** Bytes of the stored original. */
+  bytes: number;
+  /** Upright size in pixels; null for a PDF. */
+  width: number | null;
+  height: number | null;
+  /** The original as uploaded (a photo re-encoded without its metadata, at full size). */
+  url: string;
+  /** A JPEG copy for the page and a thumbnail; null for a PDF. */
+  webUrl: string | null;
+  thumbUrl: string | null;
+  uploadedBy: { id: string; name: string } | null;
+  createdAt: string;
+};
+
+// ---------------------------------------------------------------- API answers
+
+/** A stored sheet as the API returns it; `points[i].values` run from position 1 to the build's cylinders. */
+export type BenchSheet = {
+  id: string;
+  buildId: string;
+  partId: string;
+  partName: string;
+  occasion: string;
+  testedOn: string;
+  testedBy: string;
+  fluid: string;
+  fluidTemperature: FluidTemperature | null;
+  notes: string;
+  points: TestPoint[];
+  /** The shop member who entered it; null when the owner or crew typed it in. */
+  shopUserId: string | null;
+  enteredBy: { id: string; name: string } | null;
+  updatedBy: { id: string; name: string } | null;
+  original: BenchOriginal | null;
+  createdAt: string;
+  updatedAt: string;
+};
+
+/** A sheet in a list: what it is and how it came out, without its values. */
+export type BenchSheetSummary = Omit<BenchSheet, 'points' | 'notes'> & {
+  pointCount: number;
+  status: SheetStatus;
+  verdict: string;
+};
+
+/** GET, POST and PATCH of one sheet: the sheet, its judgement and what its imbalance costs. */
+export type BenchSheetAnswer = {
+  sheet: BenchSheet;
+  /** Positions judged: the build's cylinders (or more, if a value sits beyond them). */
+  cylinders: number;
+  result: BenchSheetResult;
+  imbalance: ImbalanceCost;
+  /** The build's target the imbalance is costed at. */
+  target: BenchPowerTarget;
+};
+
+/** GET …/bench-sheets/compare?before=&after=: two sheets of one part side by side. */
+export type BenchComparisonAnswer = {
+  before: BenchSheetSummary;
+  after: BenchSheetSummary;
+  cylinders: number;
+  comparison: BenchComparison;
+  recovery: ImbalanceRecovery;
+  target: BenchPowerTarget;
+};
+
+/** The query of the comparison route. */
+export const benchCompareQuerySchema = z
+  .object({
+    before: idSchema.optional(),
+    after: idSchema.optional(),
+  })
+  .strict()
+  .superRefine((q, ctx) => {
+    if (!q.before)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['before'],
+        message: 'Choose the sheet to compare from',
+      });
+    if (!q.after)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['after'],
+        message: 'Choose the sheet to compare with',
+      });
+    if (q.before && q.before === q.after)
+      ctx.addIssue({ code: 'custom', path: ['after'], message: 'Choose two different sheets' });
+  });
+
+/** The query of the list route. */
+export const benchListQuerySchema = z.object({ partId: idSchema.optional() }).strict();
+
+/** One CSV row that failed, as the import answers it: its row in the file and why, per column. */
+export type BenchImportRowError = { row: number; fields: Record<string, string> };

@@ -7,6 +7,7 @@ export const noticeKinds = [
   'part-back-from-shop',
   'step-signed-off',
   'torque-out-of-spec',
+  'bench-sheet-from-shop',
 ] as const;
 export type NoticeKind = (typeof noticeKinds)[number];
 
@@ -15,6 +16,7 @@ export const noticeKindLabels: Record<NoticeKind, string> = {
   'part-back-from-shop': 'Part back from a shop',
   'step-signed-off': 'Install step signed off',
   'torque-out-of-spec': 'Torque reading out of spec',
+  'bench-sheet-from-shop': 'Bench sheet from a shop',
 };
 
 export const noticeKindDescriptions: Record<NoticeKind, string> = {
@@ -22,6 +24,8 @@ export const noticeKindDescriptions: Record<NoticeKind, string> = {
   'part-back-from-shop': 'A part came back from a shop, or its back date was set',
   'step-signed-off': 'Someone signed off an install step',
   'torque-out-of-spec': 'A torque reading fell outside the spec’s tolerance',
+  'bench-sheet-from-shop':
+    'A shop added, changed or removed an injector bench sheet (sent to the owner only)',
 };
 
 /**
@@ -34,6 +38,8 @@ export const noticeAudience: Record<NoticeKind, readonly Role[]> = {
   'part-back-from-shop': ['owner', 'crew', 'viewer'],
   'step-signed-off': ['owner', 'crew', 'viewer'],
   'torque-out-of-spec': ['owner', 'crew', 'viewer'],
+  // The owner checks the shop's work; the shop that acted hears nothing of its own change.
+  'bench-sheet-from-shop': ['owner'],
 };
 
 const onOff = z.boolean({ message: 'Choose on or off' });
@@ -48,6 +54,7 @@ export const noticePreferencesInputSchema = z
     'part-back-from-shop': onOff.optional(),
     'step-signed-off': onOff.optional(),
     'torque-out-of-spec': onOff.optional(),
+    'bench-sheet-from-shop': onOff.optional(),
   } satisfies Record<NoticeKind, z.ZodType>)
   .strict();
 export type NoticePreferencesInput = z.infer<typeof noticePreferencesInputSchema>;

@@ -66,6 +66,18 @@ const StepRoute = lazy(() =>
 const PhotosRoute = lazy(() =>
   import('./routes/builds/photos').then((m) => ({ default: m.PhotosRoute })),
 );
+const BenchRoute = lazy(() =>
+  import('./routes/builds/bench').then((m) => ({ default: m.BenchRoute })),
+);
+const BenchSheetRoute = lazy(() =>
+  import('./routes/builds/bench-sheet').then((m) => ({ default: m.BenchSheetRoute })),
+);
+const BenchEntryRoute = lazy(() =>
+  import('./routes/builds/bench-entry').then((m) => ({ default: m.BenchEntryRoute })),
+);
+const BenchCompareRoute = lazy(() =>
+  import('./routes/builds/bench-compare').then((m) => ({ default: m.BenchCompareRoute })),
+);
 
 const router = createBrowserRouter([
   {
@@ -105,6 +117,11 @@ const router = createBrowserRouter([
                       { path: 'send-outs', element: <SendOutsRoute /> },
                       { path: 'estimate', element: <EstimateRoute /> },
                       { path: 'notices', element: <NoticesRoute /> },
+                      { path: 'bench', element: <BenchRoute /> },
+                      { path: 'bench/new', element: <BenchEntryRoute /> },
+                      { path: 'bench/compare', element: <BenchCompareRoute /> },
+                      { path: 'bench/sheets/:sheetId', element: <BenchSheetRoute /> },
+                      { path: 'bench/sheets/:sheetId/edit', element: <BenchEntryRoute /> },
                     ],
                   },
                 ],

@@ -50,6 +50,32 @@ export const paths = {
     },
     photos: section('photos'),
     notices: section('notices'),
+    bench: section('bench'),
+    benchNew: {
+      path: '/builds/:buildId/bench/new',
+      getHref: (buildId: string, partId?: string) =>
+        `/builds/${encodeURIComponent(buildId)}/bench/new${partId ? `?partId=${encodeURIComponent(partId)}` : ''}`,
+    },
+    benchSheet: {
+      path: '/builds/:buildId/bench/sheets/:sheetId',
+      getHref: (buildId: string, sheetId: string) =>
+        `/builds/${encodeURIComponent(buildId)}/bench/sheets/${encodeURIComponent(sheetId)}`,
+    },
+    benchEdit: {
+      path: '/builds/:buildId/bench/sheets/:sheetId/edit',
+      getHref: (buildId: string, sheetId: string) =>
+        `/builds/${encodeURIComponent(buildId)}/bench/sheets/${encodeURIComponent(sheetId)}/edit`,
+    },
+    benchCompare: {
+      path: '/builds/:buildId/bench/compare',
+      getHref: (buildId: string, before?: string, after?: string) => {
+        const q = new URLSearchParams();
+        if (before) q.set('before', before);
+        if (after) q.set('after', after);
+        const query = q.toString();
+        return `/builds/${encodeURIComponent(buildId)}/bench/compare${query ? `?${query}` : ''}`;
+      },
+    },
   },
 } as const;
 

@@ -206,6 +206,7 @@ describe('notice preferences', () => {
       'part-back-from-shop': true,
       'step-signed-off': false,
       'torque-out-of-spec': true,
+      'bench-sheet-from-shop': true,
     });
     expect((await crew.agent.get(url)).body.preferences['step-signed-off']).toBe(false);
     expect((await viewer.agent.get(url)).body.preferences['step-signed-off']).toBe(true);

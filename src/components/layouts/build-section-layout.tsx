@@ -2,6 +2,7 @@ import { NavLink, Outlet, useParams } from 'react-router-dom';
 import {
   Camera,
   ClipboardList,
+  Droplets,
   Gauge,
   LayoutDashboard,
   Package,
@@ -29,6 +30,7 @@ const tabs: Tab[] = [
   { label: 'Send-outs', href: paths.builds.sendOuts.getHref, icon: Truck },
   { label: 'Budget', href: paths.builds.budget.getHref, icon: PiggyBank, needs: 'budget:read' },
   { label: 'Power estimate', href: paths.builds.estimate.getHref, icon: Gauge },
+  { label: 'Bench', href: paths.builds.bench.getHref, icon: Droplets },
   { label: 'Install', href: paths.builds.install.getHref, icon: ClipboardList },
   { label: 'Photos', href: paths.builds.photos.getHref, icon: Camera },
 ];

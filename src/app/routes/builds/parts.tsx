@@ -26,6 +26,7 @@ import { PartsLedger } from '../../../features/parts/components/parts-ledger';
 import { statusChange } from '../../../features/parts/lib/status';
 import { useUser } from '../../../lib/auth';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
+import { PartBenchSheets } from '../../../features/bench/components/part-bench-sheets';
 import { BuildLoadError } from './build-states';
 
 type Editing = { mode: 'create' } | { mode: 'edit' | 'progress'; part: Part } | null;
@@ -268,6 +269,16 @@ function PartsPage({ build }: { build: Build }) {
                 can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id)
               }
               canDelete={can(role, 'photos:delete')}
+            />
+          </div>
+        )}
+        {editingPart?.category === 'fuel-injection' && (
+          <div className="mt-5">
+            <PartBenchSheets
+              buildId={build.id}
+              partId={editingPart.id}
+              partName={editingPart.name}
+              canAdd={can(role, 'bench:write')}
             />
           </div>
         )}
