@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { roles } from '../permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
 import { emailSchema } from './auth';
+import { timeZoneSchema } from './timeline';
 
 export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
 import { aspirations, powerBases } from '../builds/vocabulary';
@@ -55,6 +56,8 @@ export const buildFieldsSchema = z.object({
   targetEvent: trimmed(200, 'Event').optional(),
   budgetCents: centsSchema.optional(),
   currency: currencySchema.optional(),
+  /** The IANA zone the build's days are counted in; a new build takes the owner's browser's. */
+  timeZone: timeZoneSchema.optional(),
 });
 
 export const createBuildInputSchema = buildFieldsSchema.strict();
@@ -87,6 +90,8 @@ export type Build = {
   targetEvent: string;
   budgetCents?: number;
   currency: (typeof currencies)[number];
+  /** Null until chosen: the timeline counts in UTC meanwhile. */
+  timeZone: string | null;
   id: string;
   myRole: (typeof roles)[number];
   memberCount: number;
