@@ -1,4 +1,10 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { seedDemo } from '../../db/seeds/demo';
+import { getTimeline } from '../../server/features/timeline/timeline.service';
+import { createLocalDiskStorage } from '../../server/lib/storage';
 import { addDays, todayIn } from '../../shared/dates';
 import type { Timeline } from '../../shared/schemas/timeline';
 import { useTestApp } from '../helpers/app';
@@ -369,5 +375,47 @@ describe('/api/builds/:buildId/milestones', () => {
     );
     expect((await s.owner.agent.delete(`${url}/${s.ahead.id}`)).status).toBe(404);
     expect((await s.owner.agent.patch(`${url}/not-an-id`).send({ done: true })).status).toBe(404);
+  });
+});
+
+describe('demo data', () => {
+  it('gives the demo build a believable timeline with one real threat: the backordered intercooler', async () => {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-seed-'));
+    const rollback = new Error('rollback');
+    try {
+      await app.db.knex
+        .transaction(async (trx) => {
+          const { buildId, userIds } = await seedDemo(trx, {
+            storage: createLocalDiskStorage(dir),
+          });
+          const as = (role: 'owner' | 'shop') => ({
+            knex: trx,
+            buildId,
+            caller: { userId: userIds[role], role },
+          });
+          const t = await getTimeline(as('owner'));
+          expect(t.timeZone).toBe('America/Denver');
+          expect(t.settings).toEqual({ bufferDays: 7, stepsPerWeek: 3 });
+          expect(t.threats.map((x) => [x.rule, x.title, x.missesByDays])).toEqual([
+            ['part-late', 'Front-mount intercooler, bar-and-plate', 5],
+          ]);
+          expect(t.readiness.words).toBe('1 thing threatens the date');
+          const kinds = new Set(t.items.map((i) => i.kind));
+          expect([...kinds].sort()).toEqual(
+            ['job', 'milestone', 'part-expected', 'send-out-due', 'target'].sort(),
+          );
+          expect(t.milestones).toHaveLength(6);
+          // The shop's own view: its injectors due back, and the date; nothing threatened.
+          const shop = await getTimeline(as('shop'));
+          expect(shop.items.map((i) => i.kind).sort()).toEqual(['send-out-due', 'target']);
+          expect(shop.threats).toEqual([]);
+          throw rollback;
+        })
+        .catch((err) => {
+          if (err !== rollback) throw err;
+        });
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
