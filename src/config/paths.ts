@@ -39,6 +39,7 @@ export const paths = {
       getHref: (buildId: string) => `/builds/${encodeURIComponent(buildId)}/edit`,
     },
     parts: section('parts'),
+    timeline: section('timeline'),
     budget: section('budget'),
     sendOuts: section('send-outs'),
     estimate: section('estimate'),

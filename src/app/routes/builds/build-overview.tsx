@@ -13,6 +13,7 @@ import { DeleteBuild } from '../../../features/builds/components/delete-build';
 import { RoleBadge } from '../../../components/ui/role-badge';
 import { MembersPanel } from '../../../features/members/components/members-panel';
 import { InvitationsPanel } from '../../../features/invitations/components/invitations-panel';
+import { TimelineSummary } from '../../../features/timeline/components/timeline-summary';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { ButtonLink } from '../../../components/ui/button';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -63,7 +64,10 @@ export function BuildOverviewRoute() {
         }
       />
       <div className="grid gap-5 lg:grid-cols-2">
-        <TargetSection build={b} />
+        <div className="flex flex-col gap-5">
+          <TargetSection build={b} />
+          <TimelineSummary buildId={b.id} />
+        </div>
         <div className="flex flex-col gap-5">
           <TruckSection build={b} />
           <BudgetSection build={b} />

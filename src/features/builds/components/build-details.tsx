@@ -94,7 +94,7 @@ export function TargetSection({ build }: { build: Build }) {
           {build.targetDate ? (
             <span className="flex flex-wrap items-center gap-2">
               <time dateTime={build.targetDate}>{formatIsoDate(build.targetDate)}</time>
-              <Countdown date={build.targetDate} />
+              <Countdown date={build.targetDate} timeZone={build.timeZone} />
             </span>
           ) : (
             <span className="text-muted">No date set</span>
