@@ -29,6 +29,14 @@ export function formatHeadroom(pct: number): string {
   return `${pct < 0 ? '−' : '+'}${n} %`;
 }
 
+/**
+ * How far a part is past its rating, on the one basis headroom uses (the requirement):
+ * "50 crank hp (−6.7 % headroom)". shortfall.pct is −headroom %, so the two never disagree.
+ */
+export function formatShortfall(shortfall: { value: number; unit: string; pct: number }): string {
+  return `${formatFigure(shortfall.value, shortfall.unit)} (${formatHeadroom(-shortfall.pct)} headroom)`;
+}
+
 /** How the headline names a part's category ("the bottom end gives out first"). */
 const categoryPhrases: Record<PartCategory, string | null> = {
   'fuel-injection': 'the injectors',
