@@ -22,7 +22,8 @@ import type { Logger } from '../../lib/logger';
 import type { Caller } from '../../lib/scope';
 import type { Storage } from '../../lib/storage';
 import * as files from '../files';
-import { parseCsv, partsToCsv } from './parts.csv';
+import { csvFileName, parseCsv, partsToCsv } from './parts.csv';
+import * as builds from '../builds';
 import { notifyPartProgress } from './parts.notices';
 import * as repo from './parts.repository';
 
@@ -133,13 +134,18 @@ export async function listAll(knex: Knex, buildId: string) {
   return repo.listParts(knex, buildId);
 }
 
+/** The ledger as a CSV file, named after the build and the day. */
 export async function exportCsv(knex: Knex, buildId: string, caller: Caller) {
-  const parts = await repo.listParts(knex, buildId, scope(caller));
-  const shops = await repo.shopMembers(knex, buildId);
-  return partsToCsv(parts, {
+  const [build, parts, shops] = await Promise.all([
+    builds.get(knex, buildId, caller.userId),
+    repo.listParts(knex, buildId, scope(caller)),
+    repo.shopMembers(knex, buildId),
+  ]);
+  const csv = partsToCsv(parts, {
     withMoney: can(caller.role, 'money:read'),
     shopEmails: new Map(shops.map((s) => [s.user_id, s.email])),
   });
+  return { fileName: csvFileName(build.name, today()), csv };
 }
 
 export type ImportRowReport = { row: number; fields: Record<string, string> };
@@ -167,9 +173,10 @@ export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dry
   const failures: ImportRowReport[] = [];
   for (const r of parsed.rows) {
     const result = createPartInputSchema.safeParse(r.input);
+    // The CSV reader's own message (it echoes the cell) wins over the schema's general one.
     const fields = {
-      ...r.fields,
       ...(result.success ? partConsistencyIssues(result.data) : fieldsFromZod(result.error)),
+      ...r.fields,
     };
     if (Object.keys(fields).length) failures.push({ row: r.row, fields });
     else if (result.success) valid.push(result.data);
@@ -178,7 +185,9 @@ export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dry
     const err = new AppError(
       400,
       'invalid_rows',
-      `${failures.length} of ${parsed.rows.length} rows need fixing; nothing was saved`,
+      `${failures.length} ${failures.length === 1 ? 'row' : 'rows'} of ${parsed.rows.length} ${
+        failures.length === 1 ? 'needs' : 'need'
+      } fixing; nothing was saved`,
     );
     Object.assign(err, { rows: failures });
     throw err;
