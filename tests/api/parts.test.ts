@@ -5,7 +5,7 @@ import { buildWithCast, moneyKeys, signUp } from '../helpers/factories';
 
 const app = useTestApp();
 
-/** Today as the server sees it: the UTC calendar day. */
+/** Today as the server dates a stamp: the UTC calendar day. */
 const utcToday = () => new Date().toISOString().slice(0, 10);
 
 /** A response body as raw bytes, to see exactly what a spreadsheet program would read. */
@@ -180,6 +180,53 @@ describe('parts: who may change what', () => {
     // Sent 2026-01-05 with 10 days' turnaround: due 2026-01-15, long past.
     expect(res.body.part.sendOut).toMatchObject({ dueOn: '2026-01-15', overdue: true });
     expect(res.body.part.sendOut.daysOut).toBeGreaterThan(300);
+  });
+});
+
+describe('parts: a status change stamps its date, whoever makes it (issue #14)', () => {
+  it('dates a status changed through the API: received, back from the shop, ordered on create', async () => {
+    const { owner, crew, shop, url, parts } = await castWithParts();
+    const day = utcToday();
+    // The injectors were ordered; crew marks them in the garage without a date.
+    const received = await crew.agent.patch(`${url}/${parts[0].id}`).send({ status: 'in-hand' });
+    expect(received.status).toBe(200);
+    expect(received.body.part).toMatchObject({ status: 'in-hand', receivedOn: day });
+    // The shop hands back what it had: received and back on the same day.
+    const back = await shop.agent.patch(`${url}/${parts[1].id}`).send({ status: 'in-hand' });
+    expect(back.status).toBe(200);
+    expect(back.body.part).toMatchObject({ backOn: day, receivedOn: day });
+    // A part created as ordered is ordered today; a date given is kept.
+    const created = await owner.agent
+      .post(url)
+      .send({ category: 'exhaust', name: 'Down-pipe', status: 'ordered' });
+    expect(created.body.part.orderedOn).toBe(day);
+    const given = await owner.agent
+      .patch(`${url}/${parts[2].id}`)
+      .send({ status: 'ordered', orderedOn: '2026-01-02' });
+    expect(given.body.part.orderedOn).toBe('2026-01-02');
+  });
+
+  it('changes the status without a date rather than refuse, when today would be out of order', async () => {
+    const { owner, url, parts } = await castWithParts();
+    await owner.agent
+      .patch(`${url}/${parts[2].id}`)
+      .send({ status: 'ordered', orderedOn: '2099-01-01' });
+    const res = await owner.agent.patch(`${url}/${parts[2].id}`).send({ status: 'in-hand' });
+    expect(res.status).toBe(200);
+    expect(res.body.part).toMatchObject({ status: 'in-hand', receivedOn: null });
+  });
+
+  it('dates the parts a CSV import adds with a status', async () => {
+    const { owner, url } = await castWithParts();
+    const csv =
+      'category,name,status,installedOn\nexhaust,Down-pipe,ordered,\ncooling,Radiator,installed,2026-03-04\n';
+    const res = await owner.agent.post(`${url}/import`).attach('file', Buffer.from(csv), 'p.csv');
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const list = (await owner.agent.get(url)).body.parts;
+    expect(list.find((p: { name: string }) => p.name === 'Down-pipe').orderedOn).toBe(utcToday());
+    expect(list.find((p: { name: string }) => p.name === 'Radiator').installedOn).toBe(
+      '2026-03-04',
+    );
   });
 });
 

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { can } from '../../../shared/permissions';
 import { partTotalCents } from '../../../shared/ledger/cost';
 import { sendOutStatus } from '../../../shared/ledger/send-out';
+import { stampStatusDates } from '../../../shared/ledger/status-dates';
 import { idSchema } from '../../../shared/schemas/common';
 import {
   createPartInputSchema,
@@ -82,7 +83,8 @@ function checkConsistency(merged: Partial<CreatePartInput>) {
     throw new ValidationError('Some fields contradict each other', issues);
 }
 
-export async function create(knex: Knex, buildId: string, input: CreatePartInput) {
+export async function create(knex: Knex, buildId: string, rawInput: CreatePartInput) {
+  const input = stampStatusDates(null, rawInput, today());
   checkConsistency(input);
   await checkShop(knex, buildId, input.shopUserId);
   const [id] = await repo.insertParts(knex, buildId, [input]);
@@ -94,18 +96,21 @@ export async function update(
   buildId: string,
   rawPartId: string,
   caller: Caller,
-  input: UpdatePartInput,
+  rawInput: UpdatePartInput,
 ) {
   const existing = await getVisible(knex, buildId, rawPartId, caller);
   if (caller.role !== 'owner') {
     const allowed: readonly string[] = partProgressFields;
-    const refused = Object.keys(input).filter((k) => !allowed.includes(k));
+    const refused = Object.keys(rawInput).filter((k) => !allowed.includes(k));
     if (refused.length) {
       throw new ForbiddenError(
         `Your role may change only a part's status and dates (not ${refused.join(', ')})`,
       );
     }
   }
+  // A status change stamps its date here too, so API and CSV changes are dated like the
+  // ledger's own (the stamps are dates: crew and shops may set them).
+  const input = stampStatusDates(existing, rawInput, today());
   checkConsistency({ ...existing, ...input });
   await checkShop(knex, buildId, input.shopUserId);
   // The change and its notices (part received, back from a shop) commit together.
@@ -171,6 +176,7 @@ export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dry
 
   const valid: CreatePartInput[] = [];
   const failures: ImportRowReport[] = [];
+  const now = today();
   for (const r of parsed.rows) {
     const result = createPartInputSchema.safeParse(r.input);
     // The CSV reader's own message (it echoes the cell) wins over the schema's general one.
@@ -179,7 +185,7 @@ export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dry
       ...r.fields,
     };
     if (Object.keys(fields).length) failures.push({ row: r.row, fields });
-    else if (result.success) valid.push(result.data);
+    else if (result.success) valid.push(stampStatusDates(null, result.data, now));
   }
   if (failures.length) {
     const err = new AppError(

@@ -23,7 +23,8 @@ import { Modal } from '../../../components/ui/modal';
 import { PartForm } from '../../../features/parts/components/part-form';
 import type { LedgerActions } from '../../../features/parts/components/parts-columns';
 import { PartsLedger } from '../../../features/parts/components/parts-ledger';
-import { statusChange } from '../../../features/parts/lib/status';
+import { statusChange, todayIso } from '../../../features/parts/lib/status';
+import { stampStatusDates } from '../../../../shared/ledger/status-dates';
 import { useUser } from '../../../lib/auth';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { BuildLoadError } from './build-states';
@@ -100,8 +101,14 @@ function PartsPage({ build }: { build: Build }) {
     [build.currency, canUpdate, canDelete, onStatusChange, onEdit, onDelete],
   );
 
-  async function save(input: UpdatePartInput) {
+  async function save(typed: UpdatePartInput) {
     if (!editing) return;
+    // The form's status change is dated like a row's: the browser's own day, by the shared rule.
+    const input = stampStatusDates(
+      editing.mode === 'create' ? null : editing.part,
+      typed,
+      todayIso(),
+    );
     if (editing.mode === 'create') {
       const part = await createPart.mutateAsync({
         buildId: build.id,
