@@ -36,6 +36,7 @@ import {
   saveGrouped,
 } from '../lib/column-prefs';
 import { useMediaQuery } from '../lib/use-media-query';
+import { pageRows } from '../lib/page-rows';
 import { ColumnChooser } from './column-chooser';
 import { PartCard } from './part-card';
 import {
@@ -164,9 +165,12 @@ export function PartsLedger({
   const filteredRows = table.getFilteredRowModel().rows;
   const allRows = table.getRowModel().rows;
   // The browser lays out only what is listed: a few hundred rows of form controls cost far
-  // more to lay out and paint than to sort, so the list grows on request.
-  const rows = allRows.length > limit ? allRows.slice(0, limit) : allRows;
-  const leavesListed = rows.reduce((n, r) => (r.getIsGrouped() ? n : n + 1), 0);
+  // more to lay out and paint than to sort, so the list grows on request, by parts (category
+  // headers are not counted, and never listed without a part of theirs).
+  const page = pageRows(allRows, limit, (r) => r.getIsGrouped());
+  const rows = page.rows;
+  const hiddenParts = page.listable - page.listed;
+  const inClosedCategories = filteredRows.length - page.listable;
   const visibleKey = table
     .getVisibleLeafColumns()
     .map((c) => c.id)
@@ -330,6 +334,7 @@ export function PartsLedger({
                       money={money}
                       currency={actions.currency}
                       isExpanded={row.getIsExpanded()}
+                      listed={page.cut?.header === row ? page.cut.listed : undefined}
                     />
                   ) : (
                     <LeafRow key={row.id} row={row} visibleKey={visibleKey} />
@@ -348,6 +353,7 @@ export function PartsLedger({
                   money={money}
                   currency={actions.currency}
                   isExpanded={row.getIsExpanded()}
+                  listed={page.cut?.header === row ? page.cut.listed : undefined}
                 />
               ) : (
                 <PartCard key={row.id} part={row.original} money={money} />
@@ -356,15 +362,16 @@ export function PartsLedger({
           </ul>
         )}
 
-        {allRows.length > rows.length && (
+        {hiddenParts > 0 && (
           <div className="flex flex-col items-center gap-2 rounded-lg border border-dashed border-rule-strong px-4 py-4 text-center sm:flex-row sm:justify-between sm:text-left">
-            <p className="text-ink-2">
-              Listing {leavesListed} of {filteredRows.length} parts. Search or filter to find one
-              quickly.
+            <p className="text-ink-2" data-testid="ledger-listing">
+              Listing {page.listed} of {filteredRows.length} parts
+              {inClosedCategories > 0 ? ` (${inClosedCategories} in closed categories)` : ''}.
+              Search or filter to find one quickly.
             </p>
             <div className="flex flex-wrap justify-center gap-2">
               <Button variant="secondary" onClick={() => setLimit((l) => l + rowsPerStep)}>
-                Show {Math.min(rowsPerStep, allRows.length - rows.length)} more
+                Show {Math.min(rowsPerStep, hiddenParts)} more
               </Button>
               <Button variant="ghost" onClick={() => setLimit(Number.POSITIVE_INFINITY)}>
                 Show all
@@ -419,7 +426,16 @@ function groupLabel(row: PartRow): string {
   return partCategoryLabels[row.groupingValue as PartCategory] ?? String(row.groupingValue);
 }
 
-function ToggleGroup({ row, isExpanded }: { row: PartRow; isExpanded: boolean }) {
+function ToggleGroup({
+  row,
+  isExpanded,
+  listed,
+}: {
+  row: PartRow;
+  isExpanded: boolean;
+  /** Set when the list stops inside this category: how many of its parts are listed. */
+  listed?: number;
+}) {
   const label = groupLabel(row);
   const count = row.subRows.length;
   return (
@@ -437,6 +453,7 @@ function ToggleGroup({ row, isExpanded }: { row: PartRow; isExpanded: boolean })
       <span>{label}</span>
       <span className="font-normal text-muted">
         {count} {count === 1 ? 'part' : 'parts'}
+        {listed !== undefined && `, ${listed} listed`}
       </span>
     </button>
   );
@@ -448,12 +465,14 @@ const GroupRow = memo(function GroupRow({
   money,
   currency,
   isExpanded,
+  listed,
 }: {
   row: PartRow;
   visibleKey: string;
   money: MoneyView;
   currency: string;
   isExpanded: boolean;
+  listed?: number;
 }) {
   const cells = row.getVisibleCells();
   const totalIndex = cells.findIndex((c) => c.column.id === 'totalCents');
@@ -466,7 +485,7 @@ const GroupRow = memo(function GroupRow({
         <>
           <th scope="rowgroup" colSpan={totalIndex} className="px-3 py-0 text-left">
             <span className="sticky left-3 inline-block">
-              <ToggleGroup row={row} isExpanded={isExpanded} />
+              <ToggleGroup row={row} isExpanded={isExpanded} listed={listed} />
             </span>
           </th>
           <td className="px-3 py-1 text-right font-bold whitespace-nowrap tabular-nums">
@@ -478,7 +497,7 @@ const GroupRow = memo(function GroupRow({
       ) : (
         <th scope="rowgroup" colSpan={cells.length} className="px-3 py-0 text-left">
           <span className="sticky left-3 inline-flex flex-wrap items-center gap-x-4">
-            <ToggleGroup row={row} isExpanded={isExpanded} />
+            <ToggleGroup row={row} isExpanded={isExpanded} listed={listed} />
             {subtotal && (
               <span className="font-bold tabular-nums">
                 <span className="font-normal text-muted">Subtotal </span>
@@ -498,16 +517,18 @@ function GroupHeading({
   money,
   currency,
   isExpanded,
+  listed,
 }: {
   row: PartRow;
   money: MoneyView;
   currency: string;
   isExpanded: boolean;
+  listed?: number;
 }) {
   return (
     <li className="mt-2 flex flex-wrap items-center justify-between gap-x-3 border-b-2 border-rule-strong first:mt-0">
       <h3 className="m-0 text-base">
-        <ToggleGroup row={row} isExpanded={isExpanded} />
+        <ToggleGroup row={row} isExpanded={isExpanded} listed={listed} />
       </h3>
       {money === 'full' && (
         <p className="font-bold tabular-nums">
