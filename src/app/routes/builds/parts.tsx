@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { Download, FileUp, Package, Plus } from 'lucide-react';
 import { can } from '../../../../shared/permissions';
@@ -29,7 +29,8 @@ import { useUser } from '../../../lib/auth';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { BuildLoadError } from './build-states';
 
-type Editing = { mode: 'create' } | { mode: 'edit' | 'progress'; part: Part } | null;
+type Editing =
+  { mode: 'create' } | { mode: 'edit' | 'progress'; part: Part; focusRating?: boolean } | null;
 
 /** "/builds/:buildId/parts" — the ledger of every part of the build. */
 export function PartsRoute() {
@@ -61,6 +62,19 @@ function PartsPage({ build }: { build: Build }) {
   const [deleting, setDeleting] = useState<Part | null>(null);
   const [importing, setImporting] = useState(false);
   const [notice, setNotice] = useState<string | null>(null);
+
+  // "?part=<id>", a link from the estimate: the owner gets that part's form at its rating;
+  // everyone else sees its row picked out in the ledger. Once per link, not on every refetch.
+  const linkedPartId = searchParams.get('part');
+  const [linkHandled, setLinkHandled] = useState<string | null>(null);
+  const [missingPart, setMissingPart] = useState(false);
+  useEffect(() => {
+    if (!linkedPartId || linkHandled === linkedPartId || !parts.data) return;
+    setLinkHandled(linkedPartId);
+    const part = parts.data.find((p) => p.id === linkedPartId);
+    setMissingPart(!part);
+    if (part && isOwner) setEditing({ mode: 'edit', part, focusRating: true });
+  }, [linkedPartId, linkHandled, parts.data, isOwner]);
 
   const shops = useMemo(
     () =>
@@ -195,6 +209,7 @@ function PartsPage({ build }: { build: Build }) {
         actions={actions}
         moneyFallback={isOwner ? 'full' : 'none'}
         initialSearch={searchParams.get('q') ?? ''}
+        focusPartId={missingPart ? null : linkedPartId}
         toolbarActions={
           <>
             {exportLink}
@@ -232,6 +247,11 @@ function PartsPage({ build }: { build: Build }) {
           {notice}
         </Alert>
       )}
+      {missingPart && (
+        <Alert tone="info" className="mb-4">
+          The part that link points to is not in this ledger: it may have been deleted.
+        </Alert>
+      )}
 
       {body}
 
@@ -260,6 +280,7 @@ function PartsPage({ build }: { build: Build }) {
             currency={build.currency}
             shops={shops}
             submitLabel={editing.mode === 'create' ? 'Add part' : 'Save changes'}
+            focusRating={editing.mode === 'edit' && editing.focusRating}
             onSubmit={save}
             onCancel={() => setEditing(null)}
           />

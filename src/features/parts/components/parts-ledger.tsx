@@ -37,6 +37,7 @@ import {
 } from '../lib/column-prefs';
 import { useMediaQuery } from '../lib/use-media-query';
 import { pageRows } from '../lib/page-rows';
+import { partElementId } from '../lib/part-element-id';
 import { ColumnChooser } from './column-chooser';
 import { PartCard } from './part-card';
 import {
@@ -85,6 +86,8 @@ export type PartsLedgerProps = {
   toolbarActions?: ReactNode;
   /** Force a layout (the benchmark); by default a table from 768 px, cards below. */
   layout?: 'auto' | 'table' | 'cards';
+  /** A part to pick out (a link from the estimate): listed, its category open, scrolled to. */
+  focusPartId?: string | null;
 };
 
 /**
@@ -99,6 +102,7 @@ export function PartsLedger({
   initialSearch = '',
   toolbarActions,
   layout = 'auto',
+  focusPartId = null,
 }: PartsLedgerProps) {
   const wideScreen = useMediaQuery('(min-width: 768px)');
   const wide = layout === 'auto' ? wideScreen : layout === 'table';
@@ -171,6 +175,33 @@ export function PartsLedger({
   const rows = page.rows;
   const hiddenParts = page.listable - page.listed;
   const inClosedCategories = filteredRows.length - page.listable;
+
+  // A part picked out by a link: make sure it is listed (its category open, the list long
+  // enough), then bring it into view once it is on screen.
+  const [focusHandled, setFocusHandled] = useState<string | null>(null);
+  useEffect(() => {
+    if (!focusPartId || focusHandled === focusPartId) return;
+    const row = table.getRowModel().flatRows.find((r) => r.id === focusPartId);
+    const parent = row?.getParentRow();
+    if (parent && !parent.getIsExpanded()) {
+      parent.toggleExpanded(true);
+      return;
+    }
+    const position = table
+      .getRowModel()
+      .rows.filter((r) => !r.getIsGrouped())
+      .findIndex((r) => r.id === focusPartId);
+    if (position >= limit) {
+      setLimit(Math.ceil((position + 1) / rowsPerStep) * rowsPerStep);
+      return;
+    }
+    const element = document.getElementById(partElementId(focusPartId));
+    if (element) {
+      element.scrollIntoView({ block: 'center' });
+      element.focus({ preventScroll: true });
+    }
+    setFocusHandled(focusPartId);
+  }, [focusPartId, focusHandled, limit, table, allRows]);
   const visibleKey = table
     .getVisibleLeafColumns()
     .map((c) => c.id)
@@ -337,7 +368,12 @@ export function PartsLedger({
                       listed={page.cut?.header === row ? page.cut.listed : undefined}
                     />
                   ) : (
-                    <LeafRow key={row.id} row={row} visibleKey={visibleKey} />
+                    <LeafRow
+                      key={row.id}
+                      row={row}
+                      visibleKey={visibleKey}
+                      picked={row.id === focusPartId}
+                    />
                   ),
                 )}
               </tbody>
@@ -356,7 +392,12 @@ export function PartsLedger({
                   listed={page.cut?.header === row ? page.cut.listed : undefined}
                 />
               ) : (
-                <PartCard key={row.id} part={row.original} money={money} />
+                <PartCard
+                  key={row.id}
+                  part={row.original}
+                  money={money}
+                  picked={row.id === focusPartId}
+                />
               ),
             )}
           </ul>
@@ -385,12 +426,23 @@ export function PartsLedger({
 }
 
 /** One part as a table row. Memoised on the row object and the set of visible columns. */
-const LeafRow = memo(function LeafRow({ row }: { row: PartRow; visibleKey: string }) {
+const LeafRow = memo(function LeafRow({
+  row,
+  picked,
+}: {
+  row: PartRow;
+  visibleKey: string;
+  picked: boolean;
+}) {
   return (
     <tr
+      id={partElementId(row.id)}
+      tabIndex={picked ? -1 : undefined}
+      aria-current={picked ? 'true' : undefined}
       className={cn(
         'group border-b border-rule last:border-b-0 hover:bg-paper/60',
         row.original.status === 'returned' && 'text-muted',
+        picked && 'bg-accent-50 outline-2 -outline-offset-2 outline-accent-600',
       )}
     >
       {row.getVisibleCells().map((cell) => {
