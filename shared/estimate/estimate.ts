@@ -600,9 +600,9 @@ export function estimate(input: EstimateInput, options: EstimateOptions = {}): E
         status: weakest.status,
         message: `Weakest link: ${weakest.name}, rated ${formatForMessage(weakest.capacity.value)} ${unitText(
           weakest.capacity.unit,
-        )} against ${formatForMessage(weakest.requirement.value)} ${unitText(weakest.requirement.unit)} needed (${
-          weakest.headroomPct.value >= 0 ? '+' : ''
-        }${formatForMessage(weakest.headroomPct.value)} % headroom); it supports about ${formatForMessage(
+        )} against ${formatForMessage(weakest.requirement.value)} ${unitText(weakest.requirement.unit)} needed (${formatHeadroomForMessage(
+          weakest.headroomPct.value,
+        )} headroom); it supports about ${formatForMessage(
           weakest.supportedCrankPower.value,
         )} crank hp${scaledNote(weakest)}.`,
       }
@@ -707,7 +707,7 @@ export function estimate(input: EstimateInput, options: EstimateOptions = {}): E
       severity: 'warning',
       componentId: r.id,
       category: r.category,
-      message: `Tight: ${r.name} has ${formatForMessage(r.headroomPct.value)} % headroom, less than the ${formatForMessage(
+      message: `Tight: ${r.name} has ${formatHeadroomForMessage(r.headroomPct.value)} headroom, less than the ${formatPctForMessage(
         a.tightMarginPct,
       )} % margin (rated ${formatForMessage(r.capacity.value)} ${unitText(r.capacity.unit)}, needs ${formatForMessage(
         r.requirement.value,
@@ -780,9 +780,14 @@ export function estimate(input: EstimateInput, options: EstimateOptions = {}): E
   return result;
 }
 
-/** "+3.9 %", "−6.67 %": a headroom with its sign, for a sentence. */
+/** A percentage for a sentence, to one decimal as the pages show it: 3.9, 12.5. */
+function formatPctForMessage(pct: number): string {
+  return String(Number(pct.toFixed(1)));
+}
+
+/** "+3.9 %", "−6.7 %": a headroom with its sign, for a sentence. */
 function formatHeadroomForMessage(pct: number): string {
-  return `${pct < 0 ? '−' : '+'}${formatForMessage(Math.abs(pct))} %`;
+  return `${pct < 0 ? '−' : '+'}${formatPctForMessage(Math.abs(pct))} %`;
 }
 
 /**

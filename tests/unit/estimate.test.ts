@@ -421,11 +421,12 @@ describe('warnings, one scenario each', () => {
     }
     const be = r.warnings.find((x) => x.componentId === 'be')!;
     expectRel(be.shortfall!.pct, (50 / 700) * 100, 1e-12);
-    expect(be.message).toContain('50 crank hp past its rating (−7.14 % headroom)');
+    expect(be.message).toContain('50 crank hp past its rating (−7.1 % headroom)');
     const trans = r.warnings.find((x) => x.componentId === 'trans')!;
     expectRel(trans.shortfall!.pct, (100 / 700) * 100, 1e-12);
-    expect(trans.message).toContain('100 crank hp more (−14.29 % headroom)');
-    expect(r.weakestLink!.message).toContain('(-14.29 % headroom)');
+    expect(trans.message).toContain('100 crank hp more (−14.3 % headroom)');
+    // Percentages in sentences to one decimal, as the pages show them.
+    expect(r.weakestLink!.message).toContain('(−14.3 % headroom)');
   });
 
   it('target-exceeds-bottom-end also for a torque-rated bottom end', () => {
@@ -466,7 +467,9 @@ describe('warnings, one scenario each', () => {
     });
     expect(codes(r)).toEqual(['part-tight']);
     expect(r.warnings[0]).toMatchObject({ componentId: 'tc', severity: 'warning' });
-    expect(r.warnings[0].message).toMatch(/^Tight: tc has 5 % headroom, less than the 10 % margin/);
+    expect(r.warnings[0].message).toMatch(
+      /^Tight: tc has \+5 % headroom, less than the 10 % margin/,
+    );
   });
 
   it('no-bottom-end-rating: nothing rated in the bottom end', () => {

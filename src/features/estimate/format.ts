@@ -4,6 +4,8 @@ import { formatNumber } from '../../../shared/format';
 
 /** Decimals worth showing for a figure in a unit (ratios and densities need more). */
 function digitsFor(unit: string, value: number): number {
+  // Percentages to one decimal everywhere (cards, chart, working), so they never disagree.
+  if (unit === '%') return 1;
   if (unit === 'lambda') return 2;
   if (unit === 'kg-per-l' || unit === 'lb-per-hp-h') return 3;
   return Math.abs(value) < 10 ? 2 : 1;
