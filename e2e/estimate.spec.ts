@@ -254,7 +254,7 @@ test('links from the estimate open the part: the owner at its rating, crew at it
   const trans = rated.getByRole('listitem').filter({ hasText: 'Built transmission' }).first();
   await expect(trans).toContainText('if the whole torque curve scales');
   await expect(trans.getByTestId('note-torque-curve-scaled')).toContainText(
-    'The torque target, 1600 lbf·ft, is above the 1400.6 lbf·ft',
+    'The torque target, 1,600 lbf·ft, is above the 1,400.6 lbf·ft',
   );
   const pump = rated.getByRole('listitem').filter({ hasText: 'Lift pump' }).first();
   await expect(pump.getByTestId('note-return-flow-not-counted')).toContainText(

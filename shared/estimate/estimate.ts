@@ -197,11 +197,18 @@ function fromFigure(f: Figure, ref: string): WorkingInput {
   return { name: f.label, value: f.value, unit: f.unit, from: 'figure', ref };
 }
 
-/** Rounds for a sentence: 731.7, 12.35, 0.345. Figures themselves are never rounded. */
+const messageFormats = [1, 2, 3].map(
+  (digits) => new Intl.NumberFormat('en-US', { maximumFractionDigits: digits }),
+);
+
+/**
+ * Rounds for a sentence, digits grouped as on the pages (US English): 1,400.6, 731.7, 12.35,
+ * 0.345. Figures themselves are never rounded.
+ */
 export function formatForMessage(x: number): string {
   const abs = Math.abs(x);
   const digits = abs >= 100 ? 1 : abs >= 1 ? 2 : 3;
-  return String(Number(x.toFixed(digits)));
+  return messageFormats[digits - 1].format(x);
 }
 
 function unitText(unit: string) {

@@ -453,7 +453,12 @@ const LeafRow = memo(function LeafRow({
           <th
             key={cell.id}
             scope="row"
-            className="sticky left-0 z-[1] max-w-80 min-w-56 bg-sheet px-3 py-2 text-left font-normal shadow-[1px_0_0_var(--color-rule)] group-hover:bg-[#fbf8f1]"
+            className={cn(
+              'sticky left-0 z-[1] max-w-80 min-w-56 bg-sheet px-3 py-2 text-left font-normal shadow-[1px_0_0_var(--color-rule)] group-hover:bg-[#fbf8f1]',
+              // The sticky cell covers the row's outline: it carries the mark itself.
+              picked &&
+                'bg-accent-50 shadow-[inset_4px_0_0_var(--color-accent-600),1px_0_0_var(--color-rule)] group-hover:bg-accent-50',
+            )}
           >
             {content}
           </th>
