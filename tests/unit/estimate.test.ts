@@ -18,6 +18,7 @@ import {
 } from '../../shared/schemas/estimate';
 import { ratingUnits, type PartCategory, type RatingUnit } from '../../shared/schemas/parts';
 import { convertPower } from '../../shared/units';
+import { formatFigure, formatHeadroom } from '../../src/features/estimate/format';
 
 // reference.md's full value of lbf·ft → N·m (NIST SP 811 (2008) B.9, from the exact definitions);
 // parsed from text because the literal has one more digit than a double holds.
@@ -850,5 +851,17 @@ describe('request schema', () => {
     expect(fieldsOf({ ...ok, horsepower: 5 })).toEqual(['']);
     const many = Array.from({ length: 501 }, (_, i) => part(`p${i}`, 'other', 1, 'hp-crank'));
     expect(fieldsOf({ ...ok, components: many })).toEqual(['components']);
+  });
+});
+
+describe('figures as the pages show them (issue #14)', () => {
+  it('rounds a percentage to one decimal in the working as on the cards: 3.87 % reads 3.9 %', () => {
+    // 760 ÷ 731.7 − 1 = 3.87 %: the card said +3.9 %, the working 3.87 %.
+    expect(formatFigure(3.8666, '%')).toBe('3.9 %');
+    expect(formatHeadroom(3.8666)).toBe('+3.9 %');
+    expect(formatFigure(15.2466, '%')).toBe('15.2 %');
+    // Other units keep their own digits; the API keeps every digit.
+    expect(formatFigure(216.926, 'mm3-per-stroke')).toBe('216.9 mm³/stroke');
+    expect(formatFigure(0.85, 'kg-per-l')).toBe('0.85 kg/L');
   });
 });
