@@ -39,6 +39,12 @@ export const paths = {
       getHref: (buildId: string) => `/builds/${encodeURIComponent(buildId)}/edit`,
     },
     parts: section('parts'),
+    /** The ledger with one part opened (the owner's edit form) or picked out (everyone else). */
+    part: {
+      path: '/builds/:buildId/parts',
+      getHref: (buildId: string, partId: string) =>
+        `/builds/${encodeURIComponent(buildId)}/parts?part=${encodeURIComponent(partId)}`,
+    },
     budget: section('budget'),
     sendOuts: section('send-outs'),
     estimate: section('estimate'),

@@ -5,6 +5,7 @@ import { cachedDate, cachedMoney } from '../lib/format-cache';
 import { StatusBadge } from './status-badge';
 import { StatusSelect } from './status-select';
 import { RatingText, RowActions, useLedgerActions, type MoneyView } from './parts-columns';
+import { partElementId } from '../lib/part-element-id';
 
 function Fact({ term, children }: { term: string; children: React.ReactNode }) {
   return (
@@ -16,7 +17,16 @@ function Fact({ term, children }: { term: string; children: React.ReactNode }) {
 }
 
 /** One part in the phone list: the facts a person in the garage needs, status changeable. */
-export const PartCard = memo(function PartCard({ part, money }: { part: Part; money: MoneyView }) {
+export const PartCard = memo(function PartCard({
+  part,
+  money,
+  picked = false,
+}: {
+  part: Part;
+  money: MoneyView;
+  /** Picked out by a link (from the estimate): marked, and focusable to be scrolled to. */
+  picked?: boolean;
+}) {
   const { currency, onStatusChange } = useLedgerActions();
   const sub = [partCategoryLabels[part.category], part.vendor, part.partNumber]
     .filter(Boolean)
@@ -33,9 +43,13 @@ export const PartCard = memo(function PartCard({ part, money }: { part: Part; mo
             : null;
   return (
     <li
+      id={partElementId(part.id)}
+      tabIndex={picked ? -1 : undefined}
+      aria-current={picked ? 'true' : undefined}
       className={cn(
         'rounded-lg border border-rule bg-sheet p-3 shadow-[0_1px_0_rgba(27,34,48,0.04)]',
         part.status === 'returned' && 'opacity-80',
+        picked && 'border-accent-600 bg-accent-50 outline-2 outline-accent-600',
       )}
     >
       <div className="flex items-start justify-between gap-2">
