@@ -52,6 +52,12 @@ export const permissions = {
   'photos:upload': ['owner', 'crew', 'shop'],
   'photos:update': ['owner', 'crew', 'shop'],
   'photos:delete': ownerOnly,
+  // Dyno days. A shop records sessions at its own dyno and sees only the sessions assigned to it;
+  // the dyno service applies that. Owner and crew assign a session to a shop.
+  'dyno:read': everyone,
+  'dyno:write': ['owner', 'crew', 'shop'],
+  'dyno:assign': ['owner', 'crew'],
+  'dyno:delete': ownerOnly,
   // Invite by e-mail, list, resend and revoke invitations.
   'invitations:manage': ownerOnly,
   // Each member chooses, for themself only, which notices they receive.
