@@ -9,6 +9,7 @@ import { authRouter, meRouter } from './features/auth/auth.router';
 import { passwordResetRouter } from './features/auth/password-reset.router';
 import { budgetRouter } from './features/budget/budget.router';
 import { buildsRouter } from './features/builds/builds.router';
+import { dynoRunsRouter, dynoSessionsRouter } from './features/dyno/dyno.router';
 import {
   assumptionsRouter,
   buildEstimateRouter,
@@ -60,5 +61,7 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/fasteners`, router: fastenersRouter(deps) },
     { path: `${b}/retorque-checks`, router: retorqueRouter(deps) },
     { path: `${b}/photos`, router: photosRouter(deps) },
+    { path: `${b}/dyno-sessions`, router: dynoSessionsRouter(deps) },
+    { path: `${b}/dyno-runs`, router: dynoRunsRouter(deps) },
   ];
 }
