@@ -838,3 +838,26 @@ export const dynoPlanSchema = z.object({
   }),
 });
 export type DynoPlan = z.infer<typeof dynoPlanSchema>;
+
+/** A session in the list, with its best run under the chosen correction (null before a complete run). */
+export const dynoSessionSummarySchema = dynoSessionSchema.extend({
+  best: z
+    .object({
+      runId: z.string(),
+      runNumber: z.number().int().nullable(),
+      basis: z.enum(powerBases),
+      powerUnit: z.enum(dynoPowerUnits),
+      torqueUnit: z.enum(dynoTorqueUnits),
+      /** Corrected, in the run's units. */
+      peakPower: z.number().nullable(),
+      peakPowerRpm: z.number().nullable(),
+      peakPowerHp: z.number(),
+      peakTorque: z.number().nullable(),
+      peakTorqueRpm: z.number().nullable(),
+      factor: z.number(),
+      applied: z.boolean(),
+      valid: z.boolean(),
+    })
+    .nullable(),
+});
+export type DynoSessionSummary = z.infer<typeof dynoSessionSummarySchema>;

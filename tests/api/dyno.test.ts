@@ -6,9 +6,13 @@
  * the field or row named and nothing saved.
  */
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
+import { seedDemo } from '../../db/seeds/demo';
+import { listSessions } from '../../server/features/dyno/sessions.service';
+import { createLocalDiskStorage } from '../../server/lib/storage';
 import { useTestApp, type Agent } from '../helpers/app';
 import { addMember, buildWithCast, moneyKeys, signUp, type TestUser } from '../helpers/factories';
 
@@ -759,5 +763,56 @@ describe('dyno days: a run’s attachment', () => {
     });
     // The failures stored nothing.
     expect(filesUnder(app.storageDir).filter((f) => f.includes(run.id))).toHaveLength(1);
+  });
+});
+
+// ---- demo data ------------------------------------------------------------------------
+
+describe('dyno days: demo data', () => {
+  it('seeds one dyno day with three pulls (one stopped early), weather, curves and a best run a little short of the target', async () => {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-seed-'));
+    const rollback = new Error('rollback');
+    try {
+      await app.db.knex
+        .transaction(async (trx) => {
+          const { buildId, userIds } = await seedDemo(trx, {
+            storage: createLocalDiskStorage(dir),
+          });
+          const scope = {
+            knex: trx,
+            buildId,
+            caller: { userId: userIds.owner, role: 'owner' as const },
+          };
+          const { sessions, summary, plan } = await listSessions(scope, { standard: 'sae-j1349' });
+          expect(sessions).toHaveLength(1);
+          expect(sessions[0]).toMatchObject({ dynoKind: 'chassis', runCount: 3 });
+          expect(sessions[0].weather).not.toBeNull();
+          expect(plan.target).toMatchObject({ powerHp: 600, basis: 'wheel' });
+          // A little short: between 95 % and 100 % of the target, under the default standard.
+          expect(summary.vsTarget!.reached).toBe(false);
+          expect(summary.vsTarget!.progressPct.value).toBeGreaterThan(95);
+          expect(summary.vsTarget!.progressPct.value).toBeLessThan(100);
+          const runs = await trx('dyno_runs').where({ build_id: buildId }).orderBy('run_number');
+          expect(runs.map((r: { status: string }) => r.status)).toEqual([
+            'complete',
+            'complete',
+            'aborted',
+          ]);
+          expect(runs.every((r: { curve_rows: number }) => r.curve_rows > 10)).toBe(true);
+          expect(runs[2].abort_reason).toBeTruthy();
+          // The printout photo is in the store.
+          expect(filesUnder(dir).filter((f) => f.includes(runs[1].id))).toHaveLength(1);
+          expect(runs[1].attachment_kind).toBe('image');
+          // A shop that was never assigned the session does not see it.
+          const shop = { ...scope, caller: { userId: userIds.shop, role: 'shop' as const } };
+          expect((await listSessions(shop, { standard: 'sae-j1349' })).sessions).toEqual([]);
+          throw rollback;
+        })
+        .catch((err) => {
+          if (err !== rollback) throw err;
+        });
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
   });
 });

@@ -15,6 +15,7 @@ import type {
   CorrectionChoice,
   CreateDynoSessionInput,
   DynoRun,
+  DynoSessionSummary,
   UpdateDynoSessionInput,
 } from '../../../shared/schemas/dyno';
 import { ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
@@ -78,7 +79,7 @@ export async function listSessions(scope: BuildScope, choice: CorrectionChoice) 
 }
 
 /** A session's best run in a line: corrected peaks, rpm and the factor used. */
-function bestSummary(report: SessionReport, runs: DynoRun[]) {
+function bestSummary(report: SessionReport, runs: DynoRun[]): DynoSessionSummary['best'] {
   if (!report.best) return null;
   const entry = report.runs.find((r) => r.id === report.best!.id)!;
   const c = entry.corrected;
