@@ -66,6 +66,12 @@ const StepRoute = lazy(() =>
 const PhotosRoute = lazy(() =>
   import('./routes/builds/photos').then((m) => ({ default: m.PhotosRoute })),
 );
+const DynoRoute = lazy(() =>
+  import('./routes/builds/dyno').then((m) => ({ default: m.DynoRoute })),
+);
+const DynoSessionRoute = lazy(() =>
+  import('./routes/builds/dyno-session').then((m) => ({ default: m.DynoSessionRoute })),
+);
 
 const router = createBrowserRouter([
   {
@@ -105,6 +111,8 @@ const router = createBrowserRouter([
                       { path: 'send-outs', element: <SendOutsRoute /> },
                       { path: 'estimate', element: <EstimateRoute /> },
                       { path: 'notices', element: <NoticesRoute /> },
+                      { path: 'dyno', element: <DynoRoute /> },
+                      { path: 'dyno/:sessionId', element: <DynoSessionRoute /> },
                     ],
                   },
                 ],

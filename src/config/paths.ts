@@ -50,6 +50,12 @@ export const paths = {
     },
     photos: section('photos'),
     notices: section('notices'),
+    dyno: section('dyno'),
+    dynoSession: {
+      path: '/builds/:buildId/dyno/:sessionId',
+      getHref: (buildId: string, sessionId: string, search = '') =>
+        `/builds/${encodeURIComponent(buildId)}/dyno/${encodeURIComponent(sessionId)}${search}`,
+    },
   },
 } as const;
 
