@@ -86,6 +86,6 @@ export const runColours = [
  * the target is reached (99.96 % reads "99.9 %", not "100 %").
  */
 export function progressText(pct: number, reached: boolean): string {
-  const shown = reached ? pct : Math.min(Math.floor(pct * 10) / 10, 99.9);
+  const shown = reached ? pct : Math.min(pct, 99.9);
   return `${formatNumber(shown, 1)} %`;
 }

@@ -136,7 +136,8 @@ function DynoPage({ build }: { build: Build }) {
           ) : undefined
         }
         actions={
-          canWrite ? (
+          // With no session yet, the empty state below carries the button.
+          canWrite && sessions.data?.sessions.length !== 0 ? (
             <Button icon={<Plus aria-hidden className="size-4" />} onClick={() => setAdding(true)}>
               New dyno session
             </Button>
@@ -192,7 +193,7 @@ function DynoPage({ build }: { build: Build }) {
         {list.length === 0 ? (
           <EmptyState
             icon={<Gauge aria-hidden className="size-6" />}
-            title="No dyno days yet"
+            title={build.myRole === 'shop' ? 'No dyno days for you yet' : 'No dyno days yet'}
             actions={
               canWrite ? (
                 <Button
@@ -204,6 +205,9 @@ function DynoPage({ build }: { build: Build }) {
               ) : undefined
             }
           >
+            {build.myRole === 'shop'
+              ? 'Sessions the owner or crew assign to you, and those you record at your dyno, show here. '
+              : ''}
             A dyno day holds its pulls, the weather they were made in and each pull’s curve. Runs
             are kept as measured and corrected to a standard on the page, so days compare.
           </EmptyState>

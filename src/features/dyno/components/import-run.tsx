@@ -94,7 +94,9 @@ function ErrorTable({ errors, total }: { errors: CurveCsvError[]; total: number 
                 {e.row ?? 'Header'}
               </td>
               <td className="px-3 py-2 align-top">{e.column ? <code>{e.column}</code> : '—'}</td>
-              <td className="px-3 py-2 align-top text-over">{e.message}</td>
+              <td className="px-3 py-2 align-top [overflow-wrap:anywhere] text-over">
+                {e.message}
+              </td>
             </tr>
           ))}
         </tbody>

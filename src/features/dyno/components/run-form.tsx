@@ -1,4 +1,4 @@
-import { useForm } from 'react-hook-form';
+import { useForm, type UseFormRegisterReturn } from 'react-hook-form';
 import {
   boostUnitLabels,
   boostUnits,
@@ -60,18 +60,22 @@ type RunFormValues = WeatherFormValues &
     ownWeather: boolean;
   };
 
-function toInput(v: RunFormValues, curve: DynoRun['curve'] | null): CreateDynoRunInput {
+function toInput(v: RunFormValues, run: DynoRun | undefined): CreateDynoRunInput {
+  const curve = run?.curve.length ? run.curve : null;
+  // A run with a curve keeps its units (their boxes are disabled, so the form may not hold them).
+  const unit = <K extends keyof RunUnits>(key: K): RunUnits[K] =>
+    (curve && run ? run[key] : undefined) ?? v[key];
   return {
     status: v.status,
     abortReason: v.status === 'aborted' ? v.abortReason : null,
     gear: v.gear,
     tuneRevision: v.tuneRevision,
     notes: v.notes,
-    powerUnit: v.powerUnit,
-    torqueUnit: v.torqueUnit,
-    boostUnit: v.boostUnit,
-    egtUnit: v.egtUnit,
-    mixtureKind: v.mixtureKind,
+    powerUnit: unit('powerUnit'),
+    torqueUnit: unit('torqueUnit'),
+    boostUnit: unit('boostUnit'),
+    egtUnit: unit('egtUnit'),
+    mixtureKind: unit('mixtureKind'),
     peakPower: num(v.peakPower),
     peakPowerRpm: num(v.peakPowerRpm),
     peakTorque: num(v.peakTorque),
@@ -150,16 +154,19 @@ function UnitSelect<T extends string>({
   options,
   labels,
   field,
+  locked,
 }: {
   label: string;
   options: readonly T[];
   labels: Record<T, string>;
-  field: ReturnType<ReturnType<typeof useForm<RunFormValues>>['register']>;
+  field: UseFormRegisterReturn;
+  /** A run with a curve keeps the units its file gave: changing one would re-read every row. */
+  locked?: boolean;
 }) {
   return (
-    <FormField label={label}>
+    <FormField label={label} hint={locked ? 'Set by the curve’s file' : undefined}>
       {(c) => (
-        <SelectInput {...c} {...field}>
+        <SelectInput {...c} {...field} disabled={locked}>
           {options.map((o) => (
             <option key={o} value={o}>
               {labels[o]}
@@ -195,7 +202,7 @@ function RunForm({
     getValues,
     formState: { errors, isSubmitting },
   } = useForm<RunFormValues, unknown, DynoRunInput>({
-    resolver: schemaResolver(createDynoRunInputSchema, (v: RunFormValues) => toInput(v, curve)),
+    resolver: schemaResolver(createDynoRunInputSchema, (v: RunFormValues) => toInput(v, run)),
     defaultValues: defaults(run),
     mode: 'onTouched',
   });
@@ -266,12 +273,14 @@ function RunForm({
           options={dynoPowerUnits}
           labels={dynoPowerUnitLabels}
           field={register('powerUnit')}
+          locked={Boolean(curve)}
         />
         <UnitSelect
           label="Torque unit"
           options={dynoTorqueUnits}
           labels={dynoTorqueUnitLabels}
           field={register('torqueUnit')}
+          locked={Boolean(curve)}
         />
       </FieldGroup>
       <FieldGroup legend="Also logged" description="Boost is gauge pressure, above the air’s.">
@@ -281,6 +290,7 @@ function RunForm({
           options={boostUnits}
           labels={boostUnitLabels}
           field={register('boostUnit')}
+          locked={Boolean(curve)}
         />
         {numberBox('egt', 'Highest exhaust gas temperature')}
         <UnitSelect
@@ -288,6 +298,7 @@ function RunForm({
           options={dynoTemperatureUnits}
           labels={dynoTemperatureUnitLabels}
           field={register('egtUnit')}
+          locked={Boolean(curve)}
         />
         {numberBox('mixture', 'Mixture at peak power')}
         <UnitSelect
@@ -295,6 +306,7 @@ function RunForm({
           options={mixtureKinds}
           labels={mixtureKindLabels}
           field={register('mixtureKind')}
+          locked={Boolean(curve)}
         />
         <FormField label="Notes" optional error={errors.notes?.message} className="sm:col-span-2">
           {(c) => <TextArea {...c} rows={2} {...register('notes')} />}
