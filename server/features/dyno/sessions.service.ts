@@ -18,6 +18,7 @@ import type {
   DynoSessionSummary,
   UpdateDynoSessionInput,
 } from '../../../shared/schemas/dyno';
+import { can } from '../../../shared/permissions';
 import { ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import type { BuildScope } from '../../lib/scope';
 import * as files from '../files';
@@ -34,7 +35,8 @@ async function assignee(
   current: string | null,
 ): Promise<string | null | undefined> {
   const { knex, buildId, caller } = scope;
-  if (caller.role === 'shop') {
+  if (!can(caller.role, 'dyno:assign')) {
+    // A shop: its sessions are its own dyno's.
     if (requested !== undefined && requested !== caller.userId) {
       throw new ForbiddenError('A shop records sessions at its own dyno; it cannot assign them');
     }
@@ -148,7 +150,7 @@ export async function updateSession(
   const shopUserId = await assignee(scope, input.shopUserId, session.shop?.id ?? null);
   await repo.updateSession(scope.knex, session.id, {
     ...input,
-    shopUserId: scope.caller.role === 'shop' ? undefined : shopUserId,
+    shopUserId: can(scope.caller.role, 'dyno:assign') ? shopUserId : undefined,
   });
   return loadSession(scope, session.id);
 }
