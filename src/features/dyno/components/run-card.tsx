@@ -64,7 +64,7 @@ export function RunCard({
   const corrected = c.correction.standard !== 'uncorrected' && c.correction.applied;
   const basis = c.basis;
   const title = `Run ${run.runNumber}`;
-  const details = [run.gear && `${run.gear} gear`, run.tuneRevision && `tune ${run.tuneRevision}`]
+  const details = [run.gear && `Gear ${run.gear}`, run.tuneRevision && `Tune ${run.tuneRevision}`]
     .filter(Boolean)
     .join(' · ');
   return (
