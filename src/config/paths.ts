@@ -82,6 +82,12 @@ export const paths = {
         return `/builds/${encodeURIComponent(buildId)}/bench/compare${query ? `?${query}` : ''}`;
       },
     },
+    dyno: section('dyno'),
+    dynoSession: {
+      path: '/builds/:buildId/dyno/:sessionId',
+      getHref: (buildId: string, sessionId: string, search = '') =>
+        `/builds/${encodeURIComponent(buildId)}/dyno/${encodeURIComponent(sessionId)}${search}`,
+    },
   },
 } as const;
 
