@@ -15,8 +15,20 @@ function Fact({ term, children }: { term: string; children: React.ReactNode }) {
   );
 }
 
-/** One part in the phone list: the facts a person in the garage needs, status changeable. */
-export const PartCard = memo(function PartCard({ part, money }: { part: Part; money: MoneyView }) {
+/**
+ * One part in the phone list: the facts a person in the garage needs, status changeable.
+ * Its name is an h3 under a category's h2 when the list is grouped, an h2 when it is not.
+ */
+export const PartCard = memo(function PartCard({
+  part,
+  money,
+  headingLevel,
+}: {
+  part: Part;
+  money: MoneyView;
+  headingLevel: 2 | 3;
+}) {
+  const Heading = headingLevel === 2 ? 'h2' : 'h3';
   const { currency, onStatusChange } = useLedgerActions();
   const sub = [partCategoryLabels[part.category], part.vendor, part.partNumber]
     .filter(Boolean)
@@ -44,7 +56,9 @@ export const PartCard = memo(function PartCard({ part, money }: { part: Part; mo
     >
       <div className="flex items-start justify-between gap-2">
         <div className="min-w-0 pt-1">
-          <h3 className="text-base leading-snug font-bold break-words text-ink">{part.name}</h3>
+          <Heading className="text-base leading-snug font-bold break-words text-ink">
+            {part.name}
+          </Heading>
           {sub && <p className="text-sm break-words text-muted">{sub}</p>}
         </div>
         <RowActions part={part} className="-mt-1 -mr-1 shrink-0" />

@@ -350,7 +350,12 @@ export function PartsLedger({
                   isExpanded={row.getIsExpanded()}
                 />
               ) : (
-                <PartCard key={row.id} part={row.original} money={money} />
+                <PartCard
+                  key={row.id}
+                  part={row.original}
+                  money={money}
+                  headingLevel={grouped ? 3 : 2}
+                />
               ),
             )}
           </ul>
@@ -492,7 +497,7 @@ const GroupRow = memo(function GroupRow({
   );
 });
 
-/** A category heading in the phone list. */
+/** A category heading in the phone list: an h2 under the page's h1, its parts' h3s under it. */
 function GroupHeading({
   row,
   money,
@@ -506,9 +511,9 @@ function GroupHeading({
 }) {
   return (
     <li className="mt-2 flex flex-wrap items-center justify-between gap-x-3 border-b-2 border-rule-strong first:mt-0">
-      <h3 className="m-0 text-base">
+      <h2 className="m-0 text-base">
         <ToggleGroup row={row} isExpanded={isExpanded} />
-      </h3>
+      </h2>
       {money === 'full' && (
         <p className="font-bold tabular-nums">
           <span className="font-normal text-muted">Subtotal </span>
