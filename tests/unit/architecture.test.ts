@@ -106,7 +106,8 @@ describe('the import graph', () => {
         const below = file.startsWith('server/lib/') || file.startsWith('server/middleware/');
         if (below && dep.startsWith('server/features/')) wrong.push(`${file} → ${dep}`);
         if (dep === 'server/app.ts' && file !== 'server/index.ts') wrong.push(`${file} → ${dep}`);
-        if (file.startsWith('shared/') && !dep.startsWith('shared/')) wrong.push(`${file} → ${dep}`);
+        if (file.startsWith('shared/') && !dep.startsWith('shared/'))
+          wrong.push(`${file} → ${dep}`);
         if (file.startsWith('src/') && (dep.startsWith('server/') || dep.startsWith('db/')))
           wrong.push(`${file} → ${dep}`);
         const [, , feature] = file.split('/');
