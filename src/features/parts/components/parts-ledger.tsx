@@ -397,6 +397,7 @@ export function PartsLedger({
                   part={row.original}
                   money={money}
                   picked={row.id === focusPartId}
+                  headingLevel={grouped ? 3 : 2}
                 />
               ),
             )}
@@ -568,7 +569,7 @@ const GroupRow = memo(function GroupRow({
   );
 });
 
-/** A category heading in the phone list. */
+/** A category heading in the phone list: an h2 under the page's h1, its parts' h3s under it. */
 function GroupHeading({
   row,
   money,
@@ -584,9 +585,9 @@ function GroupHeading({
 }) {
   return (
     <li className="mt-2 flex flex-wrap items-center justify-between gap-x-3 border-b-2 border-rule-strong first:mt-0">
-      <h3 className="m-0 text-base">
+      <h2 className="m-0 text-base">
         <ToggleGroup row={row} isExpanded={isExpanded} listed={listed} />
-      </h3>
+      </h2>
       {money === 'full' && (
         <p className="font-bold tabular-nums">
           <span className="font-normal text-muted">Subtotal </span>
