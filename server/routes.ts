@@ -10,6 +10,7 @@ import { benchSheetsRouter } from './features/bench/bench.router';
 import { passwordResetRouter } from './features/auth/password-reset.router';
 import { budgetRouter } from './features/budget/budget.router';
 import { buildsRouter } from './features/builds/builds.router';
+import { dynoRunsRouter, dynoSessionsRouter } from './features/dyno/dyno.router';
 import {
   assumptionsRouter,
   buildEstimateRouter,
@@ -71,6 +72,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/retorque-checks`, router: retorqueRouter(deps) },
     { path: `${b}/photos`, router: photosRouter(deps) },
     { path: `${b}/bench-sheets`, router: benchSheetsRouter(deps) },
+    { path: `${b}/dyno-sessions`, router: dynoSessionsRouter(deps) },
+    { path: `${b}/dyno-runs`, router: dynoRunsRouter(deps) },
     { path: `${b}/timeline`, router: timelineRouter(deps) },
     { path: `${b}/milestones`, router: milestonesRouter(deps) },
     { path: `${b}/calendar-feed`, router: calendarFeedRouter(deps) },

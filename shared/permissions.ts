@@ -57,6 +57,12 @@ export const permissions = {
   'bench:read': everyone,
   'bench:write': ['owner', 'crew', 'shop'],
   'bench:delete': ['owner', 'shop'],
+  // Dyno days. A shop records sessions at its own dyno and sees only the sessions assigned to it;
+  // the dyno service applies that. Owner and crew assign a session to a shop.
+  'dyno:read': everyone,
+  'dyno:write': ['owner', 'crew', 'shop'],
+  'dyno:assign': ['owner', 'crew'],
+  'dyno:delete': ownerOnly,
   // Timeline. Every member reads it (a shop: the target and the parts sent to it); the owner
   // sets its buffer, pace and time zone, and keeps the milestones, which shops do not see.
   'timeline:read': everyone,

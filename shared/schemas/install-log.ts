@@ -143,7 +143,7 @@ export const fastenerSpecFieldsSchema = z.object({
     message: 'Choose dry, oiled, anti-seize or sealant',
   }),
   sequenceNote: trimmed(2000, 'Sequence').optional(),
-  /** Where the spec came from, e.g. "maker's service manual, section 303-04". */
+  /** Where the spec came from, e.g. "maker's service manual, fuel system, injector installation". */
   specSource: trimmed(500, 'Source').min(1, {
     message: "Say where this spec comes from, e.g. the maker's service manual section",
   }),

@@ -39,6 +39,12 @@ export const paths = {
       getHref: (buildId: string) => `/builds/${encodeURIComponent(buildId)}/edit`,
     },
     parts: section('parts'),
+    /** The ledger with one part opened (the owner's edit form) or picked out (everyone else). */
+    part: {
+      path: '/builds/:buildId/parts',
+      getHref: (buildId: string, partId: string) =>
+        `/builds/${encodeURIComponent(buildId)}/parts?part=${encodeURIComponent(partId)}`,
+    },
     timeline: section('timeline'),
     budget: section('budget'),
     sendOuts: section('send-outs'),
@@ -76,6 +82,12 @@ export const paths = {
         const query = q.toString();
         return `/builds/${encodeURIComponent(buildId)}/bench/compare${query ? `?${query}` : ''}`;
       },
+    },
+    dyno: section('dyno'),
+    dynoSession: {
+      path: '/builds/:buildId/dyno/:sessionId',
+      getHref: (buildId: string, sessionId: string, search = '') =>
+        `/builds/${encodeURIComponent(buildId)}/dyno/${encodeURIComponent(sessionId)}${search}`,
     },
   },
 } as const;

@@ -1,5 +1,6 @@
 import { NavLink, Outlet, useParams } from 'react-router-dom';
 import {
+  Activity,
   CalendarClock,
   Camera,
   ClipboardList,
@@ -35,6 +36,7 @@ const tabs: Tab[] = [
   { label: 'Bench', href: paths.builds.bench.getHref, icon: Droplets },
   { label: 'Install', href: paths.builds.install.getHref, icon: ClipboardList },
   { label: 'Photos', href: paths.builds.photos.getHref, icon: Camera },
+  { label: 'Dyno', href: paths.builds.dyno.getHref, icon: Activity },
 ];
 
 /** Every /builds/:buildId/* page: a row of section tabs over the page. */
