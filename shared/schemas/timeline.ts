@@ -77,15 +77,17 @@ export type TimelineLink =
   | { to: 'part'; partId: string; name: string }
   | { to: 'send-out'; partId: string; name: string }
   | { to: 'step'; stepId: string }
-  | { to: 'install' };
+  | { to: 'install' }
+  | { to: 'dyno-session'; sessionId: string };
 
-/** Kinds of dated item. A feature that adds dated things (dyno days) adds its kind here. */
+/** Kinds of dated item. A feature with dates of its own adds its kind here (and a source). */
 export const timelineItemKinds = [
   'target',
   'milestone',
   'part-expected',
   'send-out-due',
   'job',
+  'dyno-session',
 ] as const;
 export type TimelineItemKind = (typeof timelineItemKinds)[number];
 
@@ -95,6 +97,7 @@ export const timelineItemKindLabels: Record<TimelineItemKind, string> = {
   'part-expected': 'Part expected',
   'send-out-due': 'Due back from a shop',
   job: 'Install job',
+  'dyno-session': 'Dyno day',
 };
 
 /** One dated thing on the timeline. `key` is stable: the calendar feed's UIDs are made from it. */

@@ -5,6 +5,7 @@
  * phone's calendar updates an event instead of adding a second one.
  */
 import type { IsoDate } from '../dates';
+import type { DynoKind } from '../schemas/dyno';
 import type { Threat, TimelineItem } from '../schemas/timeline';
 import {
   awaitedStatuses,
@@ -107,6 +108,26 @@ export function jobItems(jobs: JobFacts[], clock: Clock): Unjudged[] {
     }
   }
   return items;
+}
+
+const dynoKindWords: Record<DynoKind, string> = { chassis: 'Chassis dyno', engine: 'Engine dyno' };
+
+/** A dyno day: booked ahead, or held (with its runs) on its date. */
+export function dynoDayItem(
+  d: { id: string; date: IsoDate; place: string; dynoKind: DynoKind; runCount: number },
+  today: IsoDate,
+): Unjudged {
+  const runs = d.runCount ? `, ${d.runCount} ${d.runCount === 1 ? 'run' : 'runs'}` : '';
+  return {
+    key: `dyno-session:${d.id}`,
+    kind: 'dyno-session',
+    date: d.date,
+    title: d.place ? `Dyno day at ${d.place}` : 'Dyno day',
+    detail: `${dynoKindWords[d.dynoKind]}${runs}`,
+    done: d.date < today,
+    inCalendar: true,
+    link: { to: 'dyno-session', sessionId: d.id },
+  };
 }
 
 /** Marks the items a threat names and puts them in date order (then by kind and title). */

@@ -201,6 +201,40 @@ describe('GET /api/builds/:buildId/timeline', () => {
     expect(other.threats.map((x) => x.title)).toEqual(['Transmission at another shop']);
   });
 
+  it('carries dyno days as dated items: every one for the owner, a shop only those at its dyno', async () => {
+    const s = await scenario();
+    const url = `${s.base}/dyno-sessions`;
+    const booked = (
+      await s.owner.agent
+        .post(url)
+        .send({ date: s.day(38), dynoKind: 'chassis', place: 'Mesa Diesel', shopUserId: s.shop.id })
+        .expect(201)
+    ).body.session;
+    const other = (
+      await s.owner.agent
+        .post(url)
+        .send({ date: s.day(12), dynoKind: 'engine' })
+        .expect(201)
+    ).body.session;
+    const owner = await timelineOf(s.owner.agent, s.base);
+    expect(owner.items.find((i) => i.key === `dyno-session:${booked.id}`)).toMatchObject({
+      kind: 'dyno-session',
+      date: s.day(38),
+      title: 'Dyno day at Mesa Diesel',
+      detail: 'Chassis dyno',
+      inCalendar: true,
+      threatened: false,
+      link: { to: 'dyno-session', sessionId: booked.id },
+    });
+    expect(owner.items.some((i) => i.key === `dyno-session:${other.id}`)).toBe(true);
+    const shop = await timelineOf(s.shop.agent, s.base);
+    expect(shop.items.filter((i) => i.kind === 'dyno-session').map((i) => i.key)).toEqual([
+      `dyno-session:${booked.id}`,
+    ]);
+    const otherShop = await timelineOf(s.otherShop.agent, s.base);
+    expect(otherShop.items.some((i) => i.kind === 'dyno-session')).toBe(false);
+  });
+
   it('answers 404 to a stranger and to a build that does not exist, 401 signed out', async () => {
     const s = await scenario();
     expect((await s.stranger.agent.get(`${s.base}/timeline`)).status).toBe(404);
@@ -402,7 +436,7 @@ describe('demo data', () => {
           expect(t.readiness.words).toBe('1 thing threatens the date');
           const kinds = new Set(t.items.map((i) => i.kind));
           expect([...kinds].sort()).toEqual(
-            ['job', 'milestone', 'part-expected', 'send-out-due', 'target'].sort(),
+            ['dyno-session', 'job', 'milestone', 'part-expected', 'send-out-due', 'target'].sort(),
           );
           expect(t.milestones).toHaveLength(6);
           // The shop's own view: its injectors due back, and the date; nothing threatened.

@@ -18,6 +18,7 @@ const summaries: Record<TimelineItem['kind'], (i: TimelineItem) => string> = {
   'part-expected': (i) => `Expected: ${i.title}`,
   'send-out-due': (i) => `Due back: ${i.title}`,
   job: (i) => `Install job: ${i.title}`,
+  'dyno-session': (i) => i.title,
 };
 
 /** A UTC midnight: ical-generator writes an all-day date from the UTC calendar date. */
@@ -34,7 +35,7 @@ export function feedIcs(opts: {
   const host = new URL(appUrl).hostname;
   const calendar = ical({
     name: `${buildName} · Headroom`,
-    description: `Dates of the build “${buildName}”: the target date, milestones, parts expected and send-outs due back.`,
+    description: `Dates of the build “${buildName}”: the target date, milestones, parts expected, send-outs due back and dyno days.`,
     prodId: { company: 'Headroom', product: 'Timeline', language: 'EN' },
     method: ICalCalendarMethod.PUBLISH,
     // Phones poll a subscribed calendar; once an hour is plenty for dates.

@@ -11,12 +11,14 @@ export function linkPath(buildId: string, link: TimelineLink): string {
     case 'milestone':
       return `${timelinePath(buildId)}#milestone-${link.milestoneId}`;
     case 'part':
-      return `${build}/parts?q=${encodeURIComponent(link.name)}`;
+      return `${build}/parts?part=${link.partId}`;
     case 'send-out':
       return `${build}/send-outs`;
     case 'step':
       return `${build}/install/steps/${link.stepId}`;
     case 'install':
       return `${build}/install`;
+    case 'dyno-session':
+      return `${build}/dyno/${link.sessionId}`;
   }
 }

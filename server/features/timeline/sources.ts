@@ -1,13 +1,13 @@
 /**
  * Where the timeline's dated items and threats come from: one source per kind of dated
  * thing in the build, each applying what the caller may see. A feature with dates of its
- * own (dyno days, when they exist) adds one entry to `sources` — the page, the calendar
- * feed and the weekly digest then carry its items with no other change.
+ * own adds one entry to `sources` (as dyno days do) — the page, the calendar feed and the
+ * weekly digest then carry its items with no other change.
  */
 import { can } from '../../../shared/permissions';
 import { wallClock, type IsoDate } from '../../../shared/dates';
 import type { Threat, TimelineItem } from '../../../shared/schemas/timeline';
-import { jobItems, milestoneItem, partItems } from '../../../shared/timeline/items';
+import { dynoDayItem, jobItems, milestoneItem, partItems } from '../../../shared/timeline/items';
 import {
   jobThreats,
   milestoneThreats,
@@ -17,6 +17,7 @@ import {
   type JobFacts,
 } from '../../../shared/timeline/rules';
 import type { BuildScope } from '../../lib/scope';
+import * as dyno from '../dyno';
 import * as installLog from '../install-log';
 import * as parts from '../parts';
 import * as milestonesRepo from './milestones.repository';
@@ -99,4 +100,13 @@ const installJobs: TimelineSource = {
   },
 };
 
-export const sources: TimelineSource[] = [milestones, partsAndSendOuts, installJobs];
+/** Dyno days, booked or held; a shop sees those at its own dyno. They threaten nothing. */
+const dynoDays: TimelineSource = {
+  name: 'dyno-days',
+  async load({ scope, clock }) {
+    const days = await dyno.listDynoDays(scope);
+    return { items: days.map((d) => dynoDayItem(d, clock.today)), threats: [] };
+  },
+};
+
+export const sources: TimelineSource[] = [milestones, partsAndSendOuts, installJobs, dynoDays];

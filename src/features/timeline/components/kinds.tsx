@@ -1,4 +1,12 @@
-import { ClipboardList, Flag, Milestone, Package, Truck, type LucideIcon } from 'lucide-react';
+import {
+  Activity,
+  ClipboardList,
+  Flag,
+  Milestone,
+  Package,
+  Truck,
+  type LucideIcon,
+} from 'lucide-react';
 import type { TimelineItemKind } from '../../../../shared/schemas/timeline';
 
 /** How each kind of dated item looks: its icon and its dot's colour on the track. */
@@ -9,4 +17,5 @@ export const kindLooks: Record<TimelineItemKind, { icon: LucideIcon; dot: string
     'part-expected': { icon: Package, dot: 'bg-[#3b6ea5]', label: 'Part expected' },
     'send-out-due': { icon: Truck, dot: 'bg-[#7a5aa6]', label: 'Due back from a shop' },
     job: { icon: ClipboardList, dot: 'bg-ok', label: 'Install job' },
+    'dyno-session': { icon: Activity, dot: 'bg-ink-3', label: 'Dyno day' },
   };
