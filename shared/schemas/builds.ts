@@ -3,7 +3,7 @@ import { roles } from '../permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
 import { emailSchema } from './auth';
 import { hasAtMostDecimals } from './precision';
-import { timeZoneSchema } from './timeline';
+import { timeZoneSchema } from './time-zone';
 
 export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
 import { aspirations, powerBases } from '../builds/vocabulary';

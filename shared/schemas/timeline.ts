@@ -5,15 +5,9 @@
  * count with in shared/dates.
  */
 import { z } from 'zod';
-import { canonicalTimeZone, isTimeZone, type IsoDate } from '../dates';
+import type { IsoDate } from '../dates';
 import { isoDateSchema, trimmed } from './common';
-
-/** An IANA time zone name ("America/Denver"); the build's "today" is counted in it. */
-export const timeZoneSchema = z
-  .string({ message: 'Choose a time zone' })
-  .trim()
-  .refine(isTimeZone, { message: 'Choose a time zone from the list, like America/Denver' })
-  .transform((name) => canonicalTimeZone(name) ?? name);
+import { timeZoneSchema } from './time-zone';
 
 export const defaultBufferDays = 7;
 export const maxBufferDays = 365;
