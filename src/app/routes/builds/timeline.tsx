@@ -103,7 +103,7 @@ function ZonePrompt({ buildId }: { buildId: string }) {
   );
 }
 
-function ReadOnlySettings({ t }: { t: Timeline }) {
+function ReadOnlySettings({ t, isShop }: { t: Timeline; isShop: boolean }) {
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-ink-2">
       <dt className="font-semibold text-ink">Time zone</dt>
@@ -112,12 +112,16 @@ function ReadOnlySettings({ t }: { t: Timeline }) {
       <dd>
         {t.settings.bufferDays} {t.settings.bufferDays === 1 ? 'day' : 'days'} before the target
       </dd>
-      <dt className="font-semibold text-ink">Install pace</dt>
-      <dd>
-        {t.settings.stepsPerWeek === null
-          ? 'Not set: jobs are not checked'
-          : `${t.settings.stepsPerWeek} steps a week`}
-      </dd>
+      {!isShop && (
+        <>
+          <dt className="font-semibold text-ink">Install pace</dt>
+          <dd>
+            {t.settings.stepsPerWeek === null
+              ? 'Not set: jobs are not checked'
+              : `${t.settings.stepsPerWeek} steps a week`}
+          </dd>
+        </>
+      )}
     </dl>
   );
 }
@@ -194,7 +198,7 @@ function TimelinePage({ build }: { build: Build }) {
               {isOwner ? (
                 <SettingsForm buildId={build.id} timeline={t} />
               ) : (
-                <ReadOnlySettings t={t} />
+                <ReadOnlySettings t={t} isShop={isShop} />
               )}
             </Section>
             <CalendarPanel buildId={build.id} isShop={isShop} />

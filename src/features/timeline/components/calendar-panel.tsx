@@ -129,7 +129,7 @@ export function CalendarPanel({ buildId, isShop }: { buildId: string; isShop: bo
           Subscribe your phone’s calendar to the target date
           {isShop
             ? ' and the dates of the parts sent to you'
-            : ', milestones, parts expected and send-outs due back'}
+            : ', milestones, parts expected, send-outs due back and dyno days'}
           . It updates by itself; no money is in it.
         </p>
         {body}

@@ -48,7 +48,7 @@ export function MilestoneForm({
       aria-label={milestone ? 'Change the milestone' : 'Add a milestone'}
       className="flex flex-col gap-3"
     >
-      <div className="grid gap-3 sm:grid-cols-[minmax(0,1fr)_11rem]">
+      <div className={milestone ? 'grid gap-3 sm:grid-cols-[minmax(0,1fr)_11rem]' : 'grid gap-3'}>
         <FormField label="Milestone" error={errors.title?.message}>
           {(c) => (
             <TextInput

@@ -31,7 +31,9 @@ function MilestoneRow({
   onDelete: () => void;
 }) {
   const update = useUpdateMilestone();
-  const late = !m.done && m.dueOn < today;
+  // The tick shows at once; the list catches up when the timeline is read again.
+  const done = update.isPending ? (update.variables.input.done ?? m.done) : m.done;
+  const late = !done && m.dueOn < today;
   const checkId = `${milestoneElementId(m.id)}-done`;
   return (
     <li id={milestoneElementId(m.id)} className="flex scroll-mt-4 items-center gap-2 py-2">
@@ -39,7 +41,7 @@ function MilestoneRow({
         <input
           id={checkId}
           type="checkbox"
-          checked={m.done}
+          checked={done}
           disabled={update.isPending}
           onChange={(e) =>
             update.mutate({ buildId, milestoneId: m.id, input: { done: e.target.checked } })
@@ -51,13 +53,12 @@ function MilestoneRow({
       <div className="min-w-0 flex-1">
         <label
           htmlFor={canEdit ? checkId : undefined}
-          className={`block font-semibold break-words ${m.done ? 'text-muted line-through' : 'text-ink'}`}
+          className={`block font-semibold break-words ${done ? 'text-muted line-through' : 'text-ink'}`}
         >
           {m.title}
         </label>
         <p id={`${checkId}-date`} className="text-sm text-muted">
           <time dateTime={m.dueOn}>{longDate(m.dueOn)}</time>
-          {m.done ? ' · done' : ''}
         </p>
         {update.isError && <FormError message="Could not save. Try again." />}
       </div>

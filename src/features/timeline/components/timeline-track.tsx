@@ -65,10 +65,13 @@ export function TimelineTrack({ timeline }: { timeline: Timeline }) {
       <div aria-hidden className="relative h-24 select-none">
         {/* The buffer: from the cut-off to the target. */}
         {target.cutoff && cutoffX < end && (
-          <div
-            className="absolute top-11 h-4 rounded-sm bg-tight-soft"
-            style={{ left: `${cutoffX}%`, width: `${end - cutoffX}%` }}
-          />
+          <>
+            <div
+              className="absolute top-10 h-6 rounded-sm bg-tight/25"
+              style={{ left: `${cutoffX}%`, width: `${end - cutoffX}%` }}
+            />
+            <span className="absolute top-9 h-8 w-0.5 bg-tight" style={{ left: `${cutoffX}%` }} />
+          </>
         )}
         <div className="absolute inset-x-0 top-[3.25rem] h-1 rounded bg-rule-strong" />
         <div
@@ -115,7 +118,9 @@ export function TimelineTrack({ timeline }: { timeline: Timeline }) {
           {upcoming.length} dated {upcoming.length === 1 ? 'item' : 'items'}
           {late ? `, ${late} at risk (ringed in red)` : ''}.
         </span>
-        {target.cutoff && cutoffX < end && <span>Shaded: the buffer after the parts cut-off.</span>}
+        {target.cutoff && cutoffX < end && (
+          <span>Shaded: the buffer from the parts cut-off to the target.</span>
+        )}
       </figcaption>
     </figure>
   );
