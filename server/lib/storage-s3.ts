@@ -23,7 +23,7 @@ import {
 } from '@aws-sdk/client-s3';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
 import type { ObjectStoreSettings } from '../storage-config';
-import { assertValidKey, sha256Hex, type Storage } from './storage';
+import { assertValidKey, sha256Hex, StorageUnavailableError, type Storage } from './storage';
 
 export type S3Storage = Storage &
   Required<Pick<Storage, 'open' | 'head' | 'list'>> & {
@@ -47,6 +47,19 @@ function isNotFound(err: unknown) {
  * a subdomain unless path-style; on AWS itself the regional endpoint. A bucket
  * name with dots cannot be a subdomain under TLS, so the SDK uses the path then.
  */
+/** Errors that say the store is away or overloaded, not that Headroom asked wrongly. */
+function isUnavailable(err: unknown) {
+  const e = err as { name?: string; code?: string; $metadata?: { httpStatusCode?: number } };
+  const status = e?.$metadata?.httpStatusCode;
+  if (status !== undefined) return status >= 500 || status === 429;
+  return (
+    ['TimeoutError', 'RequestTimeout', 'AbortError'].includes(e?.name ?? '') ||
+    /^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|ENOTFOUND|EAI_AGAIN|EHOSTUNREACH|ENETUNREACH)$/.test(
+      e?.code ?? '',
+    )
+  );
+}
+
 export function signedUrlOriginFor(s: ObjectStoreSettings): string {
   const base = new URL(s.publicEndpoint ?? s.endpoint ?? `https://s3.${s.region}.amazonaws.com`);
   const pathStyle = s.forcePathStyle || (s.bucket.includes('.') && base.protocol === 'https:');
@@ -69,12 +82,22 @@ export function createS3Storage(settings: ObjectStoreSettings): S3Storage {
     requestHandler: { connectionTimeout: 3000, requestTimeout: 60_000 },
     maxAttempts: 3,
   });
-  const client = new S3Client(clientConfig(settings.endpoint));
+  const s3 = new S3Client(clientConfig(settings.endpoint));
+  // Every call: an outage becomes StorageUnavailableError (503), anything else is left as it is.
+  const client = {
+    send: (async (command: Parameters<S3Client['send']>[0]) => {
+      try {
+        return await s3.send(command);
+      } catch (err) {
+        throw isUnavailable(err) ? new StorageUnavailableError(err) : err;
+      }
+    }) as S3Client['send'],
+  };
   // Signing needs no network: a second client only to put the public host in the URL.
   const signer =
     settings.publicEndpoint && settings.publicEndpoint !== settings.endpoint
       ? new S3Client(clientConfig(settings.publicEndpoint))
-      : client;
+      : s3;
 
   const store: S3Storage = {
     bucket,
@@ -156,8 +179,8 @@ export function createS3Storage(settings: ObjectStoreSettings): S3Storage {
     },
 
     close() {
-      client.destroy();
-      if (signer !== client) signer.destroy();
+      s3.destroy();
+      if (signer !== s3) signer.destroy();
     },
   };
 

@@ -58,6 +58,23 @@ export interface Storage {
   readonly signedUrlOrigin?: string;
 }
 
+/**
+ * The store cannot be reached or is failing (connection refused, timeout, 5xx,
+ * throttling): a passing condition, answered 503 like a database outage. A
+ * refusal that needs a person (bad credentials, no such bucket) stays a plain
+ * error, logged as such.
+ */
+export class StorageUnavailableError extends Error {
+  constructor(cause: unknown) {
+    super(`file store unavailable: ${cause instanceof Error ? cause.message : String(cause)}`, {
+      cause,
+    });
+    this.name = 'StorageUnavailableError';
+  }
+}
+
+export const isStorageUnavailable = (err: unknown) => err instanceof StorageUnavailableError;
+
 export const sha256Hex = (data: Buffer) => createHash('sha256').update(data).digest('hex');
 
 const keyPattern = /^[a-z0-9][a-z0-9_.-]*(\/[a-z0-9][a-z0-9_.-]*)*$/;

@@ -13,10 +13,11 @@ import { signedUrlGraceSeconds } from '../../server/lib/stored-file';
 import { useTestApp, type TestApp } from '../helpers/app';
 import { buildWithCast, type TestUser } from '../helpers/factories';
 
-// Its own database: the delete-retry test runs a file worker over the queue.
+// Their own databases: the file-removal queue is shared by every app on a database, and
+// these apps' passes over it (the worker, a failed store) must not touch other files' rows.
 const app = useTestApp({}, { objectStore: true, ownDatabase: true });
 // The same store, streamed through the app (S3_PRESIGNED_URLS=0).
-const streamed = useTestApp({}, { objectStore: { presignedUrls: false } });
+const streamed = useTestApp({}, { objectStore: { presignedUrls: false }, ownDatabase: true });
 
 const jpeg = () =>
   sharp({ create: { width: 640, height: 480, channels: 3, background: '#5a7d9a' } })
@@ -177,6 +178,31 @@ describe('serving from the object store', () => {
     expect(res.headers['content-disposition']).toBe(`inline; filename=photo-${photo.id}-web.jpg`);
     expect((await sharp(res.body).metadata()).width).toBe(640);
     expect((await stranger.agent.get(photo.web.url)).status).toBe(404);
+  });
+});
+
+describe('when the object store is away', () => {
+  it('answers an upload 503 storage_unavailable, saving nothing, and serves again once it is back', async () => {
+    const { crew, owner, base, part, build } = await castWithPart(streamed);
+    const before = await uploadPhoto(crew, base, part.id);
+    await streamed.s3.stop();
+    try {
+      const res = await crew.agent
+        .post(`${base}/parts/${part.id}/photos`)
+        .attach('photos', await jpeg(), 'IMG_0002.jpg');
+      expect(res.status).toBe(503);
+      expect(res.headers['retry-after']).toBe('5');
+      expect(res.body.error).toMatchObject({ code: 'storage_unavailable' });
+      // Streaming needs the store too; the record itself is in PostgreSQL.
+      expect((await owner.agent.get(before.web.url)).status).toBe(503);
+      expect((await owner.agent.get(`${base}/photos/${before.id}`)).status).toBe(200);
+    } finally {
+      await streamed.s3.start();
+    }
+    const photos = (await owner.agent.get(`${base}/parts/${part.id}/photos`)).body.photos;
+    expect(photos.map((p: { id: string }) => p.id)).toEqual([before.id]);
+    expect(await keysOf(streamed, build.id)).toHaveLength(2);
+    expect((await owner.agent.get(before.web.url)).status).toBe(200);
   });
 });
 

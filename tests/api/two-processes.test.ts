@@ -15,6 +15,7 @@ import { createDatabase, type Database } from '../../server/lib/database';
 import { createLogger } from '../../server/lib/logger';
 import type { Storage } from '../../server/lib/storage';
 import { createStorage } from '../../server/lib/stores';
+import { createOwnDatabase } from '../helpers/database';
 import { buildInput, password, uniqueEmail } from '../helpers/factories';
 import { startFakeS3, type FakeS3 } from '../helpers/s3';
 
@@ -24,11 +25,14 @@ const publicOrigin = 'http://headroom.test';
 type Process = { url: string; server: Server; db: Database; storage: Storage & { close?(): void } };
 
 let s3: FakeS3;
+let database: Awaited<ReturnType<typeof createOwnDatabase>>;
 const processes: Process[] = [];
 
 beforeAll(async () => {
   s3 = await startFakeS3();
   const base = loadConfig({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' });
+  // Its own database, so its file-removal passes meet only its own files.
+  database = await createOwnDatabase(base.databaseUrl);
   const rateLimitPrefix = `test-${randomUUID()}:`;
   for (let i = 0; i < 2; i++) {
     const server = createServer();
@@ -36,6 +40,7 @@ beforeAll(async () => {
     const { port } = server.address() as AddressInfo;
     const config: AppConfig = {
       ...base,
+      databaseUrl: database.databaseUrl,
       port,
       serveClient: false,
       appUrl: publicOrigin,
@@ -59,6 +64,7 @@ afterAll(async () => {
     await p.db.close();
     p.storage.close?.();
   }
+  await database?.drop();
   await s3?.close();
 });
 
