@@ -252,6 +252,19 @@ describe.each(stores)('storage contract: $name', ({ make, s3, signs }) => {
     expect(inline.headers.get('content-disposition')).toBe('inline; filename=p.jpg');
   });
 
+  it.runIf(!s3)('answers a revisit with 304 when the file has not changed', async () => {
+    await storage.put('builds/b10/photos/p/web.jpg', bytes('jpeg'), 'image/jpeg');
+    const url = `${base}/file?key=builds/b10/photos/p/web.jpg`;
+    const first = await fetch(url);
+    const etag = first.headers.get('etag');
+    expect(etag).toMatch(/^W\/"/);
+    // As a browser revalidates (fetch itself would add Cache-Control: no-cache).
+    const revalidate = { 'If-None-Match': etag!, 'Cache-Control': 'max-age=0' };
+    expect((await fetch(url, { headers: revalidate })).status).toBe(304);
+    await storage.put('builds/b10/photos/p/web.jpg', bytes('other jpeg'), 'image/jpeg');
+    expect((await fetch(url, { headers: revalidate })).status).toBe(200);
+  });
+
   it('answers 404 for a file that is not there', async () => {
     const res = await fetch(`${base}/file?key=builds/none/photos/x/web.jpg`);
     expect(res.status).toBe(404);
