@@ -67,6 +67,7 @@ async function stop(signal: string) {
   // Queued mail stays in PostgreSQL; a pass under way finishes first.
   await mailWorker.stop();
   await fileWorker.stop();
+  storage.close?.();
   mailer.close();
   await catcher?.close();
   await db.close().catch(() => undefined);
