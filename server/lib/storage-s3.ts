@@ -41,12 +41,6 @@ function isNotFound(err: unknown) {
   return e?.name === 'NoSuchKey' || e?.name === 'NotFound' || e?.$metadata?.httpStatusCode === 404;
 }
 
-/**
- * The origin of the URLs the SDK signs for these settings (checked against the
- * SDK in tests/unit/storage-config.test.ts): the endpoint's, with the bucket as
- * a subdomain unless path-style; on AWS itself the regional endpoint. A bucket
- * name with dots cannot be a subdomain under TLS, so the SDK uses the path then.
- */
 /** Errors that say the store is away or overloaded, not that Headroom asked wrongly. */
 function isUnavailable(err: unknown) {
   const e = err as { name?: string; code?: string; $metadata?: { httpStatusCode?: number } };
@@ -60,6 +54,12 @@ function isUnavailable(err: unknown) {
   );
 }
 
+/**
+ * The origin of the URLs the SDK signs for these settings (checked against the
+ * SDK in tests/unit/storage-config.test.ts): the endpoint's, with the bucket as
+ * a subdomain unless path-style; on AWS itself the regional endpoint. A bucket
+ * name with dots cannot be a subdomain under TLS, so the SDK uses the path then.
+ */
 export function signedUrlOriginFor(s: ObjectStoreSettings): string {
   const base = new URL(s.publicEndpoint ?? s.endpoint ?? `https://s3.${s.region}.amazonaws.com`);
   const pathStyle = s.forcePathStyle || (s.bucket.includes('.') && base.protocol === 'https:');
