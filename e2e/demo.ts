@@ -19,6 +19,11 @@ export type Demo = {
   /** "Seat the injectors and torque the hold-downs": torque specs, a check, a photo, and a
    *  shop's part linked, so every role can open it. */
   stepId: string;
+  /** The injector set's "As received" and "After rebuild" bench sheets (entered by the demo shop). */
+  benchSheetId: string;
+  laterBenchSheetId: string;
+  /** The dyno day (not assigned to the demo shop). */
+  dynoSessionId: string;
 };
 
 const demoBuildName = 'Gravel Hauler';
@@ -60,7 +65,20 @@ async function seedOrFind(): Promise<Demo> {
     const step = await knex('install_steps')
       .where({ build_id: build!.id, title: demoStepTitle })
       .first<{ id: string }>('id');
-    return { buildId: build!.id, stepId: step.id };
+    const sheets = await knex('bench_sheets')
+      .where({ build_id: build!.id })
+      .orderBy('tested_on')
+      .select<{ id: string }[]>('id');
+    const session = await knex('dyno_sessions')
+      .where({ build_id: build!.id })
+      .first<{ id: string }>('id');
+    return {
+      buildId: build!.id,
+      stepId: step.id,
+      benchSheetId: sheets[0].id,
+      laterBenchSheetId: sheets[sheets.length - 1].id,
+      dynoSessionId: session.id,
+    };
   } finally {
     await knex.destroy();
   }

@@ -80,6 +80,16 @@ export const pages: readonly PageCheck[] = [
   { name: 'step photo viewer', path: step, roles: members, dialog: { button: /^Open “/, name: /^Photo 1 of / } },
   { name: 'photos', path: photos, roles: members },
   { name: 'photo viewer', path: photos, roles: members, dialog: { button: /^Open “/, name: /^Photo 1 of / } },
+
+  { name: 'bench results', path: (c) => b.bench.getHref(c.buildId), roles: members },
+  { name: 'bench sheet', path: (c) => b.benchSheet.getHref(c.buildId, c.benchSheetId), roles: members },
+  { name: 'bench sheet entry', path: (c) => b.benchEdit.getHref(c.buildId, c.benchSheetId), roles: ['owner', 'shop'] },
+  { name: 'bench comparison', path: (c) => b.benchCompare.getHref(c.buildId, c.benchSheetId, c.laterBenchSheetId), roles: members },
+  { name: 'dyno days', path: (c) => b.dyno.getHref(c.buildId), roles: members },
+  { name: 'new-dyno-session dialog', path: (c) => b.dyno.getHref(c.buildId), roles: hands, dialog: { button: 'New dyno session', name: 'New dyno session' } },
+  // The demo's dyno day is not assigned to the demo shop, which therefore cannot open it.
+  { name: 'dyno session', path: (c) => b.dynoSession.getHref(c.buildId, c.dynoSessionId), roles: ['owner', 'crew', 'viewer'] },
+  { name: 'edit-dyno-session dialog', path: (c) => b.dynoSession.getHref(c.buildId, c.dynoSessionId), roles: hands, dialog: { button: 'Edit session', name: 'Edit the dyno session' } },
 ];
 
 /** Waits until the page shows its data: its heading, and no loading spinner left in it. */
