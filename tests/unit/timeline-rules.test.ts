@@ -5,7 +5,9 @@
  * MST, UTC−7 → MDT, UTC−6), so "today" comes from real instants through the
  * zone, as the server does. Target 20 March 2027, buffer 7 days: cut-off 13 March.
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { threatRules } from '../../shared/schemas/timeline';
 import { todayIn } from '../../shared/dates';
 import { jobItems, partItems } from '../../shared/timeline/items';
 import {
@@ -258,5 +260,14 @@ describe('dated items of a part', () => {
       date: '2027-03-09',
       detail: 'Expected from Dustline',
     });
+  });
+});
+
+describe('the README', () => {
+  it('states every rule the server applies, one row of its rules table each', () => {
+    const readme = readFileSync(new URL('../../README.md', import.meta.url), 'utf8');
+    const section = readme.slice(readme.indexOf('**What threatens the date.**'));
+    const rows = [...section.matchAll(/^\| `([a-z-]+)` +\|/gm)].map((m) => m[1]);
+    expect(rows).toEqual([...threatRules]);
   });
 });
