@@ -230,14 +230,24 @@ export function milestoneThreats(m: MilestoneFacts, clock: Clock): Threat[] {
   ];
 }
 
-/** The readiness line: "On track", "1 thing threatens the date", "3 things threaten the date". */
-export function readinessOf(threats: Threat[], clock: Clock): Readiness {
+/**
+ * The readiness line: "On track", "1 thing threatens the date", "3 things threaten the date".
+ * A shop judges only the parts sent to it, so its line says so ("Your parts are on track"):
+ * a plain "On track" would read as the whole build's.
+ */
+export function readinessOf(
+  threats: Threat[],
+  clock: Clock,
+  seen: 'whole-build' | 'own-parts' = 'whole-build',
+): Readiness {
   if (!clock.target) return { state: 'no-target', words: 'No target date set' };
   if (clock.today > clock.target) return { state: 'passed', words: 'The target date has passed' };
   const n = threats.length;
-  if (n === 0) return { state: 'on-track', words: 'On track' };
+  const own = seen === 'own-parts';
+  if (n === 0) return { state: 'on-track', words: own ? 'Your parts are on track' : 'On track' };
+  const things = own ? `of your parts` : n === 1 ? 'thing' : 'things';
   return {
     state: 'threatened',
-    words: n === 1 ? '1 thing threatens the date' : `${n} things threaten the date`,
+    words: `${n} ${things} ${n === 1 ? 'threatens' : 'threaten'} the date`,
   };
 }

@@ -93,7 +93,7 @@ describe('the weekly timeline digest', () => {
 
     // The shop's digest names only the part sent to it.
     const [shopMail] = await digestsTo(s.shop.email);
-    expect(shopMail.subject).toBe('Test hauler this week: 1 thing threatens the date');
+    expect(shopMail.subject).toBe('Test hauler this week: 1 of your parts threatens the date');
     expect(shopMail.textBody).toContain('Injectors at the bench');
     expect(shopMail.textBody).not.toContain('Intercooler');
     expect(shopMail.textBody).toContain('As a shop, you see only the parts sent to you.');

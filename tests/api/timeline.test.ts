@@ -194,11 +194,13 @@ describe('GET /api/builds/:buildId/timeline', () => {
       [`target:${s.build.id}`, `send-out-due:${s.shopPart.id}`].sort(),
     );
     expect(t.threats).toEqual([]);
-    expect(t.readiness.words).toBe('On track');
+    // Its line speaks of its own parts: a plain "On track" would read as the whole build's.
+    expect(t.readiness).toEqual({ state: 'on-track', words: 'Your parts are on track' });
     expect(t.milestones).toBeNull();
     expect(JSON.stringify(res.body)).not.toMatch(/Late intercooler|Transmission|Order the turbo/);
     const other = await timelineOf(s.otherShop.agent, s.base);
     expect(other.threats.map((x) => x.title)).toEqual(['Transmission at another shop']);
+    expect(other.readiness.words).toBe('1 of your parts threatens the date');
   });
 
   it('carries dyno days as dated items: every one for the owner, a shop only those at its dyno', async () => {

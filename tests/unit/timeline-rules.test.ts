@@ -233,6 +233,19 @@ describe('the readiness line', () => {
     expect(readinessOf([], { ...early, target: null }).state).toBe('no-target');
     expect(readinessOf([], at('2027-03-21T12:00:00Z')).state).toBe('passed');
   });
+
+  it('tells a shop, which sees only the parts sent to it, that it speaks of those', () => {
+    expect(readinessOf([], early, 'own-parts')).toEqual({
+      state: 'on-track',
+      words: 'Your parts are on track',
+    });
+    expect(readinessOf(threats, early, 'own-parts').words).toBe(
+      '1 of your parts threatens the date',
+    );
+    expect(readinessOf([...threats, ...threats], early, 'own-parts').words).toBe(
+      '2 of your parts threaten the date',
+    );
+  });
 });
 
 describe('dated items of a part', () => {

@@ -13,6 +13,9 @@ import { timelinePath } from './links';
 
 const comingUpDays = 14;
 
+/** "On track" → "on track" after a colon; "2 things …" stays as it is. */
+const lowerFirst = (words: string) => words.charAt(0).toLowerCase() + words.slice(1);
+
 function countdown(t: Timeline): string {
   const what = t.target.event || 'the target date';
   if (t.target.daysLeft === 0) return `Today is ${what}.`;
@@ -61,7 +64,7 @@ export function digestMail(o: {
   return {
     kind: 'digest:timeline',
     to: o.to,
-    subject: `${o.buildName} this week: ${t.readiness.words.replace(/^On track$/, 'on track')}`,
+    subject: `${o.buildName} this week: ${lowerFirst(t.readiness.words)}`,
     heading: `The week of ${shortDate(o.weekOf)}`,
     body: paragraphs.join('\n\n'),
     action: { label: 'Open the timeline', path: timelinePath(o.buildId) },

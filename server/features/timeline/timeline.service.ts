@@ -69,7 +69,8 @@ export async function loadTimeline(
       daysLeft: daysLeftOf(clock),
       cutoff: cutoffOf(clock),
     },
-    readiness: readinessOf(threats, clock),
+    // A shop sees only the parts sent to it: its line speaks of those.
+    readiness: readinessOf(threats, clock, caller.role === 'shop' ? 'own-parts' : 'whole-build'),
     threats,
     items: judgeItems(items, threats),
     milestones,
