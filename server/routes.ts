@@ -32,6 +32,12 @@ import { membersRouter } from './features/members/members.router';
 import { noticePreferencesRouter } from './features/notices/notices.router';
 import { partsCsvRouter, partsRouter } from './features/parts/parts.router';
 import { photosRouter, subjectPhotosRouter } from './features/photos/photos.router';
+import {
+  calendarFeedRouter,
+  calendarFeedsRouter,
+  milestonesRouter,
+  timelineRouter,
+} from './features/timeline/timeline.router';
 
 /** `anonymous`: served before the session is read (no cookie lookup), e.g. the health check. */
 export type Mount = { path: string; router: Router; anonymous?: boolean };
@@ -41,6 +47,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
   const b = '/builds/:buildId';
   return [
     { path: '/health', router: healthRouter(deps), anonymous: true },
+    // Phone calendars fetch a feed with its secret token and no session.
+    { path: '/calendar-feeds', router: calendarFeedsRouter(deps), anonymous: true },
     { path: '/auth/password-reset', router: passwordResetRouter(deps) },
     { path: '/auth', router: authRouter(deps) },
     { path: '/me', router: meRouter() },
@@ -66,6 +74,9 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/bench-sheets`, router: benchSheetsRouter(deps) },
     { path: `${b}/dyno-sessions`, router: dynoSessionsRouter(deps) },
     { path: `${b}/dyno-runs`, router: dynoRunsRouter(deps) },
+    { path: `${b}/timeline`, router: timelineRouter(deps) },
+    { path: `${b}/milestones`, router: milestonesRouter(deps) },
+    { path: `${b}/calendar-feed`, router: calendarFeedRouter(deps) },
   ];
 }
 

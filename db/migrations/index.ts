@@ -14,6 +14,7 @@ import * as m0050 from './20261202005000_create_file_deletions';
 import * as m0051 from './20261202005100_create_invitation_sends';
 import * as m0060 from './20261202006000_create_bench_sheets';
 import * as m0070 from './20261202007000_create_dyno_sessions';
+import * as m0090 from './20261202009000_create_timeline';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -37,6 +38,7 @@ const migrations: Record<string, Migration> = {
   '20261202005100_create_invitation_sends': m0051,
   '20261202006000_create_bench_sheets': m0060,
   '20261202007000_create_dyno_sessions': m0070,
+  '20261202009000_create_timeline': m0090,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -10,3 +10,10 @@ export const visibleSteps = (knex: Knex, buildId: string, caller: Caller) =>
 /** A step the caller may see, or 404 (a malformed id, another build's step, or hidden from a shop). */
 export const getVisibleStep = (knex: Knex, buildId: string, rawStepId: string, caller: Caller) =>
   loadStep({ knex, buildId, caller }, rawStepId);
+
+/** Each job's steps done and left, and the parts unfinished steps need: for the timeline. */
+export {
+  listJobProgress,
+  listPartsNeededByOpenSteps,
+  type JobProgress,
+} from './progress.repository';

@@ -1,6 +1,7 @@
 import { NavLink, Outlet, useParams } from 'react-router-dom';
 import {
   Activity,
+  CalendarClock,
   Camera,
   ClipboardList,
   Droplets,
@@ -27,6 +28,7 @@ type Tab = {
 /** The sections of a build, in the order the work goes. Budget only for roles that see money. */
 const tabs: Tab[] = [
   { label: 'Overview', href: paths.builds.overview.getHref, icon: LayoutDashboard, end: true },
+  { label: 'Timeline', href: paths.builds.timeline.getHref, icon: CalendarClock },
   { label: 'Parts', href: paths.builds.parts.getHref, icon: Package },
   { label: 'Send-outs', href: paths.builds.sendOuts.getHref, icon: Truck },
   { label: 'Budget', href: paths.builds.budget.getHref, icon: PiggyBank, needs: 'budget:read' },
