@@ -31,6 +31,7 @@ import { membersRouter } from './features/members/members.router';
 import { noticePreferencesRouter } from './features/notices/notices.router';
 import { partsCsvRouter, partsRouter } from './features/parts/parts.router';
 import { photosRouter, subjectPhotosRouter } from './features/photos/photos.router';
+import { wrenchesRouter } from './features/wrenches/wrenches.router';
 
 /** `anonymous`: served before the session is read (no cookie lookup), e.g. the health check. */
 export type Mount = { path: string; router: Router; anonymous?: boolean };
@@ -42,6 +43,7 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: '/health', router: healthRouter(deps), anonymous: true },
     { path: '/auth/password-reset', router: passwordResetRouter(deps) },
     { path: '/auth', router: authRouter(deps) },
+    { path: '/me/wrenches', router: wrenchesRouter(deps) },
     { path: '/me', router: meRouter() },
     { path: '/estimate', router: estimateRouter(deps) },
     { path: '/invitations', router: invitationLinksRouter(deps) },

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { roles } from '../permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
 import { emailSchema } from './auth';
+import { maxCalibrationMonths, minCalibrationMonths } from '../install-log/wrenches';
 
 export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
 import { aspirations, powerBases } from '../builds/vocabulary';
@@ -55,6 +56,13 @@ export const buildFieldsSchema = z.object({
   targetEvent: trimmed(200, 'Event').optional(),
   budgetCents: centsSchema.optional(),
   currency: currencySchema.optional(),
+  /** Months a torque wrench's calibration holds on this build (default 12); older readings are flagged. */
+  wrenchCalibrationMonths: z
+    .number({ message: 'Enter months' })
+    .int({ message: 'A whole number of months' })
+    .min(minCalibrationMonths, { message: `At least ${minCalibrationMonths} month` })
+    .max(maxCalibrationMonths, { message: `At most ${maxCalibrationMonths} months` })
+    .optional(),
 });
 
 export const createBuildInputSchema = buildFieldsSchema.strict();
@@ -87,6 +95,7 @@ export type Build = {
   targetEvent: string;
   budgetCents?: number;
   currency: (typeof currencies)[number];
+  wrenchCalibrationMonths: number;
   id: string;
   myRole: (typeof roles)[number];
   memberCount: number;

@@ -106,8 +106,8 @@ describe('install log: jobs, steps, checklist and fastener specs', () => {
     expect(spec.alt.unit).toBe('n-m');
     expect(spec.alt.target).toBeCloseTo(135.582, 3); // NIST SP 811 (2008) B.9: 100 × 1.355818
     expect(spec.positions).toEqual([
-      { position: 1, current: null, retorque: null, supersededCount: 0 },
-      { position: 2, current: null, retorque: null, supersededCount: 0 },
+      { position: 1, current: null, retorque: null, stages: [null, null], supersededCount: 0 },
+      { position: 2, current: null, retorque: null, stages: [null, null], supersededCount: 0 },
     ]);
 
     const step = (await owner.agent.get(`${base}/steps/${stepA.id}`)).body.step;

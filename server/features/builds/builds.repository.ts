@@ -21,6 +21,7 @@ const columns = {
   targetEvent: 'target_event',
   budgetCents: 'budget_cents',
   currency: 'currency',
+  wrenchCalibrationMonths: 'wrench_calibration_months',
 } as const satisfies Record<keyof CreateBuildInput, string>;
 
 type Row = Record<string, unknown> & {
