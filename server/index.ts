@@ -6,6 +6,7 @@ import { startMailCatcher, type MailCatcher } from './lib/mail-catcher';
 import { createMailer } from './lib/mailer';
 import { createFileWorker } from './features/files';
 import { createMailWorker } from './features/mail';
+import { createOverdueWorker } from './features/parts';
 import { createLocalDiskStorage } from './lib/storage';
 
 const config = loadConfig();
@@ -46,6 +47,9 @@ mailWorker.start();
 // Files of deleted rows that could not be removed at once are retried here.
 const fileWorker = createFileWorker({ knex: db.knex, storage, logger });
 fileWorker.start();
+// Parts overdue at a shop: told to the owner and the shop once per spell (see parts.overdue.ts).
+const overdueWorker = createOverdueWorker({ knex: db.knex, logger, pollMs: config.overduePollMs });
+overdueWorker.start();
 
 const server = app.listen(config.port, config.host, () => {
   logger.info(`Headroom is listening on http://${config.host}:${config.port}`);
@@ -65,6 +69,7 @@ async function stop(signal: string) {
   // Queued mail stays in PostgreSQL; a pass under way finishes first.
   await mailWorker.stop();
   await fileWorker.stop();
+  await overdueWorker.stop();
   mailer.close();
   await catcher?.close();
   await db.close().catch(() => undefined);
