@@ -5,7 +5,8 @@
  */
 import type { Router } from 'express';
 import type { AppDeps } from './lib/deps';
-import { authRouter, meRouter } from './features/auth/auth.router';
+import { emailChangesRouter, meRouter } from './features/auth/account.router';
+import { authRouter } from './features/auth/auth.router';
 import { benchSheetsRouter } from './features/bench/bench.router';
 import { passwordResetRouter } from './features/auth/password-reset.router';
 import { budgetRouter } from './features/budget/budget.router';
@@ -44,7 +45,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: '/auth/password-reset', router: passwordResetRouter(deps) },
     { path: '/auth', router: authRouter(deps) },
     { path: '/me/wrenches', router: wrenchesRouter(deps) },
-    { path: '/me', router: meRouter() },
+    { path: '/me', router: meRouter(deps) },
+    { path: '/email-changes', router: emailChangesRouter(deps) },
     { path: '/estimate', router: estimateRouter(deps) },
     { path: '/invitations', router: invitationLinksRouter(deps) },
     { path: '/builds', router: buildsRouter(deps) },

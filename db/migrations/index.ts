@@ -17,6 +17,7 @@ import * as m0080 from './20261202008000_add_reading_stages_and_position_names';
 import * as m0081 from './20261202008100_create_torque_wrenches';
 import * as m0082 from './20261202008200_add_step_caution_choices';
 import * as m0083 from './20261202008300_create_part_overdue_notices';
+import * as m0084 from './20261202008400_create_email_changes';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -43,6 +44,7 @@ const migrations: Record<string, Migration> = {
   '20261202008100_create_torque_wrenches': m0081,
   '20261202008200_add_step_caution_choices': m0082,
   '20261202008300_create_part_overdue_notices': m0083,
+  '20261202008400_create_email_changes': m0084,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
