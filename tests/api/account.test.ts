@@ -65,7 +65,7 @@ describe('my e-mail address', () => {
     // The old address is told, with the way back.
     await app.mail.deliver();
     const [told] = (await app.mail.to(user.email)).filter((m) =>
-      /address was changed/.test(m.subject),
+      /address was changed/.test(m.subject ?? ''),
     );
     expect(told.textBody).toContain(next);
     expect(told.textBody).toContain('/forgot-password');
