@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { roles } from '../permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
-import { emailSchema } from './auth';
 import { maxCalibrationMonths, minCalibrationMonths } from '../install-log/wrenches';
 
 export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
@@ -102,9 +101,6 @@ export type Build = {
   createdAt: string;
   updatedAt: string;
 };
-
-export const addMemberInputSchema = z.object({ email: emailSchema, role: roleSchema }).strict();
-export type AddMemberInput = z.infer<typeof addMemberInputSchema>;
 
 export const updateMemberInputSchema = z.object({ role: roleSchema }).strict();
 export type UpdateMemberInput = z.infer<typeof updateMemberInputSchema>;
