@@ -5,6 +5,7 @@
  */
 import type { Router } from 'express';
 import type { AppDeps } from './lib/deps';
+import { activityRouter } from './features/activity/activity.router';
 import { emailChangesRouter, meRouter } from './features/auth/account.router';
 import { authRouter } from './features/auth/auth.router';
 import { benchSheetsRouter } from './features/bench/bench.router';
@@ -53,6 +54,7 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/members`, router: membersRouter(deps) },
     { path: `${b}/invitations`, router: buildInvitationsRouter(deps) },
     { path: `${b}/notice-preferences`, router: noticePreferencesRouter(deps) },
+    { path: `${b}/activity`, router: activityRouter(deps) },
     { path: `${b}/parts.csv`, router: partsCsvRouter(deps) },
     { path: `${b}/parts/:partId/photos`, router: subjectPhotosRouter(deps, 'partId') },
     { path: `${b}/parts`, router: partsRouter(deps) },
