@@ -22,7 +22,7 @@ export const buildFieldsSchema = z.object({
   engineDescription: trimmed(200, 'Engine').optional(),
   displacementLiters: optionalNumber(
     z
-      .number({ message: 'Enter litres, e.g. 6.7' })
+      .number({ message: 'Enter liters, e.g. 6.7' })
       .min(0.5, { message: 'At least 0.5 L' })
       .max(20, { message: 'At most 20 L' }),
   ),
