@@ -28,7 +28,8 @@ export default tseslint.config(
         {
           paths: ['express', 'knex', 'pg', 'react', 'react-dom'].map((name) => ({
             name,
-            message: 'shared/ is pure code used by client and server: no server or browser libraries.',
+            message:
+              'shared/ is pure code used by client and server: no server or browser libraries.',
           })),
           patterns: [
             {

@@ -7,6 +7,12 @@ import path from 'node:path';
 const chromium = ['/usr/lib/chromium/chromium', '/usr/bin/chromium'].find((p) => fs.existsSync(p));
 const port = Number(process.env.E2E_PORT ?? 3100);
 const baseURL = `http://127.0.0.1:${port}`;
+// Uploaded photos go to a throwaway folder, never into the checkout's .data/uploads. Set in the
+// environment so the specs (which run in workers) write seeded photos where the server reads them.
+const storageDir = (process.env.E2E_STORAGE_DIR ??= path.join(
+  os.tmpdir(),
+  `headroom-e2e-uploads-${port}`,
+));
 
 export default defineConfig({
   testDir: 'e2e',
@@ -51,9 +57,7 @@ export default defineConfig({
       // No SMTP settings: the server runs its mail catcher here; specs read it at /dev/mail.
       MAIL_CATCHER_PORT: process.env.E2E_MAIL_PORT ?? String(port + 1),
       MAIL_DIR: process.env.E2E_MAIL_DIR ?? path.join(os.tmpdir(), `headroom-e2e-mail-${port}`),
-      // Uploaded photos go to a throwaway folder, never into the checkout's .data/uploads.
-      STORAGE_DIR:
-        process.env.E2E_STORAGE_DIR ?? path.join(os.tmpdir(), `headroom-e2e-uploads-${port}`),
+      STORAGE_DIR: storageDir,
       // npm test builds the client into its own folder; by hand, the checkout's dist/.
       ...(process.env.E2E_CLIENT_DIR ? { CLIENT_DIR: process.env.E2E_CLIENT_DIR } : {}),
       APP_URL: baseURL,

@@ -1,4 +1,4 @@
-import { expect, type Page } from '@playwright/test';
+import { expect, request, type APIRequestContext, type Page } from '@playwright/test';
 import { randomUUID } from 'node:crypto';
 
 export const password = 'garage-door-open-2027';
@@ -22,4 +22,27 @@ export async function signInThroughPage(page: Page, email: string, pw = password
   await page.getByLabel('Password').fill(pw);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await expect(page.getByRole('heading', { name: 'My builds' })).toBeVisible();
+}
+
+/** A JSON POST with the Origin the server's CSRF check asks for; fails the test unless 2xx. */
+export async function postJson<T = unknown>(
+  api: APIRequestContext,
+  origin: string,
+  url: string,
+  data: unknown,
+): Promise<T> {
+  const response = await api.post(url, { data, headers: { Origin: origin } });
+  expect(response.ok(), `POST ${url}: ${response.status()} ${await response.text()}`).toBe(true);
+  return (await response.json()) as T;
+}
+
+/**
+ * A new account made through the API. `api` is signed in as it (dispose it when done);
+ * `storageState` signs a browser context in: `browser.newContext({ storageState })`.
+ */
+export async function signUpThroughApi(baseURL: string, displayName: string, prefix: string) {
+  const api = await request.newContext({ baseURL });
+  const email = uniqueEmail(prefix);
+  await postJson(api, baseURL, '/api/auth/sign-up', { email, password, displayName });
+  return { api, email, storageState: await api.storageState() };
 }

@@ -116,6 +116,8 @@ test('a forgotten password is replaced through the link in the mail', async ({ p
   await page.getByRole('button', { name: 'Sign out' }).click();
 
   await page.getByRole('link', { name: 'Forgot your password?' }).click();
+  // The sign-in page has an E-mail field too: wait for the new page before typing.
+  await expect(page.getByRole('heading', { name: 'Forgot your password?' })).toBeVisible();
   await page.getByLabel('E-mail').fill(email);
   await page.getByRole('button', { name: 'E-mail me a link' }).click();
   await expect(page.getByText(/a link to set a new password is on its way/)).toBeVisible();

@@ -49,19 +49,27 @@ export function linkTo(mail: CaughtMail, clientPath: string): string {
  * link. Returns their user id.
  */
 export async function joinByInvitation(
-  owner: Page,
-  member: Page,
-  p: { buildId: string; email: string; role: 'crew' | 'shop' | 'viewer' | 'owner' },
+  owner: Page | APIRequestContext,
+  member: Page | APIRequestContext,
+  p: {
+    buildId: string;
+    email: string;
+    role: 'crew' | 'shop' | 'viewer' | 'owner';
+    /** The app's origin; needed when `owner` is an API context rather than a page. */
+    origin?: string;
+  },
 ): Promise<string> {
-  const origin = new URL(owner.url()).origin;
-  const sent = await owner.request.post(`/api/builds/${p.buildId}/invitations`, {
+  const ownerRequest = 'request' in owner ? owner.request : owner;
+  const memberRequest = 'request' in member ? member.request : member;
+  const origin = p.origin ?? new URL((owner as Page).url()).origin;
+  const sent = await ownerRequest.post(`/api/builds/${p.buildId}/invitations`, {
     data: { email: p.email, role: p.role },
     headers: { Origin: origin },
   });
   expect(sent.ok(), await sent.text()).toBe(true);
-  const mail = await waitForMail(owner.request, p.email, /invited to a build on Headroom/);
+  const mail = await waitForMail(ownerRequest, p.email, /invited to a build on Headroom/);
   const token = linkTo(mail, '/invite/').split('/').pop()!;
-  const accepted = await member.request.post(`/api/invitations/${token}/accept`, {
+  const accepted = await memberRequest.post(`/api/invitations/${token}/accept`, {
     data: {},
     headers: { Origin: origin },
   });

@@ -155,3 +155,70 @@ test('the owner builds a ledger, moves a part in its row and the budget follows;
   expect(text).not.toMatch(/\$|1,800|3,290|subtotal/i);
   await crew.close();
 });
+
+test('the ledger counts parts, not category rows: 32 parts all listed, 45 listed 40 then 5 more', async ({
+  page,
+  baseURL,
+}) => {
+  const headers = { Origin: baseURL! };
+  await signUpThroughPage(page, 'Tess Marlowe', uniqueEmail('ledger-paging'));
+  const created = await page.request.post('/api/builds', {
+    headers,
+    data: {
+      name: 'Parts Mule',
+      cylinders: 6,
+      aspiration: 'single-turbo',
+      targetPowerHp: 600,
+      targetPowerBasis: 'crank',
+    },
+  });
+  const buildId = ((await created.json()) as { build: { id: string } }).build.id;
+  const add = async (category: string, name: string) => {
+    const res = await page.request.post(`/api/builds/${buildId}/parts`, {
+      headers,
+      data: { category, name },
+    });
+    expect(res.status(), await res.text()).toBe(201);
+  };
+  // 32 parts over 12 categories: 44 rows with their headers, more than the 40 a step lists.
+  const categories = [
+    'fuel-injection',
+    'fuel-supply',
+    'turbocharger',
+    'air-intake',
+    'exhaust',
+    'head-and-studs',
+    'bottom-end',
+    'transmission',
+    'torque-converter',
+    'driveline',
+    'cooling',
+    'tuning',
+  ];
+  for (let i = 0; i < 32; i += 1)
+    await add(categories[i % 12], `Part ${String(i + 1).padStart(2, '0')}`);
+
+  await page.goto(`/builds/${buildId}/parts`);
+  const ledger = page.getByRole('table', { name: /Parts ledger/ });
+  // A part's row is headed by its name (scope="row"); a category's by scope="rowgroup".
+  const partRows = ledger.locator('tbody th[scope="row"]');
+  await expect(page.getByText('32 parts', { exact: true })).toBeVisible();
+  await expect(partRows).toHaveCount(32);
+  await expect(page.getByRole('button', { name: /^Show \d+ more$/ })).toHaveCount(0);
+
+  for (let i = 32; i < 45; i += 1) await add('other', `Part ${i + 1}`);
+  await page.reload();
+  await expect(partRows).toHaveCount(40);
+  await expect(page.getByTestId('ledger-listing')).toContainText('Listing 40 of 45 parts');
+  // The list stops inside "Other": its header is listed with its first parts, and says so.
+  await expect(page.getByRole('button', { name: /^Other 13 parts, 8 listed$/ })).toBeVisible();
+  // No category header is listed without a part of its own under it.
+  const rowKinds = await ledger
+    .locator('tbody > tr')
+    .evaluateAll((rows) => rows.map((r) => (r.querySelector('th[scope="rowgroup"]') ? 'h' : 'p')));
+  expect(rowKinds.at(-1)).toBe('p');
+  expect(rowKinds.join('')).not.toMatch(/hh/);
+  await page.getByRole('button', { name: 'Show 5 more' }).click();
+  await expect(partRows).toHaveCount(45);
+  await expect(page.getByTestId('ledger-listing')).toHaveCount(0);
+});

@@ -58,7 +58,8 @@ if [ "${HEADROOM_SKIP_BUILD:-0}" = "1" ]; then
   say "client build skipped (HEADROOM_SKIP_BUILD=1)"
 else
   say "building the client"
-  npx vite build --logLevel warn
+  # Built as it ships (production React), whatever NODE_ENV the server will run with.
+  env NODE_ENV=production npx vite build --logLevel warn
 fi
 
 # development, not production: a local run shows its caught mail at /dev/mail, which

@@ -63,7 +63,8 @@ if [ "$VITEST_RC" != "0" ] && [ "$VF" = "0" ]; then FAILED=$((FAILED + 1)); FAIL
 
 # Built into the throwaway folder, so a running `npm start` keeps serving its own dist/.
 export E2E_CLIENT_DIR="$WORK/dist"
-check "client build" npx vite build --logLevel warn --outDir "$E2E_CLIENT_DIR" --emptyOutDir
+# NODE_ENV is "test" for the suites above; the client is built as it ships (production React).
+check "client build" env NODE_ENV=production npx vite build --logLevel warn --outDir "$E2E_CLIENT_DIR" --emptyOutDir
 
 say "end-to-end tests (Playwright in Chromium)"
 export E2E_PORT="$(free_port)"

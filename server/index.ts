@@ -7,7 +7,7 @@ import { createMailer } from './lib/mailer';
 import { createFileWorker } from './features/files';
 import { createMailWorker } from './features/mail';
 import { createOverdueWorker } from './features/parts';
-import { createLocalDiskStorage } from './lib/storage';
+import { createStorage, describeStorage } from './lib/stores';
 
 const config = loadConfig();
 const logger = createLogger(config.logLevel);
@@ -15,7 +15,9 @@ const db = createDatabase(config.databaseUrl, {
   // PostgreSQL restarting drops idle connections; the pool replaces them on the next request.
   onError: (err) => logger.warn({ err: err.message }, 'a database connection was dropped'),
 });
-const storage = createLocalDiskStorage(config.storageDir);
+// The local disk, or the object store with STORAGE=s3 (shared by every app process).
+const storage = createStorage(config);
+logger.info(describeStorage(config));
 const app = createApp({ db, config, logger, storage });
 
 // Mail: without SMTP settings a local catcher keeps every message under MAIL_DIR
@@ -70,6 +72,7 @@ async function stop(signal: string) {
   await mailWorker.stop();
   await fileWorker.stop();
   await overdueWorker.stop();
+  storage.close?.();
   mailer.close();
   await catcher?.close();
   await db.close().catch(() => undefined);

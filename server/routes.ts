@@ -12,6 +12,7 @@ import { benchSheetsRouter } from './features/bench/bench.router';
 import { passwordResetRouter } from './features/auth/password-reset.router';
 import { budgetRouter } from './features/budget/budget.router';
 import { buildsRouter } from './features/builds/builds.router';
+import { dynoRunsRouter, dynoSessionsRouter } from './features/dyno/dyno.router';
 import {
   assumptionsRouter,
   buildEstimateRouter,
@@ -69,6 +70,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/retorque-checks`, router: retorqueRouter(deps) },
     { path: `${b}/photos`, router: photosRouter(deps) },
     { path: `${b}/bench-sheets`, router: benchSheetsRouter(deps) },
+    { path: `${b}/dyno-sessions`, router: dynoSessionsRouter(deps) },
+    { path: `${b}/dyno-runs`, router: dynoRunsRouter(deps) },
   ];
 }
 

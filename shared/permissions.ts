@@ -59,6 +59,12 @@ export const permissions = {
   'bench:read': everyone,
   'bench:write': ['owner', 'crew', 'shop'],
   'bench:delete': ['owner', 'shop'],
+  // Dyno days. A shop records sessions at its own dyno and sees only the sessions assigned to it;
+  // the dyno service applies that. Owner and crew assign a session to a shop.
+  'dyno:read': everyone,
+  'dyno:write': ['owner', 'crew', 'shop'],
+  'dyno:assign': ['owner', 'crew'],
+  'dyno:delete': ownerOnly,
   // Invite by e-mail, list, resend and revoke invitations.
   'invitations:manage': ownerOnly,
   // Each member chooses, for themself only, which notices they receive.

@@ -7,6 +7,7 @@ import type { Knex } from 'knex';
 import { hashPassword } from '../../server/lib/auth';
 import { createLocalDiskStorage, type Storage } from '../../server/lib/storage';
 import { seedBench } from './bench';
+import { seedDyno } from './dyno';
 import { seedInstallLog } from './install-log';
 
 export const demoPassword = 'headroom-demo';
@@ -431,5 +432,6 @@ export async function seedDemo(knex: Knex, opts: { storage?: Storage } = {}) {
     opts.storage ?? createLocalDiskStorage(process.env.STORAGE_DIR ?? '.data/uploads');
   await seedInstallLog(knex, { buildId: build.id, userIds: ids }, storage);
   await seedBench(knex, { buildId: build.id, userIds: ids, day }, storage);
+  await seedDyno(knex, { buildId: build.id, userIds: ids }, storage);
   return { buildId: build.id as string, userIds: ids };
 }

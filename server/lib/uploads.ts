@@ -11,7 +11,11 @@ const serverSide = new Set(['ENOSPC', 'EACCES', 'EMFILE', 'EIO', 'EROFS']);
 
 export function receiveUpload(
   upload: RequestHandler,
-  describe: (err: MulterError) => { code: string; message: string } = (err) => ({
+  describe: (err: MulterError) => {
+    code: string;
+    message: string;
+    fields?: Record<string, string>;
+  } = (err) => ({
     code: err.code === 'LIMIT_FILE_SIZE' ? 'file_too_large' : 'bad_upload',
     message:
       err.code === 'LIMIT_FILE_SIZE'
@@ -24,7 +28,7 @@ export function receiveUpload(
       if (!err) return next();
       if (err instanceof MulterError) {
         const d = describe(err);
-        return next(new AppError(400, d.code, d.message));
+        return next(new AppError(400, d.code, d.message, d.fields));
       }
       const code = (err as { code?: string }).code;
       if (code && serverSide.has(code)) return next(err);

@@ -12,3 +12,4 @@ export * from './csv';
 export * from './curve';
 export * from './vapour-pressure';
 export * from './working';
+export * from './report';

@@ -20,18 +20,30 @@
  *   list them as separate lines.
  * - `hp-wheel` ratings are compared with the target in wheel hp (crank power ×
  *   (1 − drivetrain loss)); `kw` ratings are crank kW; `hp-crank` crank hp.
- * - Torque ratings are compared with the crank torque at peak-power rpm
- *   (P × 5252.113 / rpm), or with the owner's crank torque target when one is
- *   set.
+ * - Torque ratings are compared with the larger of the crank torque at
+ *   peak-power rpm (P × 5252.113 / rpm) and the owner's crank torque target:
+ *   a part must hold both, and a torque target below the torque the power
+ *   target needs at peak power does not lower what the part sees there.
+ * - Headroom and shortfall share one basis, the requirement:
+ *   headroom % = (capacity − requirement) ÷ requirement × 100, and a part over
+ *   its rating is short by −headroom % of what the target needs.
  * - Every requirement is proportional to crank power at fixed assumptions, so
  *   the crank power a part alone supports is target crank hp × capacity ÷
- *   requirement (with a torque target, the whole target scaled alike).
+ *   requirement. Where a torque target above the torque at peak power loads a
+ *   torque-rated part, that figure assumes the whole torque curve scales with
+ *   power, and the part's result carries a note saying so.
  * - Category does not choose the comparison; the rating unit does. Category
  *   only groups parts, names the bottom end for its warning and marks
  *   categories with no rated part as unknown.
  *
- * Fuel supply is compared with the fuel the engine burns; a lift pump also
- * has to feed return flow, which the "tight" margin is there to leave room for.
+ * Fuel supply is compared with the fuel the engine burns only. A lift pump
+ * also feeds the return flow (injector leak-off, the pressure regulator's
+ * return to the tank), which no published figure fixes for a build; it is not
+ * counted, and each fuel-supply result carries a note that says so.
+ *
+ * Inputs that cannot give a finite figure are refused (RangeError) or, for a
+ * single part's rating, left out of the comparison with a warning, so no NaN,
+ * Infinity (null in JSON) ever leaves this function.
  */
 import {
   HP_TORQUE_RPM_CONSTANT,
@@ -58,7 +70,9 @@ import {
 } from './chains';
 import { partCategories, type PartCategory, type RatingUnit } from '../schemas/parts';
 import type {
+  ComponentNote,
   ComponentResult,
+  EstimateComponent,
   EstimateInput,
   EstimateResult,
   EstimateWarning,
@@ -183,11 +197,18 @@ function fromFigure(f: Figure, ref: string): WorkingInput {
   return { name: f.label, value: f.value, unit: f.unit, from: 'figure', ref };
 }
 
-/** Rounds for a sentence: 731.7, 12.35, 0.345. Figures themselves are never rounded. */
+const messageFormats = [1, 2, 3].map(
+  (digits) => new Intl.NumberFormat('en-US', { maximumFractionDigits: digits }),
+);
+
+/**
+ * Rounds for a sentence, digits grouped as on the pages (US English): 1,400.6, 731.7, 12.35,
+ * 0.345. Figures themselves are never rounded.
+ */
 export function formatForMessage(x: number): string {
   const abs = Math.abs(x);
   const digits = abs >= 100 ? 1 : abs >= 1 ? 2 : 3;
-  return String(Number(x.toFixed(digits)));
+  return messageFormats[digits - 1].format(x);
 }
 
 function unitText(unit: string) {
@@ -208,26 +229,63 @@ function assertPositiveFinite(name: string, value: number) {
   }
 }
 
+function assertInRange(name: string, value: number, min: number, maxExclusive: number) {
+  if (!Number.isFinite(value) || value < min || value >= maxExclusive) {
+    throw new RangeError(
+      `${name} must be a finite number from ${min} up to ${maxExclusive} (got ${value})`,
+    );
+  }
+}
+
+/** Why a part's stored rating cannot be compared, or null when it can. */
+function unusableRating(c: EstimateComponent): string | null {
+  if (!Number.isFinite(c.ratingValue)) return 'its rating is not a number';
+  if (c.ratingValue <= 0)
+    return `its rating is ${formatForMessage(c.ratingValue)} ${unitText(c.ratingUnit)}`;
+  if (!Number.isInteger(c.quantity) || c.quantity < 1) return `its quantity is ${c.quantity}`;
+  return null;
+}
+
+/** Where the estimate's cylinder count comes from: the build (a stored build's estimate) or the request. */
+export type EstimateOptions = { cylindersFrom?: 'build' | 'assumption' };
+
 /**
  * Runs the estimate. `input` is the output of `estimateRequestSchema` (every
- * default filled in); values outside the schema's ranges still compute, but
- * a target, rpm, density, BSFC, AFR or cylinder count that is not a finite
- * number above zero throws a RangeError rather than return NaN.
+ * default filled in); values outside the schema's ranges still compute where
+ * they can, but a target, rpm, density, BSFC, AFR or cylinder count that is not
+ * a finite number above zero, a drivetrain loss outside 0–100 %, a negative or
+ * non-finite torque target or tight margin throws a RangeError rather than
+ * return NaN or Infinity. A torque target of 0 means none. A part whose rating
+ * is not a finite number above zero (or whose quantity is not a whole number
+ * from 1) is left out of the comparison and named in a `rating-unusable`
+ * warning, so one bad stored rating does not stop the build's estimate.
  */
-export function estimate(input: EstimateInput): EstimateResult {
-  const { target, assumptions: a, components } = input;
+export function estimate(input: EstimateInput, options: EstimateOptions = {}): EstimateResult {
+  const { target, assumptions: a } = input;
+  const cylindersFrom = options.cylindersFrom ?? 'assumption';
   assertPositiveFinite('target.powerHp', target.powerHp);
   for (const key of ['bsfc', 'afr', 'fuelDensityKgPerL', 'peakRpm', 'cylinders'] as const) {
     assertPositiveFinite(`assumptions.${key}`, a[key]);
   }
-  if (!(a.drivetrainLossPct >= 0 && a.drivetrainLossPct < 100)) {
-    throw new RangeError('assumptions.drivetrainLossPct must be at least 0 and below 100');
+  assertInRange('assumptions.drivetrainLossPct', a.drivetrainLossPct, 0, 100);
+  assertInRange('assumptions.tightMarginPct', a.tightMarginPct, 0, Number.POSITIVE_INFINITY);
+  const torqueInput = target.torqueLbft ?? null;
+  if (torqueInput !== null)
+    assertInRange('target.torqueLbft', torqueInput, 0, Number.POSITIVE_INFINITY);
+  // A stored 0 is no target: it can never be the larger torque.
+  const torqueTarget = torqueInput !== null && torqueInput > 0 ? torqueInput : null;
+
+  const usable: EstimateComponent[] = [];
+  const unusable: { component: EstimateComponent; why: string }[] = [];
+  for (const c of input.components) {
+    const why = unusableRating(c);
+    if (why) unusable.push({ component: c, why });
+    else usable.push(c);
   }
 
   const bsfcGPerKwh = convertBsfc(a.bsfc, a.bsfcUnit, 'g-per-kwh');
   const bsfcLbPerHpH = convertBsfc(a.bsfc, a.bsfcUnit, 'lb-per-hp-h');
   const keep = 1 - a.drivetrainLossPct / 100;
-  const torqueTarget = target.torqueLbft ?? null;
 
   // ---- inputs as they appear in the working
   const inTarget: WorkingInput = {
@@ -266,10 +324,10 @@ export function estimate(input: EstimateInput): EstimateResult {
     ref: 'fuelDensityKgPerL',
   };
   const inCyl: WorkingInput = {
-    name: 'Cylinders',
+    name: cylindersFrom === 'build' ? 'Cylinders (the build’s engine)' : 'Cylinders',
     value: a.cylinders,
     unit: 'cylinders',
-    from: 'assumption',
+    from: cylindersFrom,
     ref: 'cylinders',
   };
   const inAfr: WorkingInput = {
@@ -324,25 +382,36 @@ export function estimate(input: EstimateInput): EstimateResult {
     [fromFigure(crankPower, 'crankPower')],
     [constants.hpW],
   );
-  const torqueLbft = torqueTarget ?? (crankHp * HP_TORQUE_RPM_CONSTANT) / a.peakRpm;
+  const torqueAtPeakLbft = (crankHp * HP_TORQUE_RPM_CONSTANT) / a.peakRpm;
+  const crankTorqueAtPeakPower = figure(
+    'Crank torque at peak power',
+    torqueAtPeakLbft,
+    'lbf-ft',
+    'T[lbf·ft] = crank hp × 5252.113 ÷ rpm',
+    [fromFigure(crankPower, 'crankPower'), inRpm],
+    [constants.hpTorque],
+  );
+  // The torque target governs only when it asks for more than peak power does.
+  const torqueTargetGoverns = torqueTarget !== null && torqueTarget > torqueAtPeakLbft;
+  const torqueLbft = torqueTargetGoverns ? torqueTarget : torqueAtPeakLbft;
   const crankTorque =
-    torqueTarget !== null
-      ? figure('Crank torque at the target', torqueLbft, 'lbf-ft', 'crank torque = torque target', [
-          {
-            name: 'Torque target (crank)',
-            value: torqueTarget,
-            unit: 'lbf-ft',
-            from: 'target',
-            ref: 'torqueLbft',
-          },
-        ])
+    torqueTarget === null
+      ? { ...crankTorqueAtPeakPower }
       : figure(
-          'Crank torque at peak power',
+          'Crank torque the target needs',
           torqueLbft,
           'lbf-ft',
-          'T[lbf·ft] = crank hp × 5252.113 ÷ rpm',
-          [fromFigure(crankPower, 'crankPower'), inRpm],
-          [constants.hpTorque],
+          'crank torque = the larger of the torque target and the torque at peak power',
+          [
+            {
+              name: 'Torque target (crank)',
+              value: torqueTarget,
+              unit: 'lbf-ft',
+              from: 'target',
+              ref: 'torqueLbft',
+            },
+            fromFigure(crankTorqueAtPeakPower, 'crankTorqueAtPeakPower'),
+          ],
         );
   const crankTorqueNm = figure(
     crankTorque.label,
@@ -365,17 +434,17 @@ export function estimate(input: EstimateInput): EstimateResult {
   );
   const fuelLPerH = fuelKgPerH / a.fuelDensityKgPerL;
   const fuelVolumeFlow = figure(
-    'Fuel volume at the target',
+    'Fuel burned at the target, by volume',
     fuelLPerH,
     'l-per-h',
-    'fuel[L/h] = fuel[kg/h] ÷ density[kg/L]',
+    'fuel[L/h] = fuel[kg/h] ÷ density[kg/L] (fuel burned only; return flow to the tank not counted)',
     [fromFigure(fuelMassFlow, 'fuelMassFlow'), inDensity],
   );
   const fuelVolumeFlowGalPerH = figure(
-    'Fuel volume at the target',
+    'Fuel burned at the target, by volume',
     fuelLPerH / US_GALLON_L,
     'gal-per-h',
-    'fuel[gal/h] = fuel[L/h] ÷ 3.785411784',
+    'fuel[gal/h] = fuel[L/h] ÷ 3.785411784 (fuel burned only; return flow to the tank not counted)',
     [fromFigure(fuelVolumeFlow, 'fuelVolumeFlow')],
     [constants.gallonL],
   );
@@ -416,6 +485,7 @@ export function estimate(input: EstimateInput): EstimateResult {
     crankPowerKw,
     crankTorque,
     crankTorqueNm,
+    crankTorqueAtPeakPower,
     fuelMassFlow,
     fuelVolumeFlow,
     fuelVolumeFlowGalPerH,
@@ -425,10 +495,12 @@ export function estimate(input: EstimateInput): EstimateResult {
   };
 
   // ---- each component against its requirement
-  const results: ComponentResult[] = components.map((c) => {
+  const results: ComponentResult[] = usable.map((c) => {
     const key = requirementForUnit[c.ratingUnit];
     const req = requirements[key];
     const multiplies = quantityMultipliedUnits.has(c.ratingUnit) && c.quantity > 1;
+    const torqueRated = key === 'crankTorque' || key === 'crankTorqueNm';
+    const curveScaled = torqueRated && torqueTargetGoverns;
     const inRating: WorkingInput = {
       name: `${c.name} rating`,
       value: c.ratingValue,
@@ -471,9 +543,32 @@ export function estimate(input: EstimateInput): EstimateResult {
       `Crank power ${c.name} supports`,
       crankHp * ratio,
       'hp-crank',
-      'supported crank hp = target crank hp × capacity ÷ requirement (every requirement is proportional to crank power)',
+      curveScaled
+        ? 'supported crank hp = target crank hp × capacity ÷ requirement (assumes the whole torque curve, torque target and peak power alike, scales with power)'
+        : 'supported crank hp = target crank hp × capacity ÷ requirement (every requirement is proportional to crank power)',
       [fromFigure(crankPower, 'crankPower'), fromFigure(capacity, c.id), fromFigure(req, key)],
     );
+    const notes: ComponentNote[] = [];
+    if (curveScaled) {
+      // What the rating alone would allow at peak-power rpm, were the torque target not there.
+      const atPeakInUnit = key === 'crankTorque' ? torqueAtPeakLbft : torqueAtPeakLbft * LBF_FT_NM;
+      const atPeakRpmOnly = (crankHp * capacityValue) / atPeakInUnit;
+      notes.push({
+        code: 'torque-curve-scaled',
+        message: `The torque target, ${formatForMessage(torqueLbft)} lbf·ft, is above the ${formatForMessage(
+          torqueAtPeakLbft,
+        )} lbf·ft the power target needs at peak power (${formatForMessage(a.peakRpm)} rpm), so it is what this part must hold. The power it supports assumes the whole torque curve scales with power; at ${formatForMessage(
+          a.peakRpm,
+        )} rpm alone its rating would allow about ${formatForMessage(atPeakRpmOnly)} crank hp.`,
+      });
+    }
+    if (key === 'fuelVolumeFlow' || key === 'fuelVolumeFlowGalPerH') {
+      notes.push({
+        code: 'return-flow-not-counted',
+        message:
+          'Compared with the fuel the engine burns only. The return flow (injector leak-off and the pressure regulator’s return to the tank) is not counted, and a lift pump must supply it too: leave room for it.',
+      });
+    }
     return {
       id: c.id,
       name: c.name,
@@ -489,6 +584,8 @@ export function estimate(input: EstimateInput): EstimateResult {
       headroomPct,
       status: statusFor(headroom, a.tightMarginPct),
       supportedCrankPower,
+      notes,
+      ...(c.anonymised ? { anonymised: true } : {}),
     };
   });
 
@@ -497,6 +594,10 @@ export function estimate(input: EstimateInput): EstimateResult {
   for (const r of results) {
     if (!weakest || r.headroomPct.value < weakest.headroomPct.value) weakest = r;
   }
+  const scaledNote = (r: ComponentResult) =>
+    r.notes.some((n) => n.code === 'torque-curve-scaled')
+      ? ' (if the whole torque curve scales with power)'
+      : '';
   const weakestLink = weakest
     ? {
         componentId: weakest.id,
@@ -506,11 +607,11 @@ export function estimate(input: EstimateInput): EstimateResult {
         status: weakest.status,
         message: `Weakest link: ${weakest.name}, rated ${formatForMessage(weakest.capacity.value)} ${unitText(
           weakest.capacity.unit,
-        )} against ${formatForMessage(weakest.requirement.value)} ${unitText(weakest.requirement.unit)} needed (${
-          weakest.headroomPct.value >= 0 ? '+' : ''
-        }${formatForMessage(weakest.headroomPct.value)} % headroom); it supports about ${formatForMessage(
+        )} against ${formatForMessage(weakest.requirement.value)} ${unitText(weakest.requirement.unit)} needed (${formatHeadroomForMessage(
+          weakest.headroomPct.value,
+        )} headroom); it supports about ${formatForMessage(
           weakest.supportedCrankPower.value,
-        )} crank hp.`,
+        )} crank hp${scaledNote(weakest)}.`,
       }
     : null;
 
@@ -565,9 +666,9 @@ export function estimate(input: EstimateInput): EstimateResult {
         r.capacity.unit,
       )} and the target needs ${formatForMessage(r.requirement.value)} ${unitText(r.requirement.unit)}, ${formatForMessage(
         short.value,
-      )} ${unitText(short.unit)} (${formatForMessage(short.pct)} %) over. It supports about ${formatForMessage(
+      )} ${unitText(short.unit)} past its rating (${formatHeadroomForMessage(r.headroomPct.value)} headroom). It supports about ${formatForMessage(
         r.supportedCrankPower.value,
-      )} crank hp, ${formatForMessage(short.crankHp)} hp short of the target.`,
+      )} crank hp${scaledNote(r)}, ${formatForMessage(short.crankHp)} hp short of the target.`,
     });
   }
   for (const r of byHeadroom) {
@@ -581,9 +682,20 @@ export function estimate(input: EstimateInput): EstimateResult {
       shortfall: short,
       message: `Over its rating: ${r.name}, rated ${formatForMessage(r.capacity.value)} ${unitText(
         r.capacity.unit,
-      )}; the target needs ${formatForMessage(r.requirement.value)} ${unitText(r.requirement.unit)} (${formatForMessage(
-        short.pct,
-      )} % over). It supports about ${formatForMessage(r.supportedCrankPower.value)} crank hp.`,
+      )}; the target needs ${formatForMessage(r.requirement.value)} ${unitText(r.requirement.unit)}, ${formatForMessage(
+        short.value,
+      )} ${unitText(short.unit)} more (${formatHeadroomForMessage(r.headroomPct.value)} headroom). It supports about ${formatForMessage(
+        r.supportedCrankPower.value,
+      )} crank hp${scaledNote(r)}.`,
+    });
+  }
+  for (const { component: c, why } of unusable) {
+    warnings.push({
+      code: 'rating-unusable',
+      severity: 'warning',
+      componentId: c.id,
+      category: c.category,
+      message: `${c.name} is not checked: ${why}. A rating must be a number above zero; enter the maker’s figure in the parts ledger.`,
     });
   }
   if (!results.some((r) => r.category === 'bottom-end')) {
@@ -602,7 +714,7 @@ export function estimate(input: EstimateInput): EstimateResult {
       severity: 'warning',
       componentId: r.id,
       category: r.category,
-      message: `Tight: ${r.name} has ${formatForMessage(r.headroomPct.value)} % headroom, less than the ${formatForMessage(
+      message: `Tight: ${r.name} has ${formatHeadroomForMessage(r.headroomPct.value)} headroom, less than the ${formatPctForMessage(
         a.tightMarginPct,
       )} % margin (rated ${formatForMessage(r.capacity.value)} ${unitText(r.capacity.unit)}, needs ${formatForMessage(
         r.requirement.value,
@@ -618,7 +730,7 @@ export function estimate(input: EstimateInput): EstimateResult {
     });
   }
 
-  return {
+  const result: EstimateResult = {
     target: { powerHp: target.powerHp, basis: target.basis, torqueLbft: torqueTarget },
     assumptions: {
       bsfc: a.bsfc,
@@ -630,6 +742,7 @@ export function estimate(input: EstimateInput): EstimateResult {
       drivetrainLossPct: a.drivetrainLossPct,
       peakRpm: a.peakRpm,
       cylinders: a.cylinders,
+      cylindersFrom,
       tightMarginPct: a.tightMarginPct,
     },
     assumptionDetails: [
@@ -658,7 +771,8 @@ export function estimate(input: EstimateInput): EstimateResult {
         min: spec.min,
         max: spec.max,
         isDefault: a[key] === spec.default,
-        source: spec.source,
+        source:
+          key === 'cylinders' && cylindersFrom === 'build' ? 'the build’s engine' : spec.source,
       })),
     ],
     requirements,
@@ -669,13 +783,56 @@ export function estimate(input: EstimateInput): EstimateResult {
     unknownCategories,
     warnings,
   };
+  assertFiniteFigures(result);
+  return result;
 }
 
+/** A percentage for a sentence, to one decimal as the pages show it: 3.9, 12.5. */
+function formatPctForMessage(pct: number): string {
+  return String(Number(pct.toFixed(1)));
+}
+
+/** "+3.9 %", "−6.7 %": a headroom with its sign, for a sentence. */
+function formatHeadroomForMessage(pct: number): string {
+  return `${pct < 0 ? '−' : '+'}${formatPctForMessage(Math.abs(pct))} %`;
+}
+
+/**
+ * The last guard: inputs inside the checks above always give finite figures, but one that
+ * does not (a target of 1e-310 hp, say) must fail here rather than reach a page as Infinity
+ * or a JSON null.
+ */
+function assertFiniteFigures(r: EstimateResult) {
+  const figures: Figure[] = [...Object.values(r.requirements)];
+  for (const c of r.components)
+    figures.push(c.capacity, c.requirement, c.headroomPct, c.supportedCrankPower);
+  if (r.supported) figures.push(r.supported.crankPower, r.supported.wheelPower);
+  for (const f of figures) {
+    if (!Number.isFinite(f.value)) {
+      throw new RangeError(
+        `${f.label} is not a finite number (${f.value}); the inputs are out of range`,
+      );
+    }
+  }
+  for (const w of r.warnings) {
+    const s = w.shortfall;
+    if (s && ![s.value, s.pct, s.crankHp].every(Number.isFinite)) {
+      throw new RangeError(
+        `The shortfall of ${w.componentId} is not finite; the inputs are out of range`,
+      );
+    }
+  }
+}
+
+/**
+ * How far a part over its rating falls short, on the basis headroom uses: the requirement.
+ * pct = (requirement − capacity) ÷ requirement × 100 = −headroom %.
+ */
 function shortfall(r: ComponentResult, crankHp: number) {
   return {
     value: r.requirement.value - r.capacity.value,
     unit: r.capacity.unit,
-    pct: (r.requirement.value / r.capacity.value - 1) * 100,
+    pct: ((r.requirement.value - r.capacity.value) / r.requirement.value) * 100,
     crankHp: crankHp - r.supportedCrankPower.value,
   };
 }

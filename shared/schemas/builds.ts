@@ -1,12 +1,23 @@
 import { z } from 'zod';
 import { roles } from '../permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
+import { hasAtMostDecimals } from './precision';
 import { maxCalibrationMonths, minCalibrationMonths } from '../install-log/wrenches';
 
 export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
 import { aspirations, powerBases } from '../builds/vocabulary';
 
 const optionalNumber = (schema: z.ZodNumber) => schema.nullable().optional();
+
+/**
+ * Power and torque are kept to tenths (numeric(8,1) columns). A figure with more decimals
+ * would be stored as another number, and one under 0.05 as 0, which the estimate cannot use,
+ * so such figures are refused, not silently changed.
+ */
+const tenths = (schema: z.ZodNumber, what: string) =>
+  schema.refine((v) => hasAtMostDecimals(v, 1), {
+    message: `Round to one decimal place: the build keeps ${what} to 0.1`,
+  });
 
 /** The fields an owner types in; used by the create and edit forms and by the server. */
 export const buildFieldsSchema = z.object({
@@ -33,24 +44,33 @@ export const buildFieldsSchema = z.object({
     .max(16, { message: 'At most 16 cylinders' }),
   aspiration: z.enum(aspirations, { message: 'Choose an aspiration from the list' }),
   transmission: trimmed(200, 'Transmission').optional(),
-  stockPowerHp: optionalNumber(
+  stockPowerHp: tenths(
     z
       .number({ message: 'Enter horsepower' })
       .positive({ message: 'Power must be above zero' })
       .max(5000, { message: 'At most 5000 hp' }),
-  ),
+    'power',
+  )
+    .nullable()
+    .optional(),
   stockPowerBasis: z.enum(powerBases, { message: 'Choose crank or wheel' }).optional(),
-  targetPowerHp: z
-    .number({ message: 'Enter the target horsepower' })
-    .positive({ message: 'Power must be above zero' })
-    .max(5000, { message: 'At most 5000 hp' }),
+  targetPowerHp: tenths(
+    z
+      .number({ message: 'Enter the target horsepower' })
+      .positive({ message: 'Power must be above zero' })
+      .max(5000, { message: 'At most 5000 hp' }),
+    'power',
+  ),
   targetPowerBasis: z.enum(powerBases, { message: 'Choose crank or wheel' }),
-  targetTorqueLbft: optionalNumber(
+  targetTorqueLbft: tenths(
     z
       .number({ message: 'Enter torque in lbf·ft' })
       .positive({ message: 'Torque must be above zero' })
       .max(10000, { message: 'At most 10000 lbf·ft' }),
-  ),
+    'torque',
+  )
+    .nullable()
+    .optional(),
   targetDate: isoDateSchema.nullable().optional(),
   targetEvent: trimmed(200, 'Event').optional(),
   budgetCents: centsSchema.optional(),

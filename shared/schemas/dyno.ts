@@ -15,6 +15,13 @@
  * its size before comparing.
  */
 import { z } from 'zod';
+
+export {
+  DEFAULT_CORRECTION_STANDARD,
+  correctionStandardLabels,
+  correctionStandards,
+  type CorrectionStandard,
+} from '../dyno/vocabulary';
 import {
   convertPressure,
   convertTemperature,
@@ -24,7 +31,8 @@ import {
   type TorqueUnit,
 } from '../units/convert';
 import { aspirations, powerBases } from './builds';
-import { isoDateSchema, trimmed } from './common';
+import { DEFAULT_CORRECTION_STANDARD, correctionStandards } from '../dyno/vocabulary';
+import { idSchema, isoDateSchema, trimmed } from './common';
 import { workingConstantSchema } from './estimate';
 
 export { powerBases };
@@ -103,25 +111,6 @@ export const runStatusLabels: Record<RunStatus, string> = {
   aborted: 'Stopped early',
 };
 
-/**
- * Standards a run can be corrected to. `uncorrected` is the figure as measured
- * (factor 1). See shared/dyno/correction.ts for each formula and its source.
- */
-export const correctionStandards = [
-  'uncorrected',
-  'sae-j1349',
-  'ece-r85',
-  'sae-j607',
-  'din-70020',
-] as const;
-export type CorrectionStandard = (typeof correctionStandards)[number];
-export const correctionStandardLabels: Record<CorrectionStandard, string> = {
-  uncorrected: 'As measured (no correction)',
-  'sae-j1349': 'SAE J1349 (2004), 25 °C and 99 kPa dry air',
-  'ece-r85': 'UN ECE R85 / ISO 1585, diesel engines',
-  'sae-j607': 'SAE J607, older records (60 °F, 29.92 inHg)',
-  'din-70020': 'DIN 70020, older records (20 °C, 1013 mbar)',
-};
 export const correctionStandardSchema = z.enum(correctionStandards, {
   message: 'Choose a correction standard from the list',
 });
@@ -403,6 +392,11 @@ const dynoSessionFieldsSchema = z.object({
   notes: dynoText(4000, 'Notes').optional(),
   /** Weather for every run of the session that has none of its own. */
   weather: weatherSchema.nullable().optional(),
+  /**
+   * The shop member whose dyno it is: it sees this session and no other. Set
+   * by the owner or crew; a shop's own sessions are assigned to it.
+   */
+  shopUserId: idSchema.nullable().optional(),
 });
 export type DynoSessionFields = z.infer<typeof dynoSessionFieldsSchema>;
 
@@ -673,3 +667,183 @@ export const correctedRunSchema = z.object({
   curve: z.array(completedCurveRowSchema),
 });
 export type CorrectedRun = z.infer<typeof correctedRunSchema>;
+
+// ---------------------------------------------------------------- what the API answers
+
+/**
+ * The correction choice as query parameters (`?standard=ece-r85&engineFactor=0.8`):
+ * the standard defaults to {@link DEFAULT_CORRECTION_STANDARD}; numbers arrive as text.
+ */
+export const correctionQuerySchema = z.object({
+  standard: correctionStandardSchema.default(DEFAULT_CORRECTION_STANDARD),
+  aspiration: z
+    .enum(engineAspirations, { message: 'Choose turbocharged or naturally aspirated' })
+    .optional(),
+  engineFactor: z.coerce
+    .number<string>({ message: 'Engine factor must be a number' })
+    .min(engineFactorLimits.min, { message: `Engine factor is at least ${engineFactorLimits.min}` })
+    .max(engineFactorLimits.max, { message: `Engine factor is at most ${engineFactorLimits.max}` })
+    .optional(),
+});
+
+/** Default units of a new run: hp and lbf·ft first, as the trade in the US reads them. */
+export const defaultRunUnits: RunUnits = {
+  powerUnit: 'hp',
+  torqueUnit: 'lbf-ft',
+  boostUnit: 'psi',
+  egtUnit: 'f',
+  mixtureKind: 'afr',
+};
+
+/**
+ * The fields sent beside a curve CSV when a run is made from it (multipart
+ * field `run`, JSON): everything but the curve, which comes from the file, and
+ * the units, which the file's columns decide (a unit given here must agree).
+ */
+export const importDynoRunFieldsSchema = dynoRunFieldsSchema
+  .omit({ curve: true })
+  .partial({
+    status: true,
+    powerUnit: true,
+    torqueUnit: true,
+    boostUnit: true,
+    egtUnit: true,
+    mixtureKind: true,
+  })
+  .strict();
+export type ImportDynoRunFields = z.infer<typeof importDynoRunFieldsSchema>;
+
+/** Someone named on a record, or null when their account is gone. */
+const personSchema = z.object({ id: z.string(), name: z.string() }).nullable();
+
+/** What a run's attachment can be, judged by its content. */
+export const dynoAttachmentKinds = ['pdf', 'image', 'text'] as const;
+export type DynoAttachmentKind = (typeof dynoAttachmentKinds)[number];
+export const dynoAttachmentKindLabels: Record<DynoAttachmentKind, string> = {
+  pdf: 'PDF',
+  image: 'Photo',
+  text: 'Text or CSV file',
+};
+/** An attachment, bytes: the dyno's own file or a photo of its printout. */
+export const MAX_DYNO_ATTACHMENT_BYTES = 15 * 1024 * 1024;
+/** The multipart field an attachment or a curve CSV is sent in. */
+export const dynoFileField = 'file';
+
+export const dynoAttachmentSchema = z.object({
+  name: z.string(),
+  kind: z.enum(dynoAttachmentKinds),
+  contentType: z.string(),
+  bytes: z.number().int(),
+  /** Members only: the bytes, as a download. */
+  url: z.string(),
+});
+export type DynoAttachment = z.infer<typeof dynoAttachmentSchema>;
+
+/** A run as stored: every figure as measured, in its own units. */
+export const dynoRunSchema = z.object({
+  id: z.string(),
+  buildId: z.string(),
+  sessionId: z.string(),
+  /** Pull number within the session; kept when another run is deleted. */
+  runNumber: z.number().int(),
+  status: z.enum(runStatuses),
+  abortReason: z.string().nullable(),
+  gear: z.string(),
+  tuneRevision: z.string(),
+  notes: z.string(),
+  ...runUnitsSchema.shape,
+  peakPower: z.number().nullable(),
+  peakPowerRpm: z.number().nullable(),
+  peakTorque: z.number().nullable(),
+  peakTorqueRpm: z.number().nullable(),
+  boost: z.number().nullable(),
+  egt: z.number().nullable(),
+  mixture: z.number().nullable(),
+  /** The run's own weather; null when the session's applies. */
+  weather: weatherFields.nullable(),
+  /** The curve as measured, sorted by rpm; empty when none was recorded. */
+  curve: z.array(
+    z.object({
+      rpm: z.number(),
+      power: z.number().nullable(),
+      torque: z.number().nullable(),
+      boost: z.number().nullable(),
+      egt: z.number().nullable(),
+      mixture: z.number().nullable(),
+    }),
+  ),
+  attachment: dynoAttachmentSchema.nullable(),
+  createdBy: personSchema,
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type DynoRun = z.infer<typeof dynoRunSchema>;
+
+export const dynoSessionSchema = z.object({
+  id: z.string(),
+  buildId: z.string(),
+  date: z.string(),
+  place: z.string(),
+  dynoKind: z.enum(dynoKinds),
+  /** Where this dyno measures: wheel for a chassis dyno, crank for an engine dyno. */
+  basis: z.enum(powerBases),
+  runBy: z.string(),
+  notes: z.string(),
+  weather: weatherFields.nullable(),
+  /** The shop member whose dyno it is. */
+  shop: personSchema,
+  runCount: z.number().int(),
+  createdBy: personSchema,
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type DynoSession = z.infer<typeof dynoSessionSchema>;
+
+/**
+ * What the corrections and comparisons need from the build: its target, the
+ * estimator's "most the build supports", the drivetrain loss assumption, and
+ * the engine for R85's engine factor (aspiration, displacement, BSFC).
+ */
+export const dynoPlanSchema = z.object({
+  target: z.object({
+    powerHp: z.number(),
+    basis: z.enum(powerBases),
+    torqueLbft: z.number().nullable(),
+  }),
+  /** Null when no part carries a rating. `limitedBy` names the weakest link. */
+  supported: z
+    .object({ crankPowerHp: z.number(), wheelPowerHp: z.number(), limitedBy: z.string() })
+    .nullable(),
+  drivetrainLossPct: z.number(),
+  engine: z.object({
+    aspiration: z.enum(engineAspirations),
+    displacementL: z.number().nullable(),
+    bsfc: z.number().nullable(),
+    bsfcUnit: z.enum(['lb-per-hp-h', 'g-per-kwh']),
+    drivetrainLossPct: z.number().nullable(),
+  }),
+});
+export type DynoPlan = z.infer<typeof dynoPlanSchema>;
+
+/** A session in the list, with its best run under the chosen correction (null before a complete run). */
+export const dynoSessionSummarySchema = dynoSessionSchema.extend({
+  best: z
+    .object({
+      runId: z.string(),
+      runNumber: z.number().int().nullable(),
+      basis: z.enum(powerBases),
+      powerUnit: z.enum(dynoPowerUnits),
+      torqueUnit: z.enum(dynoTorqueUnits),
+      /** Corrected, in the run's units. */
+      peakPower: z.number().nullable(),
+      peakPowerRpm: z.number().nullable(),
+      peakPowerHp: z.number(),
+      peakTorque: z.number().nullable(),
+      peakTorqueRpm: z.number().nullable(),
+      factor: z.number(),
+      applied: z.boolean(),
+      valid: z.boolean(),
+    })
+    .nullable(),
+});
+export type DynoSessionSummary = z.infer<typeof dynoSessionSummarySchema>;

@@ -88,12 +88,17 @@ export type AssumptionsResponse = { assumptions: Assumptions; isDefault: boolean
 
 export const estimateTargetSchema = z
   .object({
+    // At least 0.1 hp, the least a build can store: far smaller targets make every
+    // rating look millions of times too large and, near zero, infinitely so.
     powerHp: z
       .number({ message: 'Enter the target horsepower' })
-      .positive({ message: 'Power must be above zero' })
+      .min(0.1, { message: 'Power must be above zero: at least 0.1 hp' })
       .max(5000, { message: 'At most 5000 hp' }),
     basis: z.enum(powerBases, { message: 'Choose crank or wheel' }),
-    /** A crank torque target in lbf·ft; when absent the torque at peak power is used. */
+    /**
+     * A crank torque target in lbf·ft. Torque-rated parts are compared with the larger of
+     * it and the torque at peak power.
+     */
     torqueLbft: z
       .number({ message: 'Enter torque in lbf·ft' })
       .positive({ message: 'Torque must be above zero' })
@@ -126,6 +131,11 @@ export const estimateComponentSchema = z
       .max(10_000, { message: 'Quantity is at most 10000' })
       .default(1),
     ratingFor: trimmed(200, 'Rated for').optional(),
+    /**
+     * Set by the server for a part a shop may not see: named by its category only, and
+     * not a link to the ledger (the shop's ledger does not hold it).
+     */
+    anonymised: z.boolean({ message: 'Anonymised is true or false' }).optional(),
   })
   .strict();
 export type EstimateComponentInput = z.input<typeof estimateComponentSchema>;
@@ -158,12 +168,16 @@ export type EstimateInput = z.output<typeof estimateRequestSchema>;
 
 // ---------------------------------------------------------------- response
 
-/** A value that went into a figure: from the target, an assumption, a part or another figure. */
+/**
+ * A value that went into a figure, by where it comes from: the build's target, the build
+ * itself (its cylinder count), an assumption, a part's rating or another figure.
+ */
+export const workingInputSources = ['target', 'build', 'assumption', 'part', 'figure'] as const;
 export const workingInputSchema = z.object({
   name: z.string(),
   value: z.number(),
   unit: z.string(),
-  from: z.enum(['target', 'assumption', 'part', 'figure']),
+  from: z.enum(workingInputSources),
   /** The assumption key, the component id or the requirement key it came from. */
   ref: z.string().optional(),
 });
@@ -210,6 +224,7 @@ export const requirementKeys = [
   'crankPowerKw',
   'crankTorque',
   'crankTorqueNm',
+  'crankTorqueAtPeakPower',
   'fuelMassFlow',
   'fuelVolumeFlow',
   'fuelVolumeFlowGalPerH',
@@ -218,6 +233,19 @@ export const requirementKeys = [
   'lambda',
 ] as const;
 export type RequirementKey = (typeof requirementKeys)[number];
+
+/**
+ * Something a reader must know to read a part's figures right:
+ * - torque-curve-scaled: the torque target (above the torque at peak power) loads the part,
+ *   so the power it supports assumes the whole torque curve scales with power;
+ * - return-flow-not-counted: a fuel-supply rating is compared with the fuel burned only.
+ */
+export const componentNoteCodes = ['torque-curve-scaled', 'return-flow-not-counted'] as const;
+export const componentNoteSchema = z.object({
+  code: z.enum(componentNoteCodes),
+  message: z.string(),
+});
+export type ComponentNote = z.infer<typeof componentNoteSchema>;
 
 export const componentResultSchema = z.object({
   id: z.string(),
@@ -236,6 +264,9 @@ export const componentResultSchema = z.object({
   headroomPct: figureSchema,
   status: z.enum(headroomStatuses),
   supportedCrankPower: figureSchema,
+  notes: z.array(componentNoteSchema),
+  /** A part a shop may not see (see estimateComponentSchema): no link to the ledger. */
+  anonymised: z.boolean().optional(),
 });
 export type ComponentResult = z.infer<typeof componentResultSchema>;
 
@@ -245,6 +276,7 @@ export const warningCodes = [
   'part-tight',
   'no-bottom-end-rating',
   'no-rated-parts',
+  'rating-unusable',
 ] as const;
 export type WarningCode = (typeof warningCodes)[number];
 
@@ -254,7 +286,11 @@ export const warningSchema = z.object({
   message: z.string(),
   componentId: z.string().optional(),
   category: z.enum(partCategories).optional(),
-  /** How far the requirement is past the rating: in the part's unit, in %, and in crank hp. */
+  /**
+   * How far the requirement is past the rating: in the part's unit, in crank hp, and in %
+   * of the requirement, the basis headroom uses too, so pct = −headroom %:
+   * (requirement − capacity) ÷ requirement × 100.
+   */
   shortfall: z
     .object({ value: z.number(), unit: z.string(), pct: z.number(), crankHp: z.number() })
     .optional(),
@@ -289,6 +325,8 @@ export const estimateResultSchema = z.object({
     drivetrainLossPct: z.number(),
     peakRpm: z.number(),
     cylinders: z.number(),
+    /** Whether the cylinder count is the build's own or an assumption of the request. */
+    cylindersFrom: z.enum(['build', 'assumption']),
     tightMarginPct: z.number(),
   }),
   /** Each assumption with its default, range and source, for the page. */

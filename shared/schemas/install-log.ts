@@ -175,7 +175,7 @@ export const fastenerSpecFieldsSchema = z.object({
     })
     .max(100, { message: 'At most 100 names' })
     .optional(),
-  /** Where the spec came from, e.g. "maker's service manual, section 303-04". */
+  /** Where the spec came from, e.g. "maker's service manual, fuel system, injector installation". */
   specSource: trimmed(500, 'Source').min(1, {
     message: "Say where this spec comes from, e.g. the maker's service manual section",
   }),

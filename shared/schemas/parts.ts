@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { centsSchema, idSchema, isoDateSchema, trimmed } from './common';
+import { hasAtMostDecimals } from './precision';
 
 /** Part categories: the trade's own words where it has them. */
 export const partCategories = [
@@ -115,10 +116,15 @@ export const partFieldsSchema = z.object({
   backOn: nullableDate,
   installedOn: nullableDate,
   notes: trimmed(4000, 'Notes').optional(),
+  // The ledger keeps ratings to 0.001 (numeric(12,3)); more decimals, or a rating under
+  // 0.0005 that would be stored as 0, are refused rather than changed.
   ratingValue: z
     .number({ message: 'Enter the rated value' })
     .positive({ message: 'A rating is above zero' })
     .max(100_000, { message: 'That rating is too large' })
+    .refine((v) => hasAtMostDecimals(v, 3), {
+      message: 'Round to three decimal places: the ledger keeps ratings to 0.001',
+    })
     .nullable()
     .optional(),
   ratingUnit: z

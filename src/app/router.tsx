@@ -84,6 +84,12 @@ const BenchEntryRoute = lazy(() =>
 const BenchCompareRoute = lazy(() =>
   import('./routes/builds/bench-compare').then((m) => ({ default: m.BenchCompareRoute })),
 );
+const DynoRoute = lazy(() =>
+  import('./routes/builds/dyno').then((m) => ({ default: m.DynoRoute })),
+);
+const DynoSessionRoute = lazy(() =>
+  import('./routes/builds/dyno-session').then((m) => ({ default: m.DynoSessionRoute })),
+);
 
 const router = createBrowserRouter([
   {
@@ -130,6 +136,8 @@ const router = createBrowserRouter([
                       { path: 'bench/compare', element: <BenchCompareRoute /> },
                       { path: 'bench/sheets/:sheetId', element: <BenchSheetRoute /> },
                       { path: 'bench/sheets/:sheetId/edit', element: <BenchEntryRoute /> },
+                      { path: 'dyno', element: <DynoRoute /> },
+                      { path: 'dyno/:sessionId', element: <DynoSessionRoute /> },
                     ],
                   },
                 ],

@@ -44,6 +44,12 @@ export const paths = {
       getHref: (buildId: string) => `/builds/${encodeURIComponent(buildId)}/edit`,
     },
     parts: section('parts'),
+    /** The ledger with one part opened (the owner's edit form) or picked out (everyone else). */
+    part: {
+      path: '/builds/:buildId/parts',
+      getHref: (buildId: string, partId: string) =>
+        `/builds/${encodeURIComponent(buildId)}/parts?part=${encodeURIComponent(partId)}`,
+    },
     budget: section('budget'),
     sendOuts: section('send-outs'),
     estimate: section('estimate'),
@@ -80,6 +86,12 @@ export const paths = {
         const query = q.toString();
         return `/builds/${encodeURIComponent(buildId)}/bench/compare${query ? `?${query}` : ''}`;
       },
+    },
+    dyno: section('dyno'),
+    dynoSession: {
+      path: '/builds/:buildId/dyno/:sessionId',
+      getHref: (buildId: string, sessionId: string, search = '') =>
+        `/builds/${encodeURIComponent(buildId)}/dyno/${encodeURIComponent(sessionId)}${search}`,
     },
   },
 } as const;

@@ -1,9 +1,45 @@
 import { describe, expect, it } from 'vitest';
-import { partTotalCents } from '../../shared/ledger/cost';
 import { useTestApp } from '../helpers/app';
 import { addMember, buildWithCast, moneyKeys, signUp } from '../helpers/factories';
 
 const app = useTestApp();
+
+/**
+ * What a part costs, worked out here from the ledger's definition (product.md: price ×
+ * quantity, labour, shipping, tax, and the core charge less the refund), not by the code
+ * under test.
+ */
+function costOf(p: {
+  quantity: number;
+  unitPriceCents: number;
+  labourCents: number;
+  shippingCents: number;
+  taxCents: number;
+  coreChargeCents: number;
+  coreRefundCents: number;
+}) {
+  return (
+    p.unitPriceCents * p.quantity +
+    p.labourCents +
+    p.shippingCents +
+    p.taxCents +
+    p.coreChargeCents -
+    p.coreRefundCents
+  );
+}
+
+/** Today as the server dates a stamp: the UTC calendar day. */
+const utcToday = () => new Date().toISOString().slice(0, 10);
+
+/** A response body as raw bytes, to see exactly what a spreadsheet program would read. */
+function rawBody(
+  res: import('node:http').IncomingMessage,
+  done: (err: Error | null, body: Buffer) => void,
+) {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => done(null, Buffer.concat(chunks)));
+}
 
 const injectors = {
   category: 'fuel-injection',
@@ -168,6 +204,53 @@ describe('parts: who may change what', () => {
   });
 });
 
+describe('parts: a status change stamps its date, whoever makes it (issue #14)', () => {
+  it('dates a status changed through the API: received, back from the shop, ordered on create', async () => {
+    const { owner, crew, shop, url, parts } = await castWithParts();
+    const day = utcToday();
+    // The injectors were ordered; crew marks them in the garage without a date.
+    const received = await crew.agent.patch(`${url}/${parts[0].id}`).send({ status: 'in-hand' });
+    expect(received.status).toBe(200);
+    expect(received.body.part).toMatchObject({ status: 'in-hand', receivedOn: day });
+    // The shop hands back what it had: received and back on the same day.
+    const back = await shop.agent.patch(`${url}/${parts[1].id}`).send({ status: 'in-hand' });
+    expect(back.status).toBe(200);
+    expect(back.body.part).toMatchObject({ backOn: day, receivedOn: day });
+    // A part created as ordered is ordered today; a date given is kept.
+    const created = await owner.agent
+      .post(url)
+      .send({ category: 'exhaust', name: 'Down-pipe', status: 'ordered' });
+    expect(created.body.part.orderedOn).toBe(day);
+    const given = await owner.agent
+      .patch(`${url}/${parts[2].id}`)
+      .send({ status: 'ordered', orderedOn: '2026-01-02' });
+    expect(given.body.part.orderedOn).toBe('2026-01-02');
+  });
+
+  it('changes the status without a date rather than refuse, when today would be out of order', async () => {
+    const { owner, url, parts } = await castWithParts();
+    await owner.agent
+      .patch(`${url}/${parts[2].id}`)
+      .send({ status: 'ordered', orderedOn: '2099-01-01' });
+    const res = await owner.agent.patch(`${url}/${parts[2].id}`).send({ status: 'in-hand' });
+    expect(res.status).toBe(200);
+    expect(res.body.part).toMatchObject({ status: 'in-hand', receivedOn: null });
+  });
+
+  it('dates the parts a CSV import adds with a status', async () => {
+    const { owner, url } = await castWithParts();
+    const csv =
+      'category,name,status,installedOn\nexhaust,Down-pipe,ordered,\ncooling,Radiator,installed,2026-03-04\n';
+    const res = await owner.agent.post(`${url}/import`).attach('file', Buffer.from(csv), 'p.csv');
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const list = (await owner.agent.get(url)).body.parts;
+    expect(list.find((p: { name: string }) => p.name === 'Down-pipe').orderedOn).toBe(utcToday());
+    expect(list.find((p: { name: string }) => p.name === 'Radiator').installedOn).toBe(
+      '2026-03-04',
+    );
+  });
+});
+
 describe('parts: bad input', () => {
   it('refuses negative quantities and money, unknown category, status and unit', async () => {
     const { owner, url } = await castWithParts();
@@ -234,9 +317,7 @@ describe('budget', () => {
     const budget = res.body.budget;
     const live = body.parts.filter((p: { status: string }) => p.status !== 'returned');
     const sum = (pred: (p: { status: string }) => boolean) =>
-      live
-        .filter(pred)
-        .reduce((s: number, p: Parameters<typeof partTotalCents>[0]) => s + partTotalCents(p), 0);
+      live.filter(pred).reduce((s: number, p: Parameters<typeof costOf>[0]) => s + costOf(p), 0);
     expect(budget.totals.plannedCents).toBe(sum(() => true));
     expect(budget.totals.committedCents).toBe(sum((p) => p.status !== 'planned'));
     expect(budget.totals.spentCents).toBe(
@@ -267,6 +348,44 @@ describe('budget', () => {
 });
 
 describe('CSV export and import', () => {
+  it('names the file after the build and the day, and starts it with a UTF-8 byte-order mark (issue #14)', async () => {
+    const { owner, url } = await castWithParts();
+    // A rating note with °, — and ³, which a spreadsheet program misreads without the mark.
+    await owner.agent.post(url).send({
+      category: 'fuel-injection',
+      name: 'Nozzles — 150 mm³ at 40 °C',
+      ratingValue: 150,
+      ratingUnit: 'mm3-per-stroke',
+    });
+    // (superagent types its Node parser loosely; rawBody reads the IncomingMessage it is given.)
+    const res = await owner.agent
+      .get(`${url}.csv`)
+      .buffer(true)
+      .parse(rawBody as never);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/text\/csv; charset=utf-8/);
+    // The factory build is "Test hauler".
+    // (RFC 6266: the name needs no quotes when it is a plain token.)
+    expect(res.headers['content-disposition']).toMatch(
+      new RegExp(`^attachment; filename="?test-hauler-parts-${utcToday()}\\.csv"?$`),
+    );
+    const bytes = res.body as Buffer;
+    expect([...bytes.subarray(0, 3)]).toEqual([0xef, 0xbb, 0xbf]); // U+FEFF in UTF-8
+    expect(bytes.subarray(3).toString('utf8')).toMatch(/^category,name,/);
+    expect(bytes.toString('utf8')).toContain('Nozzles — 150 mm³ at 40 °C');
+  });
+
+  it('names a build with letters outside ASCII in the UTF-8 form of the header', async () => {
+    const { owner, build, url } = await castWithParts();
+    await owner.agent
+      .patch(`/api/builds/${build.id}`)
+      .send({ name: 'Nacht Fracht: Ölwanne & Co.' });
+    const res = await owner.agent.get(`${url}.csv`);
+    expect(res.headers['content-disposition']).toContain(
+      `filename*=UTF-8''nacht-fracht-%C3%B6lwanne-co-parts-${utcToday()}.csv`,
+    );
+  });
+
   it('round-trips: export then import into another build gives the same parts', async () => {
     const { owner, url } = await castWithParts();
     const csv = await owner.agent.get(`${url}.csv`);
@@ -335,9 +454,36 @@ describe('CSV export and import', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('invalid_rows');
     expect(res.body.error.rows.map((r: { row: number }) => r.row)).toEqual([3, 4]);
-    expect(res.body.error.rows[1].fields).toHaveProperty('category');
+    expect(res.body.error.message).toBe('2 rows of 3 need fixing; nothing was saved');
     expect(res.body.error.rows[1].fields).toHaveProperty('unitPriceCents');
+    // The bad category is echoed, and the allowed ones listed.
+    const category = res.body.error.rows[1].fields.category;
+    expect(category).toMatch(/^"warp-drive" is not a category\. Use one of: fuel-injection, /);
+    expect(category).toContain('bottom-end');
+    expect(category).toContain('other');
     expect((await owner.agent.get(url)).body.parts).toHaveLength(3);
+  });
+
+  it('says "1 row", and echoes a bad status and rating unit with the allowed ones (issue #14)', async () => {
+    const { owner, url } = await castWithParts();
+    const one = await owner.agent
+      .post(`${url}/import`)
+      .attach(
+        'file',
+        Buffer.from('category,name,status,ratingValue,ratingUnit\nexhaust,Pipe,lost,5,furlongs\n'),
+        'p.csv',
+      );
+    expect(one.status).toBe(400);
+    expect(one.body.error.message).toBe('1 row of 1 needs fixing; nothing was saved');
+    const fields = one.body.error.rows[0].fields;
+    expect(fields.status).toMatch(/^"lost" is not a status\. Use one of: planned, ordered, /);
+    expect(fields.ratingUnit).toMatch(/^"furlongs" is not a rating unit\. Use one of: hp-crank, /);
+    const empty = await owner.agent
+      .post(`${url}/import`)
+      .attach('file', Buffer.from('category,name\n,Pipe\n'), 'p.csv');
+    expect(empty.body.error.rows[0].fields.category).toMatch(
+      /^The category is empty\. Use one of:/,
+    );
   });
 
   it('refuses wrong columns, a 20 MB file and text that is not UTF-8', async () => {

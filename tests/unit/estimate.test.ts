@@ -18,10 +18,26 @@ import {
 } from '../../shared/schemas/estimate';
 import { ratingUnits, type PartCategory, type RatingUnit } from '../../shared/schemas/parts';
 import { convertPower } from '../../shared/units';
+import { formatFigure, formatHeadroom } from '../../src/features/estimate/format';
 
 // reference.md's full value of lbf·ft → N·m (NIST SP 811 (2008) B.9, from the exact definitions);
 // parsed from text because the literal has one more digit than a double holds.
 const LBF_FT_NM_REF = Number('1.3558179483314004');
+// Typed in from reference.md, never imported from the code under test:
+const HP_W_REF = 745.69987158227; // hp (550 ft·lbf/s) → W, NIST SP 811 (2008) B.9
+const HP_TORQUE_REF = 5252.113122; // 33000/2π, definition of power P = 2πnT/60 (reference.md)
+const G_PER_KWH_PER_LB_PER_HP_H = 608.27739; // lb/(hp·h) → g/kWh, reference.md (derived)
+const LB_KG_REF = 0.45359237; // NIST SP 811 (2008) B.8, exact
+const GAL_L_REF = 3.785411784; // NIST SP 811 (2008) B.8, exact
+
+/** Every number anywhere in a value, with its path, to check none is NaN, ±Infinity or a JSON null. */
+function numbersIn(value: unknown, path = '', out: [string, unknown][] = []): [string, unknown][] {
+  if (typeof value === 'number') out.push([path, value]);
+  else if (Array.isArray(value)) value.forEach((v, i) => numbersIn(v, `${path}.${i}`, out));
+  else if (value && typeof value === 'object')
+    for (const [k, v] of Object.entries(value)) numbersIn(v, `${path}.${k}`, out);
+  return out;
+}
 
 function expectRel(actual: number, expected: number, rel: number) {
   expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(
@@ -47,8 +63,6 @@ const comp = (r: EstimateResult, id: string) => r.components.find((c) => c.id ==
 describe('fuel from injectors', () => {
   it('8 cyl, 100 mm³, 3000 rpm, 0.85 kg/L, 210 g/kWh → 17.0 g/s, 61.2 kg/h, 291.4286 kW = 390.812 hp', () => {
     // reference.md worked check (fuel from injectors)
-    const mgPerStroke = 100 * 0.85; // 85 mg/stroke
-    expect(mgPerStroke).toBeCloseTo(85, 12);
     const gPerS = fuelGPerSFromDelivery(100, 0.85, 8, 3000);
     expectRel(gPerS, 17.0, 1e-12);
     expectRel(gPerS * 3.6, 61.2, 1e-12);
@@ -123,17 +137,20 @@ describe('fuel from air', () => {
 });
 
 describe('BSFC entered in either unit', () => {
-  it('gives the same requirements for 0.40 lb/(hp·h) and 243.311 g/kWh', () => {
-    // 0.40 × 608.27739 = 243.310956 g/kWh (reference.md factor)
+  it('burns the same fuel for 0.40 lb/(hp·h) and 243.311 g/kWh: 280 lb/h at 700 hp', () => {
+    // 0.40 lb/(hp·h) × 700 hp = 280 lb/h (definition of BSFC); lb = 0.45359237 kg (NIST SP 811
+    // (2008) B.8); 0.40 × 608.27739 = 243.310956 g/kWh (reference.md factor)
+    const expected = 280 * LB_KG_REF;
     const lb = run({
       target: { powerHp: 700, basis: 'crank' },
       assumptions: { bsfc: 0.4, bsfcUnit: 'lb-per-hp-h' },
     });
     const g = run({
       target: { powerHp: 700, basis: 'crank' },
-      assumptions: { bsfc: 0.4 * 608.27739, bsfcUnit: 'g-per-kwh' },
+      assumptions: { bsfc: 0.4 * G_PER_KWH_PER_LB_PER_HP_H, bsfcUnit: 'g-per-kwh' },
     });
-    expectRel(g.requirements.fuelMassFlow.value, lb.requirements.fuelMassFlow.value, 1e-8);
+    expectRel(lb.requirements.fuelMassFlow.value, expected, 1e-12);
+    expectRel(g.requirements.fuelMassFlow.value, expected, 1e-8);
     expectRel(g.assumptions.bsfcLbPerHpH, 0.4, 1e-8);
   });
 
@@ -176,13 +193,71 @@ describe('requirements at the target', () => {
     expectRel(r.requirements.crankTorqueNm.value, 500 * LBF_FT_NM_REF, 1e-6); // NIST SP 811 (2008) B.9
   });
 
-  it("uses the owner's torque target when one is set", () => {
+  it("uses the owner's torque target when it is above the torque at peak power", () => {
+    // 650 hp at 3000 rpm needs 650 × 5252.113122 / 3000 = 1137.96 lbf·ft (definition of power,
+    // reference.md), less than the 1400 lbf·ft target, so the target is what parts must hold.
     const r = run({ target: { powerHp: 650, basis: 'crank', torqueLbft: 1400 } });
     expect(r.requirements.crankTorque.value).toBe(1400);
+    expectRel(r.requirements.crankTorqueAtPeakPower.value, (650 * HP_TORQUE_REF) / 3000, 1e-9);
     expect(r.requirements.crankTorque.working.inputs[0]).toMatchObject({
       from: 'target',
       ref: 'torqueLbft',
     });
+  });
+
+  it('keeps the torque at peak power when the torque target is below it (issue #14)', () => {
+    // 800 crank hp at 3200 rpm needs 800 × 5252.113122 / 3200 = 1313.03 lbf·ft (definition of
+    // power, reference.md). A 1000 lbf·ft target must not replace that: the larger is used.
+    const r = run({
+      target: { powerHp: 800, basis: 'crank', torqueLbft: 1000 },
+      assumptions: { peakRpm: 3200 },
+      components: [
+        part('trans', 'transmission', 1200, 'lbf-ft'),
+        part('tc', 'torque-converter', 1600, 'n-m'),
+      ],
+    });
+    const needed = (800 * HP_TORQUE_REF) / 3200;
+    expectRel(r.requirements.crankTorque.value, needed, 1e-9);
+    expectRel(r.requirements.crankTorqueNm.value, needed * LBF_FT_NM_REF, 1e-9);
+    const trans = comp(r, 'trans');
+    expectRel(trans.requirement.value, needed, 1e-9);
+    // 1200 ÷ 1313.03 − 1 = −8.61 %: over, not "+20 %, ok"
+    expectRel(trans.headroomPct.value, (1200 / needed - 1) * 100, 1e-9);
+    expect(trans.headroomPct.value).toBeCloseTo(-8.61, 2);
+    expect(trans.status).toBe('over');
+    // 1200 lbf·ft at 3200 rpm = 1200 × 3200 / 5252.113122 = 731.1 hp (definition of power)
+    expectRel(trans.supportedCrankPower.value, (1200 * 3200) / HP_TORQUE_REF, 1e-9);
+    expect(trans.supportedCrankPower.value).toBeCloseTo(731.1, 1);
+    expect(trans.notes).toEqual([]);
+    // The N·m part sees the same requirement in N·m (NIST SP 811 (2008) B.9)
+    expectRel(comp(r, 'tc').requirement.value, needed * LBF_FT_NM_REF, 1e-9);
+    expect(r.warnings.find((w) => w.componentId === 'trans')?.code).toBe('part-over');
+  });
+
+  it('says the supported power of a torque-rated part assumes the torque curve scales when the torque target sets the limit', () => {
+    // 800 hp at 3200 rpm needs 1313.03 lbf·ft at peak power (definition of power, reference.md);
+    // a 1500 lbf·ft target is above it, so a 1400 lbf·ft part is short by 1 − 1400/1500 = 6.67 %
+    // and supports 800 × 1400/1500 = 746.7 hp only if the whole curve scales with power.
+    const r = run({
+      target: { powerHp: 800, basis: 'crank', torqueLbft: 1500 },
+      assumptions: { peakRpm: 3200 },
+      components: [
+        part('trans', 'transmission', 1400, 'lbf-ft'),
+        part('be', 'bottom-end', 2000, 'hp-crank'),
+      ],
+    });
+    const trans = comp(r, 'trans');
+    expect(trans.requirement.value).toBe(1500);
+    expectRel(trans.headroomPct.value, (1400 / 1500 - 1) * 100, 1e-12);
+    expectRel(trans.supportedCrankPower.value, (800 * 1400) / 1500, 1e-12);
+    expect(trans.notes.map((n) => n.code)).toEqual(['torque-curve-scaled']);
+    // At 3200 rpm alone, 1400 lbf·ft would allow 1400 × 3200 / 5252.113122 = 853.0 hp.
+    expect(trans.notes[0].message).toMatch(/whole torque curve scales with power/);
+    expect(trans.notes[0].message).toContain('about 853 crank hp');
+    expect(trans.supportedCrankPower.working.formula).toMatch(/whole torque curve/);
+    expect(r.weakestLink!.message).toMatch(/if the whole torque curve scales with power/);
+    // A power-rated part is not affected by the torque target.
+    expect(comp(r, 'be').notes).toEqual([]);
   });
 
   it('converts the fuel flow to volume with the density, and per injector per stroke', () => {
@@ -195,7 +270,7 @@ describe('requirements at the target', () => {
     });
     expectRel(r.requirements.fuelMassFlow.value, 61.2, 1e-12);
     expectRel(r.requirements.fuelVolumeFlow.value, 72, 1e-12);
-    expectRel(r.requirements.fuelVolumeFlowGalPerH.value, 72 / 3.785411784, 1e-12); // NIST SP 811 (2008) B.8
+    expectRel(r.requirements.fuelVolumeFlowGalPerH.value, 72 / GAL_L_REF, 1e-12); // NIST SP 811 (2008) B.8
     expectRel(r.requirements.injectorDelivery.value, 100, 1e-12);
   });
 });
@@ -219,7 +294,7 @@ describe('each rated part in its own unit', () => {
     expectRel(trans.headroomPct.value, 12.5, 1e-12); // 720 / 640 − 1
     expectRel(trans.supportedCrankPower.value, 900, 1e-12); // 720 ÷ 0.8
     const tc = comp(r, 'tc');
-    expectRel(tc.requirement.value, (800 * 745.69987158227) / 1000, 1e-14); // NIST SP 811 (2008) B.9
+    expectRel(tc.requirement.value, (800 * HP_W_REF) / 1000, 1e-14); // NIST SP 811 (2008) B.9
   });
 
   it('does not multiply power, torque or per-injector ratings by quantity', () => {
@@ -231,9 +306,10 @@ describe('each rated part in its own unit', () => {
         part('rods', 'bottom-end', 1200, 'lbf-ft', 8),
       ],
     });
-    for (const id of ['studs', 'inj', 'rods']) {
+    const rated = { studs: 1000, inj: 200, rods: 1200 };
+    for (const [id, rating] of Object.entries(rated)) {
       expect(comp(r, id).quantityMultiplies).toBe(false);
-      expect(comp(r, id).capacity.value).toBe(comp(r, id).ratingValue);
+      expect(comp(r, id).capacity.value).toBe(rating);
     }
   });
 
@@ -254,7 +330,9 @@ describe('each rated part in its own unit', () => {
   it('compares N·m ratings with the crank torque in N·m', () => {
     const r = run({ target, components: [part('trans', 'transmission', 2000, 'n-m')] });
     const t = comp(r, 'trans');
-    expectRel(t.requirement.value, r.requirements.crankTorque.value * LBF_FT_NM_REF, 1e-14); // NIST SP 811 (2008) B.9
+    // 800 hp at 3000 rpm = 800 × 5252.113122 / 3000 lbf·ft (definition of power, reference.md),
+    // × 1.3558179483314004 N·m per lbf·ft (NIST SP 811 (2008) B.9)
+    expectRel(t.requirement.value, ((800 * HP_TORQUE_REF) / 3000) * LBF_FT_NM_REF, 1e-9);
   });
 
   it('sets over / tight / ok against the tight margin', () => {
@@ -321,12 +399,35 @@ describe('warnings, one scenario each', () => {
     expect(w).toMatchObject({ severity: 'danger', componentId: 'be', category: 'bottom-end' });
     expect(w.shortfall!.value).toBe(50);
     expect(w.shortfall!.unit).toBe('hp-crank');
-    expectRel(w.shortfall!.pct, (700 / 650 - 1) * 100, 1e-12);
     expect(w.shortfall!.crankHp).toBe(50);
     expect(w.message).toMatch(/exceeds the bottom-end rating/);
-    expect(w.message).toMatch(/50 crank hp \(7\.69 %\) over/);
     expect(r.warnings[0].code).toBe('target-exceeds-bottom-end');
     expect(codes(r)).not.toContain('part-over'); // the bottom end gets its own warning, not both
+  });
+
+  it('states the shortfall on the basis headroom uses, so one page never shows two percentages (issue #14)', () => {
+    // 650 hp rated, 700 hp needed: headroom 650/700 − 1 = −7.14 %; short by 50/700 = 7.14 % of
+    // what the target needs, not 50/650 = 7.69 % of the rating.
+    const r = run({
+      target: { powerHp: 700, basis: 'crank' },
+      components: [
+        part('be', 'bottom-end', 650, 'hp-crank'),
+        part('trans', 'transmission', 600, 'hp-crank'),
+      ],
+    });
+    for (const id of ['be', 'trans']) {
+      const c = comp(r, id);
+      const w = r.warnings.find((x) => x.componentId === id)!;
+      expectRel(w.shortfall!.pct, -c.headroomPct.value, 1e-12);
+    }
+    const be = r.warnings.find((x) => x.componentId === 'be')!;
+    expectRel(be.shortfall!.pct, (50 / 700) * 100, 1e-12);
+    expect(be.message).toContain('50 crank hp past its rating (−7.1 % headroom)');
+    const trans = r.warnings.find((x) => x.componentId === 'trans')!;
+    expectRel(trans.shortfall!.pct, (100 / 700) * 100, 1e-12);
+    expect(trans.message).toContain('100 crank hp more (−14.3 % headroom)');
+    // Percentages in sentences to one decimal, as the pages show them.
+    expect(r.weakestLink!.message).toContain('(−14.3 % headroom)');
   });
 
   it('target-exceeds-bottom-end also for a torque-rated bottom end', () => {
@@ -367,7 +468,9 @@ describe('warnings, one scenario each', () => {
     });
     expect(codes(r)).toEqual(['part-tight']);
     expect(r.warnings[0]).toMatchObject({ componentId: 'tc', severity: 'warning' });
-    expect(r.warnings[0].message).toMatch(/^Tight: tc has 5 % headroom, less than the 10 % margin/);
+    expect(r.warnings[0].message).toMatch(
+      /^Tight: tc has \+5 % headroom, less than the 10 % margin/,
+    );
   });
 
   it('no-bottom-end-rating: nothing rated in the bottom end', () => {
@@ -411,7 +514,7 @@ describe('the working', () => {
       components: ratingUnits.map((u, i) => part(`p${i}`, 'other', 100, u)),
     });
     const all = figures(r);
-    expect(all.length).toBe(11 + 4 * ratingUnits.length + 2);
+    expect(all.length).toBe(12 + 4 * ratingUnits.length + 2);
     for (const f of all) {
       expect(f.working.formula.length, f.label).toBeGreaterThan(5);
       expect(f.working.inputs.length, f.label).toBeGreaterThan(0);
@@ -422,6 +525,158 @@ describe('the working', () => {
     expect(r.requirements.crankPowerKw.working.constants[0].source).toMatch(/NIST SP 811/);
     expect(r.requirements.lambda.working.constants[0].source).toMatch(/Heywood.*\[memory\]/);
     for (const a of r.assumptionDetails) expect(a.source.length, a.key).toBeGreaterThan(5);
+  });
+
+  it("labels a build's own cylinder count as the build's, not an assumption (issue #14)", () => {
+    const input = estimateRequestSchema.parse({
+      target: { powerHp: 600, basis: 'crank' },
+      assumptions: { cylinders: 6 },
+    });
+    const cylindersIn = (r: EstimateResult) =>
+      r.requirements.injectorDelivery.working.inputs.find((i) => i.ref === 'cylinders')!;
+    const fromBuild = estimate(input, { cylindersFrom: 'build' });
+    expect(cylindersIn(fromBuild)).toMatchObject({ value: 6, from: 'build' });
+    expect(fromBuild.assumptions.cylindersFrom).toBe('build');
+    expect(fromBuild.assumptionDetails.find((d) => d.key === 'cylinders')!.source).toMatch(
+      /the build/,
+    );
+    // A stateless request's cylinder count is one of its assumptions.
+    expect(cylindersIn(estimate(input))).toMatchObject({ value: 6, from: 'assumption' });
+  });
+});
+
+describe('fuel supply and return flow', () => {
+  it('says a lift pump is compared with fuel burned only, in its notes and in the working (issue #14)', () => {
+    const r = run({
+      target: { powerHp: 700, basis: 'crank' },
+      components: [
+        part('pump', 'fuel-supply', 200, 'l-per-h'),
+        part('pump2', 'fuel-supply', 50, 'gal-per-h'),
+        part('turbo', 'turbocharger', 100, 'lb-per-min'),
+      ],
+    });
+    for (const id of ['pump', 'pump2']) {
+      expect(comp(r, id).notes.map((n) => n.code)).toEqual(['return-flow-not-counted']);
+      expect(comp(r, id).notes[0].message).toMatch(/return flow .* is not counted/);
+      expect(comp(r, id).requirement.working.formula).toMatch(/return flow .* not counted/);
+    }
+    expect(comp(r, 'turbo').notes).toEqual([]);
+    // The figure itself is still fuel burned: 700 hp × 0.40 lb/(hp·h) = 280 lb/h (definition of
+    // BSFC), ÷ 0.85 kg/L (Chevron 2007 default) → L/h; lb = 0.45359237 kg (NIST SP 811 B.8).
+    expectRel(comp(r, 'pump').requirement.value, (280 * LB_KG_REF) / 0.85, 1e-12);
+  });
+});
+
+describe('inputs that cannot give a finite figure (issue #14)', () => {
+  const base = () =>
+    estimateRequestSchema.parse({
+      target: { powerHp: 700, basis: 'crank' },
+      components: [part('be', 'bottom-end', 900, 'hp-crank')],
+    });
+  const withPart = (c: Partial<ReturnType<typeof part>>) => {
+    const input = base();
+    input.components.push({ ...part('bad', 'transmission', 1, 'lbf-ft'), ...c });
+    return input;
+  };
+  const allFinite = (r: EstimateResult) => {
+    for (const [path, n] of numbersIn(JSON.parse(JSON.stringify(r))))
+      expect(Number.isFinite(n), path).toBe(true);
+    expect(JSON.stringify(r)).not.toMatch(/Infinity|NaN/);
+  };
+
+  it('leaves a part rated 0, NaN or Infinity out of the comparison and warns instead', () => {
+    for (const ratingValue of [0, -3, Number.NaN, Number.POSITIVE_INFINITY]) {
+      const r = estimate(withPart({ ratingValue }));
+      expect(r.components.map((c) => c.id)).toEqual(['be']);
+      const w = r.warnings.find((x) => x.code === 'rating-unusable')!;
+      expect(w).toMatchObject({ componentId: 'bad', severity: 'warning' });
+      expect(w.message).toMatch(/^bad is not checked/);
+      expectRel(r.supported!.crankPower.value, 900, 1e-12);
+      allFinite(r);
+    }
+    const zero = estimate(withPart({ ratingValue: 0 })).warnings.find(
+      (x) => x.code === 'rating-unusable',
+    )!;
+    expect(zero.message).toContain('its rating is 0 lbf·ft');
+    // Only an unusable part: nothing rated, so nothing supported, and still no NaN.
+    const input = base();
+    input.components = [{ ...part('bad', 'transmission', 0, 'lbf-ft') }];
+    const only = estimate(input);
+    expect(only.supported).toBeNull();
+    allFinite(only);
+  });
+
+  it('leaves out a part with a quantity below 1', () => {
+    const r = estimate(withPart({ ratingValue: 100, ratingUnit: 'lb-per-min', quantity: 0 }));
+    expect(r.components.map((c) => c.id)).toEqual(['be']);
+    expect(r.warnings.map((w) => w.code)).toContain('rating-unusable');
+  });
+
+  it('treats a torque target of 0 as none, and refuses a negative or non-finite one', () => {
+    const input = base();
+    input.target.torqueLbft = 0;
+    input.components.push(part('trans', 'transmission', 1500, 'lbf-ft'));
+    const r = estimate(input);
+    expect(r.target.torqueLbft).toBeNull();
+    // 700 hp at 3000 rpm = 700 × 5252.113122 / 3000 lbf·ft (definition of power, reference.md)
+    expectRel(r.requirements.crankTorque.value, (700 * HP_TORQUE_REF) / 3000, 1e-9);
+    expectRel(comp(r, 'trans').supportedCrankPower.value, (1500 * 3000) / HP_TORQUE_REF, 1e-9);
+    allFinite(r);
+    for (const bad of [-1, Number.NaN, Number.POSITIVE_INFINITY]) {
+      input.target.torqueLbft = bad;
+      expect(() => estimate(input)).toThrow(RangeError);
+    }
+  });
+
+  it('refuses a target, rpm or drivetrain loss it cannot work with', () => {
+    for (const powerHp of [0, -1, Number.NaN, Number.POSITIVE_INFINITY]) {
+      const input = base();
+      input.target.powerHp = powerHp;
+      expect(() => estimate(input), String(powerHp)).toThrow(RangeError);
+    }
+    const loss = base();
+    loss.assumptions.drivetrainLossPct = 100; // a wheel target would need infinite crank power
+    expect(() => estimate(loss)).toThrow(RangeError);
+    const rpm = base();
+    rpm.assumptions.peakRpm = 0;
+    expect(() => estimate(rpm)).toThrow(RangeError);
+  });
+
+  it('refuses rather than answer Infinity for a target so small every ratio overflows', () => {
+    const input = base();
+    input.target.powerHp = 1e-310; // a subnormal double: 900 ÷ it is Infinity
+    expect(() => estimate(input)).toThrow(/not a finite number/);
+  });
+
+  it('the request schema refuses a target under 0.1 hp, the least a build can store', () => {
+    const res = estimateRequestSchema.safeParse({ target: { powerHp: 0.04, basis: 'crank' } });
+    expect(res.success).toBe(false);
+    expect(res.error!.issues[0].path).toEqual(['target', 'powerHp']);
+  });
+
+  it('gives only finite figures for any request the schema accepts', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0.1, max: 5000, noNaN: true }),
+        fc.constantFrom('crank' as const, 'wheel' as const),
+        fc.option(fc.double({ min: Number.MIN_VALUE, max: 10_000, noNaN: true }), { nil: null }),
+        fc.double({ min: 0, max: 40, noNaN: true }),
+        fc.constantFrom(...ratingUnits),
+        fc.double({ min: Number.MIN_VALUE, max: 100_000, noNaN: true }),
+        fc.integer({ min: 1, max: 10_000 }),
+        (powerHp, basis, torqueLbft, drivetrainLossPct, ratingUnit, ratingValue, quantity) => {
+          const input = estimateRequestSchema.parse({
+            target: { powerHp, basis, torqueLbft },
+            assumptions: { drivetrainLossPct },
+            components: [
+              { id: 'x', name: 'x', category: 'other', ratingValue, ratingUnit, quantity },
+            ],
+          });
+          const r = estimate(input);
+          return numbersIn(JSON.parse(JSON.stringify(r))).every(([, n]) => Number.isFinite(n));
+        },
+      ),
+    );
   });
 });
 
@@ -455,7 +710,71 @@ describe('properties', () => {
     );
   });
 
-  it('a part with zero headroom supports exactly the target', () => {
+  /**
+   * What the target asks of a part in each rating unit, worked out here from reference.md's
+   * formulas and constants (never from the estimator): crank = wheel ÷ (1 − loss);
+   * hp = T × rpm / 5252.113122; P[kW] = hp × 745.69987158227 / 1000 (NIST SP 811 B.9);
+   * fuel[kg/h] = kW × BSFC[g/kWh] / 1000 with 608.27739 g/kWh per lb/(hp·h);
+   * V[mm³] = ṁ[g/s] × 1000 / ρ / (cyl × rpm / 120); air[lb/min] = fuel × AFR / 0.45359237 / 60.
+   */
+  function handRequirement(
+    u: RatingUnit,
+    t: { powerHp: number; basis: 'crank' | 'wheel' },
+    a: { lossPct: number; rpm: number; cylinders: number },
+  ): { crankHp: number; value: number } {
+    const keep = 1 - a.lossPct / 100;
+    const crankHp = t.basis === 'crank' ? t.powerHp : t.powerHp / keep;
+    const kw = (crankHp * HP_W_REF) / 1000;
+    const torque = (crankHp * HP_TORQUE_REF) / a.rpm;
+    const fuelKgPerH = (kw * 0.4 * G_PER_KWH_PER_LB_PER_HP_H) / 1000; // default 0.40 lb/(hp·h), common practice
+    const density = 0.85; // default, Chevron (2007)
+    const afr = 18; // default, common practice
+    const values: Record<RatingUnit, number> = {
+      'hp-crank': crankHp,
+      'hp-wheel': crankHp * keep,
+      kw,
+      'lbf-ft': torque,
+      'n-m': torque * LBF_FT_NM_REF,
+      'mm3-per-stroke': ((fuelKgPerH / 3.6) * 1000) / density / ((a.cylinders * a.rpm) / 120),
+      'lb-per-min': (fuelKgPerH * afr) / LB_KG_REF / 60,
+      'l-per-h': fuelKgPerH / density,
+      'gal-per-h': fuelKgPerH / density / GAL_L_REF,
+    };
+    return { crankHp, value: values[u] };
+  }
+
+  it('matches the requirement worked out by hand from reference.md, for every unit', () => {
+    fc.assert(
+      fc.property(
+        targetHp,
+        basis,
+        unit,
+        fc.double({ min: 0, max: 40, noNaN: true }),
+        fc.integer({ min: 1000, max: 6000 }),
+        fc.integer({ min: 1, max: 16 }),
+        rating,
+        (hp, b, u, loss, rpm, cylinders, value) => {
+          const hand = handRequirement(
+            u,
+            { powerHp: hp, basis: b },
+            { lossPct: loss, rpm, cylinders },
+          );
+          const r = run({
+            target: { powerHp: hp, basis: b },
+            assumptions: { drivetrainLossPct: loss, peakRpm: rpm, cylinders },
+            components: [part('x', 'other', value, u)],
+          });
+          const c = r.components[0];
+          // 608.27739 is printed to 8 digits, hence 1e-7 rather than 1e-12.
+          expectRel(c.requirement.value, hand.value, 1e-7);
+          expectRel(c.headroomPct.value / 100 + 1, value / hand.value, 1e-7);
+          expectRel(c.supportedCrankPower.value, (hand.crankHp * value) / hand.value, 1e-7);
+        },
+      ),
+    );
+  });
+
+  it('a part rated exactly at the hand-worked requirement has zero headroom and supports the target', () => {
     fc.assert(
       fc.property(
         targetHp,
@@ -465,63 +784,21 @@ describe('properties', () => {
         fc.integer({ min: 1000, max: 6000 }),
         fc.integer({ min: 1, max: 16 }),
         (hp, b, u, loss, rpm, cylinders) => {
-          const input = estimateRequestSchema.parse({
+          const hand = handRequirement(
+            u,
+            { powerHp: hp, basis: b },
+            { lossPct: loss, rpm, cylinders },
+          );
+          fc.pre(hand.value <= 100_000);
+          const r = run({
             target: { powerHp: hp, basis: b },
             assumptions: { drivetrainLossPct: loss, peakRpm: rpm, cylinders },
+            components: [part('x', 'other', hand.value, u)],
           });
-          const first = estimate(input);
-          const key = {
-            'hp-crank': 'crankPower',
-            'hp-wheel': 'wheelPower',
-            kw: 'crankPowerKw',
-            'lbf-ft': 'crankTorque',
-            'n-m': 'crankTorqueNm',
-            'mm3-per-stroke': 'injectorDelivery',
-            'lb-per-min': 'airMassFlow',
-            'l-per-h': 'fuelVolumeFlow',
-            'gal-per-h': 'fuelVolumeFlowGalPerH',
-          } as const;
-          const exact = first.requirements[key[u]].value;
-          const r = estimate({
-            ...input,
-            components: [
-              {
-                id: 'x',
-                name: 'x',
-                category: 'other',
-                ratingValue: exact,
-                ratingUnit: u,
-                quantity: 1,
-              },
-            ],
-          });
-          const c = r.components[0];
-          return (
-            c.headroomPct.value === 0 &&
-            c.supportedCrankPower.value === r.requirements.crankPower.value &&
-            c.status === 'tight' &&
-            r.supported!.crankPower.value === r.requirements.crankPower.value
-          );
+          expect(Math.abs(r.components[0].headroomPct.value)).toBeLessThan(1e-5);
+          expectRel(r.supported!.crankPower.value, hand.crankHp, 1e-7);
         },
       ),
-    );
-  });
-
-  it('the supported crank power, taken as the target, leaves the weakest part with zero headroom', () => {
-    fc.assert(
-      fc.property(targetHp, unit, rating, (hp, u, r) => {
-        const first = run({
-          target: { powerHp: hp, basis: 'crank' },
-          components: [part('x', 'other', r, u)],
-        });
-        const supported = first.supported!.crankPower.value;
-        fc.pre(supported <= 5000);
-        const again = run({
-          target: { powerHp: supported, basis: 'crank' },
-          components: [part('x', 'other', r, u)],
-        });
-        return Math.abs(again.components[0].headroomPct.value) < 1e-9;
-      }),
     );
   });
 });
@@ -574,5 +851,17 @@ describe('request schema', () => {
     expect(fieldsOf({ ...ok, horsepower: 5 })).toEqual(['']);
     const many = Array.from({ length: 501 }, (_, i) => part(`p${i}`, 'other', 1, 'hp-crank'));
     expect(fieldsOf({ ...ok, components: many })).toEqual(['components']);
+  });
+});
+
+describe('figures as the pages show them (issue #14)', () => {
+  it('rounds a percentage to one decimal in the working as on the cards: 3.87 % reads 3.9 %', () => {
+    // 760 ÷ 731.7 − 1 = 3.87 %: the card said +3.9 %, the working 3.87 %.
+    expect(formatFigure(3.8666, '%')).toBe('3.9 %');
+    expect(formatHeadroom(3.8666)).toBe('+3.9 %');
+    expect(formatFigure(15.2466, '%')).toBe('15.2 %');
+    // Other units keep their own digits; the API keeps every digit.
+    expect(formatFigure(216.926, 'mm3-per-stroke')).toBe('216.9 mm³/stroke');
+    expect(formatFigure(0.85, 'kg-per-l')).toBe('0.85 kg/L');
   });
 });

@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import { computeBudget } from '../../shared/ledger/budget';
 import { coreOwedCents, partTotalCents } from '../../shared/ledger/cost';
 import { addDays, daysBetween, sendOutStatus } from '../../shared/ledger/send-out';
+import { stampStatusDates } from '../../shared/ledger/status-dates';
 import { centsToInput, parseMoneyToCents } from '../../shared/format';
 import type { PartStatus } from '../../shared/schemas/parts';
 
@@ -18,8 +19,7 @@ const money = {
 
 describe('money in cents', () => {
   it('parses decimal text exactly, where a float multiply would not', () => {
-    expect(19.99 * 100).not.toBe(1999); // the reason for parsing the string
-    expect(parseMoneyToCents('19.99')).toBe(1999);
+    expect(parseMoneyToCents('19.99')).toBe(1999); // 19.99 × 100 in floating point is 1998.9999…
     expect(parseMoneyToCents('1,234.5')).toBe(123450);
     expect(parseMoneyToCents('$7')).toBe(700);
     expect(parseMoneyToCents('')).toBeNull();
@@ -178,5 +178,73 @@ describe('computeBudget', () => {
         },
       ),
     );
+  });
+});
+
+describe('status changes stamp their date (issue #14)', () => {
+  const today = '2026-12-02';
+  const part = {
+    status: 'ordered' as PartStatus,
+    orderedOn: '2026-11-20',
+    expectedOn: null,
+    receivedOn: null,
+    sentOutOn: null,
+    backOn: null,
+    installedOn: null,
+  };
+
+  it('fills the date of the new status when it is empty', () => {
+    expect(stampStatusDates(part, { status: 'in-hand' }, today)).toEqual({
+      status: 'in-hand',
+      receivedOn: today,
+    });
+    expect(
+      stampStatusDates({ ...part, status: 'in-hand' }, { status: 'installed' }, today),
+    ).toEqual({ status: 'installed', installedOn: today });
+    // A new part starts as planned: created as ordered, it is ordered today.
+    expect(stampStatusDates(null, { status: 'ordered' }, today)).toEqual({
+      status: 'ordered',
+      orderedOn: today,
+    });
+    // An empty box sent with the change (null) is filled like a missing one.
+    expect(stampStatusDates(part, { status: 'in-hand', receivedOn: null }, today)).toEqual({
+      status: 'in-hand',
+      receivedOn: today,
+    });
+  });
+
+  it('records the part back when it leaves a shop', () => {
+    const atShop = { ...part, status: 'at-shop' as PartStatus, sentOutOn: '2026-11-25' };
+    expect(stampStatusDates(atShop, { status: 'in-hand' }, today)).toEqual({
+      status: 'in-hand',
+      receivedOn: today,
+      backOn: today,
+    });
+  });
+
+  it('keeps a date the caller gave, and stamps nothing without a change of status', () => {
+    expect(stampStatusDates(part, { status: 'in-hand', receivedOn: '2026-11-30' }, today)).toEqual({
+      status: 'in-hand',
+      receivedOn: '2026-11-30',
+    });
+    expect(stampStatusDates(part, { status: 'ordered' }, today)).toEqual({ status: 'ordered' });
+    expect(stampStatusDates(part, { notes: 'x' }, today)).toEqual({ notes: 'x' });
+  });
+
+  it('leaves out a stamp that would put the dates out of order', () => {
+    // Ordered on a later day than "today" (a clock behind, a typo): received today would be
+    // before the order, so the status changes and the date stays empty.
+    const future = { ...part, orderedOn: '2027-01-10' };
+    expect(stampStatusDates(future, { status: 'in-hand' }, today)).toEqual({ status: 'in-hand' });
+    // Installed on an earlier day: received today would come after it.
+    const installed = {
+      ...part,
+      status: 'planned' as PartStatus,
+      orderedOn: null,
+      installedOn: '2026-11-01',
+    };
+    expect(stampStatusDates(installed, { status: 'in-hand' }, today)).toEqual({
+      status: 'in-hand',
+    });
   });
 });

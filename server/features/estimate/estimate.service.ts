@@ -10,7 +10,7 @@ import {
 } from '../../../shared/schemas/estimate';
 import { convertBsfc } from '../../../shared/units/convert';
 import { partCategoryLabels } from '../../../shared/schemas/parts';
-import { NotFoundError } from '../../lib/errors';
+import { ConflictError, NotFoundError } from '../../lib/errors';
 import * as repo from './estimate.repository';
 
 /** The default assumptions, as the schema fills them in for an empty body. */
@@ -89,6 +89,7 @@ export function anonymiseForShop(parts: repo.RatedPart[], shopUserId: string): E
       id: `other-${part.category}-${n}`,
       name: `Another part (${label}${n > 1 ? ` ${n}` : ''})`,
       ratingFor: undefined,
+      anonymised: true,
     };
   });
 }
@@ -109,12 +110,23 @@ export async function estimateBuild(
     repo.listRatedParts(knex, buildId),
   ]);
   if (!target) throw new NotFoundError('Build not found');
+  // Targets are refused below 0.1 hp on the way in; a row stored before that rule may still
+  // hold 0, from which nothing can be worked out. Say so instead of failing.
+  if (!(target.powerHp > 0)) {
+    throw new ConflictError(
+      'no_target',
+      `This build's target power is stored as ${target.powerHp} hp, so there is nothing to estimate. Set a target above zero on the build's edit page.`,
+    );
+  }
   const components = viewer.shopUserId
     ? anonymiseForShop(parts, viewer.shopUserId)
     : parts.map(({ shopUserId: _sentTo, ...part }) => part);
-  return estimate({
-    target: { powerHp: target.powerHp, basis: target.basis, torqueLbft: target.torqueLbft },
-    assumptions: { ...saved.assumptions, cylinders: target.cylinders },
-    components,
-  });
+  return estimate(
+    {
+      target: { powerHp: target.powerHp, basis: target.basis, torqueLbft: target.torqueLbft },
+      assumptions: { ...saved.assumptions, cylinders: target.cylinders },
+      components,
+    },
+    { cylindersFrom: 'build' },
+  );
 }

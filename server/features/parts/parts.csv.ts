@@ -76,6 +76,28 @@ export function unsafeCell(value: string) {
   return value.startsWith("'") && formulaLike.test(value.slice(1)) ? value.slice(1) : value;
 }
 
+/**
+ * The export's file name: the build's name and the day, so two exports (or two builds) do not
+ * arrive as parts.csv and parts (1).csv. Letters of any script are kept (the header carries
+ * them as UTF-8); anything else between them becomes one hyphen.
+ */
+export function csvFileName(buildName: string, date: string): string {
+  const slug = buildName
+    .normalize('NFKC')
+    .toLowerCase()
+    .replace(/[^\p{L}\p{N}]+/gu, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 80)
+    .replace(/-+$/, '');
+  return `${slug || 'build'}-parts-${date}.csv`;
+}
+
+/**
+ * A UTF-8 byte-order mark: without it, spreadsheet programs (Excel above all) read the file as
+ * their local code page and show °, — and ³ as mojibake. parseCsv strips it again.
+ */
+export const UTF8_BOM = '\uFEFF';
+
 export function partsToCsv(
   parts: PartRecord[],
   opts: { withMoney: boolean; shopEmails: Map<string, string> },
@@ -90,17 +112,22 @@ export function partsToCsv(
       return v == null ? '' : safeCell(String(v));
     }),
   );
-  return Papa.unparse({ fields: [...columns], data: rows }, { newline: '\r\n' });
+  return UTF8_BOM + Papa.unparse({ fields: [...columns], data: rows }, { newline: '\r\n' });
 }
 
 function lookup<T extends string>(
   ids: readonly T[],
   labels: Record<T, string>,
   raw: string,
-): T | string {
-  const v = raw.trim();
-  const lower = v.toLowerCase();
-  return ids.find((id) => id === lower || labels[id].toLowerCase() === lower) ?? v;
+): T | undefined {
+  const lower = raw.trim().toLowerCase();
+  return ids.find((id) => id === lower || labels[id].toLowerCase() === lower);
+}
+
+/** A cell that names none of the allowed values: echo it, and list what is allowed. */
+function notOneOf(what: string, raw: string, ids: readonly string[]): string {
+  const given = raw.trim() ? `"${raw.trim()}" is not a ${what}` : `The ${what} is empty`;
+  return `${given}. Use one of: ${ids.join(', ')} (or its name as the ledger shows it).`;
 }
 
 export type CsvRowResult = {
@@ -143,16 +170,25 @@ export function parseCsv(
     const input: Record<string, unknown> = {};
     const fields: Record<string, string> = {};
     const get = (c: CsvColumn) => unsafeCell(cells[c] ?? '').trim();
-    input.category = lookup(partCategories, partCategoryLabels, get('category'));
+    const category = lookup(partCategories, partCategoryLabels, get('category'));
+    if (category) input.category = category;
+    else fields.category = notOneOf('category', get('category'), partCategories);
     input.name = get('name');
     for (const c of ['vendor', 'partNumber', 'notes', 'ratingFor'] as const)
       if (c in cells) input[c] = get(c);
     if (get('quantity')) input.quantity = Number(get('quantity'));
-    if (get('status')) input.status = lookup(partStatuses, partStatusLabels, get('status'));
+    if (get('status')) {
+      const status = lookup(partStatuses, partStatusLabels, get('status'));
+      if (status) input.status = status;
+      else fields.status = notOneOf('status', get('status'), partStatuses);
+    }
     if (get('turnaroundDays')) input.turnaroundDays = Number(get('turnaroundDays'));
     if (get('ratingValue')) input.ratingValue = Number(get('ratingValue'));
-    if (get('ratingUnit'))
-      input.ratingUnit = lookup(ratingUnits, ratingUnitLabels, get('ratingUnit'));
+    if (get('ratingUnit')) {
+      const unit = lookup(ratingUnits, ratingUnitLabels, get('ratingUnit'));
+      if (unit) input.ratingUnit = unit;
+      else fields.ratingUnit = notOneOf('rating unit', get('ratingUnit'), ratingUnits);
+    }
     for (const c of dateColumns) if (get(c)) input[c] = get(c);
     for (const [c, key] of Object.entries(moneyColumns)) {
       const raw = get(c as CsvColumn);

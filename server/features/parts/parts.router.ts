@@ -95,11 +95,11 @@ export function partsCsvRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
   const knex = deps.db.knex;
   router.get('/', deps.access('parts:read'), async (req, res) => {
-    const csv = await service.exportCsv(knex, req.membership!.buildId, {
+    const { fileName, csv } = await service.exportCsv(knex, req.membership!.buildId, {
       userId: req.user!.id,
       role: req.membership!.role,
     });
-    res.type('text/csv; charset=utf-8').attachment('parts.csv').send(csv);
+    res.attachment(fileName).type('text/csv; charset=utf-8').send(csv);
   });
   return router;
 }

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { can } from '../../../shared/permissions';
 import { partTotalCents } from '../../../shared/ledger/cost';
 import { sendOutStatus } from '../../../shared/ledger/send-out';
+import { stampStatusDates } from '../../../shared/ledger/status-dates';
 import { idSchema } from '../../../shared/schemas/common';
 import {
   createPartInputSchema,
@@ -22,7 +23,8 @@ import type { Logger } from '../../lib/logger';
 import type { Caller } from '../../lib/scope';
 import type { Storage } from '../../lib/storage';
 import * as files from '../files';
-import { parseCsv, partsToCsv } from './parts.csv';
+import { csvFileName, parseCsv, partsToCsv } from './parts.csv';
+import * as builds from '../builds';
 import { notifyPartProgress } from './parts.notices';
 import * as repo from './parts.repository';
 
@@ -81,7 +83,8 @@ function checkConsistency(merged: Partial<CreatePartInput>) {
     throw new ValidationError('Some fields contradict each other', issues);
 }
 
-export async function create(knex: Knex, buildId: string, input: CreatePartInput) {
+export async function create(knex: Knex, buildId: string, rawInput: CreatePartInput) {
+  const input = stampStatusDates(null, rawInput, today());
   checkConsistency(input);
   await checkShop(knex, buildId, input.shopUserId);
   const [id] = await repo.insertParts(knex, buildId, [input]);
@@ -93,18 +96,21 @@ export async function update(
   buildId: string,
   rawPartId: string,
   caller: Caller,
-  input: UpdatePartInput,
+  rawInput: UpdatePartInput,
 ) {
   const existing = await getVisible(knex, buildId, rawPartId, caller);
   if (caller.role !== 'owner') {
     const allowed: readonly string[] = partProgressFields;
-    const refused = Object.keys(input).filter((k) => !allowed.includes(k));
+    const refused = Object.keys(rawInput).filter((k) => !allowed.includes(k));
     if (refused.length) {
       throw new ForbiddenError(
         `Your role may change only a part's status and dates (not ${refused.join(', ')})`,
       );
     }
   }
+  // A status change stamps its date here too, so API and CSV changes are dated like the
+  // ledger's own (the stamps are dates: crew and shops may set them).
+  const input = stampStatusDates(existing, rawInput, today());
   checkConsistency({ ...existing, ...input });
   await checkShop(knex, buildId, input.shopUserId);
   // The change and its notices (part received, back from a shop) commit together.
@@ -133,13 +139,18 @@ export async function listAll(knex: Knex, buildId: string) {
   return repo.listParts(knex, buildId);
 }
 
+/** The ledger as a CSV file, named after the build and the day. */
 export async function exportCsv(knex: Knex, buildId: string, caller: Caller) {
-  const parts = await repo.listParts(knex, buildId, scope(caller));
-  const shops = await repo.shopMembers(knex, buildId);
-  return partsToCsv(parts, {
+  const [build, parts, shops] = await Promise.all([
+    builds.get(knex, buildId, caller.userId),
+    repo.listParts(knex, buildId, scope(caller)),
+    repo.shopMembers(knex, buildId),
+  ]);
+  const csv = partsToCsv(parts, {
     withMoney: can(caller.role, 'money:read'),
     shopEmails: new Map(shops.map((s) => [s.user_id, s.email])),
   });
+  return { fileName: csvFileName(build.name, today()), csv };
 }
 
 export type ImportRowReport = { row: number; fields: Record<string, string> };
@@ -165,20 +176,24 @@ export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dry
 
   const valid: CreatePartInput[] = [];
   const failures: ImportRowReport[] = [];
+  const now = today();
   for (const r of parsed.rows) {
     const result = createPartInputSchema.safeParse(r.input);
+    // The CSV reader's own message (it echoes the cell) wins over the schema's general one.
     const fields = {
-      ...r.fields,
       ...(result.success ? partConsistencyIssues(result.data) : fieldsFromZod(result.error)),
+      ...r.fields,
     };
     if (Object.keys(fields).length) failures.push({ row: r.row, fields });
-    else if (result.success) valid.push(result.data);
+    else if (result.success) valid.push(stampStatusDates(null, result.data, now));
   }
   if (failures.length) {
     const err = new AppError(
       400,
       'invalid_rows',
-      `${failures.length} of ${parsed.rows.length} rows need fixing; nothing was saved`,
+      `${failures.length} ${failures.length === 1 ? 'row' : 'rows'} of ${parsed.rows.length} ${
+        failures.length === 1 ? 'needs' : 'need'
+      } fixing; nothing was saved`,
     );
     Object.assign(err, { rows: failures });
     throw err;

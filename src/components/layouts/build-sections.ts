@@ -5,6 +5,7 @@
  * away at phone width, and the current one is always in view.
  */
 import {
+  Activity,
   BellRing,
   Camera,
   ClipboardList,
@@ -39,5 +40,6 @@ export const buildSections: BuildSection[] = [
   { label: 'Bench', href: paths.builds.bench.getHref, icon: Droplets },
   { label: 'Install', href: paths.builds.install.getHref, icon: ClipboardList },
   { label: 'Photos', href: paths.builds.photos.getHref, icon: Camera },
+  { label: 'Dyno', href: paths.builds.dyno.getHref, icon: Activity },
   { label: 'Notices', href: paths.builds.notices.getHref, icon: BellRing },
 ];

@@ -4,6 +4,8 @@ import { formatNumber } from '../../../shared/format';
 
 /** Decimals worth showing for a figure in a unit (ratios and densities need more). */
 function digitsFor(unit: string, value: number): number {
+  // Percentages to one decimal everywhere (cards, chart, working), so they never disagree.
+  if (unit === '%') return 1;
   if (unit === 'lambda') return 2;
   if (unit === 'kg-per-l' || unit === 'lb-per-hp-h') return 3;
   return Math.abs(value) < 10 ? 2 : 1;
@@ -27,6 +29,14 @@ export function formatHeadroom(pct: number): string {
   const n = formatNumber(Math.abs(pct), 1);
   if (n === '0') return '0 %';
   return `${pct < 0 ? '−' : '+'}${n} %`;
+}
+
+/**
+ * How far a part is past its rating, on the one basis headroom uses (the requirement):
+ * "50 crank hp (−6.7 % headroom)". shortfall.pct is −headroom %, so the two never disagree.
+ */
+export function formatShortfall(shortfall: { value: number; unit: string; pct: number }): string {
+  return `${formatFigure(shortfall.value, shortfall.unit)} (${formatHeadroom(-shortfall.pct)} headroom)`;
 }
 
 /** How the headline names a part's category ("the bottom end gives out first"). */

@@ -9,28 +9,41 @@ import type { EstimateResult } from '../../../shared/schemas/estimate';
 export function whatIfEstimate(saved: EstimateResult, powerHp: number): EstimateResult | null {
   const a = saved.assumptions;
   try {
-    return estimate({
-      target: { powerHp, basis: saved.target.basis, torqueLbft: saved.target.torqueLbft },
-      assumptions: {
-        bsfc: a.bsfc,
-        bsfcUnit: a.bsfcUnit,
-        afr: a.afr,
-        fuelDensityKgPerL: a.fuelDensityKgPerL,
-        drivetrainLossPct: a.drivetrainLossPct,
-        peakRpm: a.peakRpm,
-        cylinders: a.cylinders,
-        tightMarginPct: a.tightMarginPct,
+    const result = estimate(
+      {
+        target: { powerHp, basis: saved.target.basis, torqueLbft: saved.target.torqueLbft },
+        assumptions: {
+          bsfc: a.bsfc,
+          bsfcUnit: a.bsfcUnit,
+          afr: a.afr,
+          fuelDensityKgPerL: a.fuelDensityKgPerL,
+          drivetrainLossPct: a.drivetrainLossPct,
+          peakRpm: a.peakRpm,
+          cylinders: a.cylinders,
+          tightMarginPct: a.tightMarginPct,
+        },
+        components: saved.components.map((c) => ({
+          id: c.id,
+          name: c.name,
+          category: c.category,
+          quantity: c.quantity,
+          ratingValue: c.ratingValue,
+          ratingUnit: c.ratingUnit,
+          ...(c.ratingFor ? { ratingFor: c.ratingFor } : {}),
+          ...(c.anonymised ? { anonymised: true } : {}),
+        })),
       },
-      components: saved.components.map((c) => ({
-        id: c.id,
-        name: c.name,
-        category: c.category,
-        quantity: c.quantity,
-        ratingValue: c.ratingValue,
-        ratingUnit: c.ratingUnit,
-        ...(c.ratingFor ? { ratingFor: c.ratingFor } : {}),
-      })),
-    });
+      { cylindersFrom: a.cylindersFrom },
+    );
+    // Parts whose stored rating cannot be checked are not in saved.components; their
+    // warnings do not depend on the target, so they carry over as the server gave them.
+    const unusable = saved.warnings.filter((w) => w.code === 'rating-unusable');
+    if (unusable.length) {
+      const dangers = result.warnings.filter((w) => w.severity === 'danger');
+      const rest = result.warnings.filter((w) => w.severity !== 'danger');
+      result.warnings = [...dangers, ...unusable, ...rest];
+    }
+    return result;
   } catch {
     return null;
   }

@@ -93,9 +93,18 @@ export function BenchSheetRoute() {
   return <SheetPage build={build.data} answer={sheet.data} />;
 }
 
-function Fact({ term, children }: { term: string; children: React.ReactNode }) {
+function Fact({
+  term,
+  children,
+  wide = false,
+}: {
+  term: string;
+  children: React.ReactNode;
+  /** Across both columns (a <dl> may hold only one wrapping div per term). */
+  wide?: boolean;
+}) {
   return (
-    <div className="min-w-0">
+    <div className={wide ? 'min-w-0 sm:col-span-2' : 'min-w-0'}>
       <dt className="text-xs font-semibold tracking-wide text-muted uppercase">{term}</dt>
       <dd className="break-words text-ink">{children}</dd>
     </div>
@@ -267,11 +276,9 @@ function SheetPage({ build, answer }: { build: Build; answer: BenchSheetAnswer }
               </Fact>
             )}
             {sheet.notes && (
-              <div className="sm:col-span-2">
-                <Fact term="Notes">
-                  <span className="whitespace-pre-line">{sheet.notes}</span>
-                </Fact>
-              </div>
+              <Fact term="Notes" wide>
+                <span className="whitespace-pre-line">{sheet.notes}</span>
+              </Fact>
             )}
           </dl>
           {mayDelete && (

@@ -10,6 +10,7 @@ import {
 } from '../../../features/builds/components/build-details';
 import { vehicleLine } from '../../../features/builds/components/build-text';
 import { DeleteBuild } from '../../../features/builds/components/delete-build';
+import { DynoProgressSection } from '../../../features/dyno/components/dyno-progress';
 import { RoleBadge } from '../../../components/ui/role-badge';
 import { MembersPanel } from '../../../features/members/components/members-panel';
 import { InvitationsPanel } from '../../../features/invitations/components/invitations-panel';
@@ -57,7 +58,10 @@ export function BuildOverviewRoute() {
         }
       />
       <div className="grid gap-5 lg:grid-cols-2">
-        <TargetSection build={b} />
+        <div className="flex flex-col gap-5">
+          <TargetSection build={b} />
+          <DynoProgressSection build={b} />
+        </div>
         <div className="flex flex-col gap-5">
           <TruckSection build={b} />
           <BudgetSection build={b} />

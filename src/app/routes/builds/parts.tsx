@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { Download, FileUp, Package, Plus } from 'lucide-react';
 import { can } from '../../../../shared/permissions';
@@ -23,13 +23,15 @@ import { Modal } from '../../../components/ui/modal';
 import { PartForm } from '../../../features/parts/components/part-form';
 import type { LedgerActions } from '../../../features/parts/components/parts-columns';
 import { PartsLedger } from '../../../features/parts/components/parts-ledger';
-import { statusChange } from '../../../features/parts/lib/status';
+import { statusChange, todayIso } from '../../../features/parts/lib/status';
+import { stampStatusDates } from '../../../../shared/ledger/status-dates';
 import { useUser } from '../../../lib/auth';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { PartBenchSheets } from '../../../features/bench/components/part-bench-sheets';
 import { BuildLoadError } from './build-states';
 
-type Editing = { mode: 'create' } | { mode: 'edit' | 'progress'; part: Part } | null;
+type Editing =
+  { mode: 'create' } | { mode: 'edit' | 'progress'; part: Part; focusRating?: boolean } | null;
 
 /** "/builds/:buildId/parts" — the ledger of every part of the build. */
 export function PartsRoute() {
@@ -61,6 +63,19 @@ function PartsPage({ build }: { build: Build }) {
   const [deleting, setDeleting] = useState<Part | null>(null);
   const [importing, setImporting] = useState(false);
   const [notice, setNotice] = useState<string | null>(null);
+
+  // "?part=<id>", a link from the estimate: the owner gets that part's form at its rating;
+  // everyone else sees its row picked out in the ledger. Once per link, not on every refetch.
+  const linkedPartId = searchParams.get('part');
+  const [linkHandled, setLinkHandled] = useState<string | null>(null);
+  const [missingPart, setMissingPart] = useState(false);
+  useEffect(() => {
+    if (!linkedPartId || linkHandled === linkedPartId || !parts.data) return;
+    setLinkHandled(linkedPartId);
+    const part = parts.data.find((p) => p.id === linkedPartId);
+    setMissingPart(!part);
+    if (part && isOwner) setEditing({ mode: 'edit', part, focusRating: true });
+  }, [linkedPartId, linkHandled, parts.data, isOwner]);
 
   const shops = useMemo(
     () =>
@@ -101,8 +116,14 @@ function PartsPage({ build }: { build: Build }) {
     [build.currency, canUpdate, canDelete, onStatusChange, onEdit, onDelete],
   );
 
-  async function save(input: UpdatePartInput) {
+  async function save(typed: UpdatePartInput) {
     if (!editing) return;
+    // The form's status change is dated like a row's: the browser's own day, by the shared rule.
+    const input = stampStatusDates(
+      editing.mode === 'create' ? null : editing.part,
+      typed,
+      todayIso(),
+    );
     if (editing.mode === 'create') {
       const part = await createPart.mutateAsync({
         buildId: build.id,
@@ -189,6 +210,7 @@ function PartsPage({ build }: { build: Build }) {
         actions={actions}
         moneyFallback={isOwner ? 'full' : 'none'}
         initialSearch={searchParams.get('q') ?? ''}
+        focusPartId={missingPart ? null : linkedPartId}
         toolbarActions={
           <>
             {exportLink}
@@ -226,6 +248,11 @@ function PartsPage({ build }: { build: Build }) {
           {notice}
         </Alert>
       )}
+      {missingPart && (
+        <Alert tone="info" className="mb-4">
+          The part that link points to is not in this ledger: it may have been deleted.
+        </Alert>
+      )}
 
       {body}
 
@@ -254,6 +281,7 @@ function PartsPage({ build }: { build: Build }) {
             currency={build.currency}
             shops={shops}
             submitLabel={editing.mode === 'create' ? 'Add part' : 'Save changes'}
+            focusRating={editing.mode === 'edit' && editing.focusRating}
             onSubmit={save}
             onCancel={() => setEditing(null)}
           />

@@ -91,7 +91,13 @@ export function SheetTable({ result, caption }: { result: BenchSheetResult; capt
   const positions = Array.from({ length: result.cylinders }, (_, i) => i + 1);
   const pct = (x: number | null) => (x === null ? '–' : pctWords(x));
   return (
-    <div className="-mx-4 overflow-x-auto sm:mx-0">
+    // Wider than a phone: a keyboard user scrolls it too, so it takes focus and has a name.
+    <div
+      className="-mx-4 overflow-x-auto focus-visible:outline-2 focus-visible:outline-accent-600 sm:mx-0"
+      tabIndex={0}
+      role="region"
+      aria-label="The sheet's values by injector; scroll sideways for more"
+    >
       <table className="min-w-full border-collapse text-[15px]">
         <caption className="sr-only">{caption}</caption>
         <thead>

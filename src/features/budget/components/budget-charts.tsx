@@ -16,6 +16,12 @@ import { partCategoryLabels, type Budget } from '../../../../shared/schemas/part
 import { dayTime, formatTick, timeDomain, timeTicks } from '../lib/time-axis';
 
 // recharts is only imported by this file, which only the lazily loaded budget page uses.
+//
+// Both charts are pictures of figures the page also gives as text (the category table, the
+// totals), and the page hides them from assistive technology. recharts' accessibility layer
+// (on by default in v3) makes each chart's <svg> a Tab stop with arrow-key tooltips; inside an
+// aria-hidden figure that is a focus stop a screen reader cannot name (axe: aria-hidden-focus),
+// so it is switched off and the charts take no focus.
 
 const colours = {
   planned: '#cfc6b4',
@@ -60,6 +66,7 @@ export function CategoryChart({ budget }: { budget: Budget }) {
     <div style={{ height }} className="w-full">
       <ResponsiveContainer width="100%" height="100%">
         <BarChart
+          accessibilityLayer={false}
           data={data}
           layout="vertical"
           margin={{ top: 4, right: 16, bottom: 4, left: 4 }}
@@ -122,7 +129,11 @@ export function SpendingChart({ budget }: { budget: Budget }) {
   return (
     <div className="h-72 w-full">
       <ResponsiveContainer width="100%" height="100%">
-        <AreaChart data={data} margin={{ top: 12, right: 16, bottom: 4, left: 4 }}>
+        <AreaChart
+          accessibilityLayer={false}
+          data={data}
+          margin={{ top: 12, right: 16, bottom: 4, left: 4 }}
+        >
           <CartesianGrid vertical={false} stroke={colours.grid} />
           <XAxis
             dataKey="t"

@@ -232,7 +232,7 @@ export function BuildForm({
           label="Transmission"
           optional
           error={errors.transmission?.message}
-          hint="e.g. 68RFE with billet input shaft and triple-disc converter"
+          hint="e.g. six-speed automatic, billet input shaft, triple-disc converter"
           className="sm:col-span-2"
         >
           {(c) => <TextInput {...c} {...register('transmission')} autoComplete="off" />}

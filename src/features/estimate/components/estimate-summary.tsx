@@ -23,6 +23,9 @@ export function EstimateSummary({ result }: { result: EstimateResult }) {
   const crankTarget = result.requirements.crankPower.value;
   const who = categoryPhrase(part.category) ?? part.name;
   const verb = part.status === 'over' ? 'gives out before the target' : 'gives out first';
+  const qualifier = part.notes.some((n) => n.code === 'torque-curve-scaled')
+    ? 'If the whole torque curve scales with power (the torque target sets the limit)'
+    : undefined;
 
   return (
     <div className="flex flex-col gap-4">
@@ -54,11 +57,13 @@ export function EstimateSummary({ result }: { result: EstimateResult }) {
         <SupportedFigure
           title="Most crank power the build supports"
           value={formatFigure(result.supported.crankPower.value, 'hp-crank')}
+          qualifier={qualifier}
           working={<Working figures={[result.supported.crankPower]} />}
         />
         <SupportedFigure
           title="Most wheel power the build supports"
           value={formatFigure(result.supported.wheelPower.value, 'hp-wheel')}
+          qualifier={qualifier}
           working={<Working figures={[result.supported.wheelPower]} />}
         />
       </div>
@@ -76,16 +81,20 @@ export function EstimateSummary({ result }: { result: EstimateResult }) {
 function SupportedFigure({
   title,
   value,
+  qualifier,
   working,
 }: {
   title: string;
   value: string;
+  /** When the figure holds only under a stated condition. */
+  qualifier?: string;
   working: ReactNode;
 }) {
   return (
     <div className="rounded-md border border-rule bg-paper/50 px-3.5 pt-2.5 pb-1">
       <p className="text-sm font-semibold tracking-wide text-muted uppercase">{title}</p>
       <p className="text-3xl leading-tight font-bold tabular-nums text-ink">{value}</p>
+      {qualifier && <p className="text-sm text-muted">{qualifier}</p>}
       {working}
     </div>
   );

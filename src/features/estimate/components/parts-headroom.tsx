@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { ExternalLink } from 'lucide-react';
+import { ExternalLink, Info } from 'lucide-react';
 import type { ComponentResult, EstimateResult } from '../../../../shared/schemas/estimate';
 import { partCategoryLabels, ratingUnitLabels } from '../../../../shared/schemas/parts';
 import { cn } from '../../../components/ui/cn';
@@ -48,6 +48,7 @@ function PartRow({
   canEditRatings: boolean;
   weakest: boolean;
 }) {
+  const scaled = part.notes.some((n) => n.code === 'torque-curve-scaled');
   const perUnit = part.quantityMultiplies
     ? ` (${part.quantity} × ${formatFigure(part.ratingValue, part.ratingUnit)} in parallel)`
     : '';
@@ -86,25 +87,53 @@ function PartRow({
         <Stat term="Headroom">{formatHeadroom(part.headroomPct.value)}</Stat>
         <Stat term="Supports about">
           {formatFigure(part.supportedCrankPower.value, 'hp-crank')}
+          {scaled && (
+            <span className="block text-sm font-normal text-muted">
+              if the whole torque curve scales
+            </span>
+          )}
         </Stat>
       </dl>
+      {part.notes.length > 0 && (
+        <ul className="mt-2 flex flex-col gap-1" aria-label={`Notes on ${part.name}`}>
+          {part.notes.map((note) => (
+            <li
+              key={note.code}
+              className="flex gap-2 text-[15px] text-ink-2"
+              data-testid={`note-${note.code}`}
+            >
+              <Info aria-hidden className="mt-0.5 size-4 shrink-0 text-ink-3" />
+              <span>{note.message}</span>
+            </li>
+          ))}
+        </ul>
+      )}
       <div className="mt-1 flex flex-wrap items-start gap-x-6">
         <Working
           className="open:basis-full"
           label={part.name}
           figures={[part.capacity, part.requirement, part.headroomPct, part.supportedCrankPower]}
         />
-        <Link
-          to={paths.builds.parts.getHref(buildId)}
-          className="inline-flex min-h-11 items-center gap-1.5 rounded text-[15px] font-semibold text-accent-700 hover:underline"
-        >
-          <ExternalLink aria-hidden className="size-4" />
-          {canEditRatings ? 'Change its rating in the parts ledger' : 'See it in the parts ledger'}
-          <span className="sr-only">
-            {' '}
-            ({part.name}, rated in {ratingUnitLabels[part.ratingUnit]})
-          </span>
-        </Link>
+        {part.anonymised ? (
+          // Not sent to this shop: its ledger does not hold the part, so there is nothing to open.
+          <p className="inline-flex min-h-11 items-center text-[15px] text-muted">
+            Not sent to your shop: shown by category only
+          </p>
+        ) : (
+          <Link
+            to={paths.builds.part.getHref(buildId, part.id)}
+            className="inline-flex min-h-11 items-center gap-1.5 rounded text-[15px] font-semibold text-accent-700 hover:underline"
+          >
+            <ExternalLink aria-hidden className="size-4" />
+            {canEditRatings
+              ? 'Change its rating in the parts ledger'
+              : 'See it in the parts ledger'}
+            <span className="sr-only">
+              {' '}
+              ({part.name}, rated in {ratingUnitLabels[part.ratingUnit]})
+            </span>
+          </Link>
+        )}
       </div>
     </li>
   );

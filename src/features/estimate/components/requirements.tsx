@@ -2,7 +2,13 @@ import type { EstimateResult, Figure } from '../../../../shared/schemas/estimate
 import { formatFigure } from '../format';
 import { Working } from './working';
 
-type Row = { term: string; main: Figure; also?: Figure[] };
+type Row = {
+  term: string;
+  main: Figure;
+  also?: Figure[];
+  /** A related figure with its own words, on a line of its own. */
+  aside?: { text: string; figure: Figure };
+};
 
 /** What the target asks of the engine: power, torque, fuel, injector delivery and air. */
 export function Requirements({ result }: { result: EstimateResult }) {
@@ -10,14 +16,14 @@ export function Requirements({ result }: { result: EstimateResult }) {
   const rows: Row[] = [
     { term: 'Crank power', main: r.crankPower, also: [r.crankPowerKw] },
     { term: 'Wheel power', main: r.wheelPower },
-    {
-      term:
-        result.target.torqueLbft != null
-          ? 'Crank torque (your target)'
-          : 'Crank torque at peak power',
-      main: r.crankTorque,
-      also: [r.crankTorqueNm],
-    },
+    result.target.torqueLbft != null
+      ? {
+          term: 'Crank torque (your target or peak power’s, the larger)',
+          main: r.crankTorque,
+          also: [r.crankTorqueNm],
+          aside: { text: 'At peak power', figure: r.crankTorqueAtPeakPower },
+        }
+      : { term: 'Crank torque at peak power', main: r.crankTorque, also: [r.crankTorqueNm] },
     { term: 'Fuel burned', main: r.fuelMassFlow },
     { term: 'Fuel volume', main: r.fuelVolumeFlow, also: [r.fuelVolumeFlowGalPerH] },
     { term: 'Delivery per injector per stroke', main: r.injectorDelivery },
@@ -41,7 +47,15 @@ export function Requirements({ result }: { result: EstimateResult }) {
                 {formatFigure(f.value, f.unit)}
               </span>
             ))}
-            <Working figures={[row.main, ...(row.also ?? [])]} label={row.term} />
+            {row.aside && (
+              <span className="block text-ink-2 tabular-nums">
+                {row.aside.text}: {formatFigure(row.aside.figure.value, row.aside.figure.unit)}
+              </span>
+            )}
+            <Working
+              figures={[row.main, ...(row.also ?? []), ...(row.aside ? [row.aside.figure] : [])]}
+              label={row.term}
+            />
           </dd>
         </div>
       ))}

@@ -65,9 +65,7 @@ export function TargetPanel({
             ? `${formatFigure(saved.requirements.crankPower.value, 'hp-crank')} at ${formatNumber(a.drivetrainLossPct, 1)} % drivetrain loss`
             : `${formatFigure(saved.requirements.wheelPower.value, 'hp-wheel')} at ${formatNumber(a.drivetrainLossPct, 1)} % drivetrain loss`}
           <span className="block">
-            {target.torqueLbft != null
-              ? `Torque target ${formatFigure(target.torqueLbft, 'lbf-ft')} at the crank`
-              : `No torque target: ${formatFigure(saved.requirements.crankTorque.value, 'lbf-ft')} at ${formatNumber(a.peakRpm, 0)} rpm is used`}
+            <TorqueLine saved={saved} />
           </span>
         </p>
       </div>
@@ -155,5 +153,26 @@ export function TargetPanel({
         )}
       </div>
     </div>
+  );
+}
+
+/**
+ * Which crank torque the torque-rated parts are held to: the larger of the owner's torque
+ * target and the torque the power target needs at peak-power rpm, said in words.
+ */
+function TorqueLine({ saved }: { saved: EstimateResult }) {
+  const { target, assumptions: a, requirements: r } = saved;
+  const atPeak = `${formatFigure(r.crankTorqueAtPeakPower.value, 'lbf-ft')} at ${formatNumber(a.peakRpm, 0)} rpm`;
+  if (target.torqueLbft == null) return <>No torque target: {atPeak} (peak power) is used</>;
+  const torqueTarget = formatFigure(target.torqueLbft, 'lbf-ft');
+  return target.torqueLbft > r.crankTorqueAtPeakPower.value ? (
+    <>
+      Torque target {torqueTarget} at the crank, above the {atPeak} at peak power: the target is
+      used
+    </>
+  ) : (
+    <>
+      Torque target {torqueTarget} at the crank, but peak power needs {atPeak}: the larger is used
+    </>
   );
 }

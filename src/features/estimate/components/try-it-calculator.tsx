@@ -16,7 +16,13 @@ import { ButtonLink } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
 import { SelectInput, TextInput } from '../../../components/ui/form-field';
 import { useStatelessEstimate } from '../api/post-estimate';
-import { capitalise, categoryPhrase, formatFigure, formatHeadroom } from '../format';
+import {
+  capitalise,
+  categoryPhrase,
+  formatFigure,
+  formatHeadroom,
+  formatShortfall,
+} from '../format';
 import { StatusBadge } from './status-badge';
 
 type PartKey = 'bottomEnd' | 'injectors' | 'turbo' | 'transmission';
@@ -317,9 +323,7 @@ function TryItResult({ result }: { result: EstimateResult }) {
           className="rounded-md border-2 border-over bg-over-soft px-3.5 py-3 text-[#7d1f17]"
         >
           <p className="font-bold">
-            The target is past the bottom-end rating by{' '}
-            {formatFigure(bottomEnd.shortfall.value, bottomEnd.shortfall.unit)} (
-            {formatFigure(bottomEnd.shortfall.pct, '%', 1)}).
+            The target is past the bottom-end rating by {formatShortfall(bottomEnd.shortfall)}.
           </p>
         </div>
       )}

@@ -1,7 +1,7 @@
 import { CircleAlert, Info, OctagonAlert, TriangleAlert } from 'lucide-react';
 import type { EstimateResult, EstimateWarning } from '../../../../shared/schemas/estimate';
 import { cn } from '../../../components/ui/cn';
-import { formatFigure } from '../format';
+import { formatFigure, formatShortfall } from '../format';
 
 /**
  * The target past a bottom-end rating: the one finding nobody may miss. A banner at the top,
@@ -33,21 +33,18 @@ export function BottomEndBanner({
                 {preview
                   ? `At the what-if target of ${preview}, the bottom end is past its rating`
                   : 'The target is past the bottom-end rating'}
-                {w.shortfall && (
-                  <>
-                    {' '}
-                    by {formatFigure(w.shortfall.value, w.shortfall.unit)} (
-                    {formatFigure(w.shortfall.pct, '%', 1)})
-                  </>
-                )}
+                {w.shortfall && <> by {formatShortfall(w.shortfall)}</>}
               </p>
               {part && w.shortfall && (
                 <p className="mt-1 text-base">
                   {part.name}: rated {formatFigure(part.capacity.value, part.capacity.unit)}; the
                   target needs {formatFigure(part.requirement.value, part.requirement.unit)}. It
                   supports about{' '}
-                  <strong>{formatFigure(part.supportedCrankPower.value, 'hp-crank')}</strong>,{' '}
-                  {formatFigure(w.shortfall.crankHp, 'hp-crank')} short of the target. Lower the
+                  <strong>{formatFigure(part.supportedCrankPower.value, 'hp-crank')}</strong>
+                  {part.notes.some((n) => n.code === 'torque-curve-scaled')
+                    ? ' if the whole torque curve scales with power'
+                    : ''}
+                  , {formatFigure(w.shortfall.crankHp, 'hp-crank')} short of the target. Lower the
                   target or build the bottom end for more before adding power.
                 </p>
               )}

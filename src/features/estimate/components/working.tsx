@@ -1,19 +1,24 @@
 import type { ReactNode } from 'react';
 import { ChevronRight } from 'lucide-react';
 import type { Figure, WorkingInput } from '../../../../shared/schemas/estimate';
-import { formatNumber } from '../../../../shared/format';
 import { cn } from '../../../components/ui/cn';
 import { formatFigure } from '../format';
 
-const fromLabels: Record<WorkingInput['from'], string> = {
+/** Where an input comes from, in words. */
+export const workingSourceLabels: Record<WorkingInput['from'], string> = {
   target: 'the build’s target',
+  build: 'the build’s engine',
   assumption: 'assumption',
   part: 'the part’s rating',
   figure: 'worked out',
 };
 
+/**
+ * A constant to the digits that say which constant it is (10 significant: exact ones such as
+ * 3.785411784 L/gal show whole), not the 16 of a double.
+ */
 function constantText(value: number, unit: string): string {
-  const n = formatNumber(value, 8);
+  const n = new Intl.NumberFormat(undefined, { maximumSignificantDigits: 10 }).format(value);
   return unit === 'ratio' ? `${n}:1` : `${n} ${unit}`;
 }
 
@@ -25,8 +30,9 @@ function FigureWorking({ figure }: { figure: Figure }) {
       <div>
         <p className="font-semibold text-ink">{figure.label}</p>
         <p className="font-mono text-sm break-words text-ink-2">{formula}</p>
+        {/* Rounded as on the rest of the page; the API keeps every digit. */}
         <p className="font-semibold tabular-nums text-ink">
-          = {formatFigure(figure.value, figure.unit, 4)}
+          = {formatFigure(figure.value, figure.unit)}
         </p>
       </div>
       {inputs.length > 0 && (
@@ -37,9 +43,9 @@ function FigureWorking({ figure }: { figure: Figure }) {
               <li key={`${input.name}-${i}`} className="flex flex-wrap gap-x-2">
                 <span className="text-ink-2">{input.name}</span>
                 <span className="font-semibold tabular-nums">
-                  {formatFigure(input.value, input.unit, 4)}
+                  {formatFigure(input.value, input.unit)}
                 </span>
-                <span className="text-sm text-muted">({fromLabels[input.from]})</span>
+                <span className="text-sm text-muted">({workingSourceLabels[input.from]})</span>
               </li>
             ))}
           </ul>

@@ -199,7 +199,14 @@ export function ImportPartsDialog({
 
         {checked?.kind === 'ok' && (
           <>
-            <Alert tone="ok" title={`${checked.rows.length} rows are ready`}>
+            <Alert
+              tone="ok"
+              title={
+                checked.rows.length === 1
+                  ? '1 row is ready'
+                  : `${checked.rows.length} rows are ready`
+              }
+            >
               Every row checked out. Nothing is saved yet.
             </Alert>
             <div className="max-h-[50vh] overflow-auto rounded-lg border border-rule bg-sheet">

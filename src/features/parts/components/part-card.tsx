@@ -5,6 +5,7 @@ import { cachedDate, cachedMoney } from '../lib/format-cache';
 import { StatusBadge } from './status-badge';
 import { StatusSelect } from './status-select';
 import { RatingText, RowActions, useLedgerActions, type MoneyView } from './parts-columns';
+import { partElementId } from '../lib/part-element-id';
 
 function Fact({ term, children }: { term: string; children: React.ReactNode }) {
   return (
@@ -15,8 +16,23 @@ function Fact({ term, children }: { term: string; children: React.ReactNode }) {
   );
 }
 
-/** One part in the phone list: the facts a person in the garage needs, status changeable. */
-export const PartCard = memo(function PartCard({ part, money }: { part: Part; money: MoneyView }) {
+/**
+ * One part in the phone list: the facts a person in the garage needs, status changeable.
+ * Its name is an h3 under a category's h2 when the list is grouped, an h2 when it is not.
+ */
+export const PartCard = memo(function PartCard({
+  part,
+  money,
+  headingLevel,
+  picked = false,
+}: {
+  part: Part;
+  money: MoneyView;
+  headingLevel: 2 | 3;
+  /** Picked out by a link (from the estimate): marked, and focusable to be scrolled to. */
+  picked?: boolean;
+}) {
+  const Heading = headingLevel === 2 ? 'h2' : 'h3';
   const { currency, onStatusChange } = useLedgerActions();
   const sub = [partCategoryLabels[part.category], part.vendor, part.partNumber]
     .filter(Boolean)
@@ -31,16 +47,26 @@ export const PartCard = memo(function PartCard({ part, money }: { part: Part; mo
           : part.receivedOn
             ? { term: 'Received', value: part.receivedOn }
             : null;
+  // A returned part is set apart by a dashed edge on paper, its badge and its struck-out total;
+  // not by fading the card, which took its grey text below AA contrast (3.5:1 for 4.5:1).
   return (
     <li
+      id={partElementId(part.id)}
+      tabIndex={picked ? -1 : undefined}
+      aria-current={picked ? 'true' : undefined}
       className={cn(
-        'rounded-lg border border-rule bg-sheet p-3 shadow-[0_1px_0_rgba(27,34,48,0.04)]',
-        part.status === 'returned' && 'opacity-80',
+        'rounded-lg border p-3',
+        part.status === 'returned'
+          ? 'border-dashed border-rule-strong bg-paper'
+          : 'border-rule bg-sheet shadow-[0_1px_0_rgba(27,34,48,0.04)]',
+        picked && 'border-accent-600 bg-accent-50 outline-2 outline-accent-600',
       )}
     >
       <div className="flex items-start justify-between gap-2">
         <div className="min-w-0 pt-1">
-          <h3 className="text-base leading-snug font-bold break-words text-ink">{part.name}</h3>
+          <Heading className="text-base leading-snug font-bold break-words text-ink">
+            {part.name}
+          </Heading>
           {sub && <p className="text-sm break-words text-muted">{sub}</p>}
         </div>
         <RowActions part={part} className="-mt-1 -mr-1 shrink-0" />

@@ -1,4 +1,4 @@
-import type { InputHTMLAttributes, Ref } from 'react';
+import { useEffect, type InputHTMLAttributes, type Ref } from 'react';
 import {
   Controller,
   useForm,
@@ -253,6 +253,7 @@ export function PartForm({
   submitLabel,
   onSubmit,
   onCancel,
+  focusRating = false,
 }: {
   mode: PartFormMode;
   part?: Part;
@@ -262,6 +263,8 @@ export function PartForm({
   submitLabel: string;
   onSubmit: (values: UpdatePartInput) => Promise<unknown>;
   onCancel: () => void;
+  /** Opened from "change its rating" on the estimate: start at the rated value. */
+  focusRating?: boolean;
 }) {
   const progressOnly = mode === 'progress';
   const {
@@ -270,6 +273,7 @@ export function PartForm({
     control,
     watch,
     setError,
+    setFocus,
     formState: { errors, isSubmitting },
   } = useForm<PartFormInput, unknown, PartFormValues>({
     resolver: partResolver(mode, part),
@@ -280,6 +284,12 @@ export function PartForm({
       : newPartDefaults,
     mode: 'onTouched',
   });
+  useEffect(() => {
+    if (!focusRating) return;
+    // After the dialog has opened (showModal focuses its first control).
+    const frame = requestAnimationFrame(() => setFocus('ratingValue', { shouldSelect: true }));
+    return () => cancelAnimationFrame(frame);
+  }, [focusRating, setFocus]);
   const status = watch('status');
   const shopId = watch('shopUserId');
   const turnaround = watch('turnaroundDays');

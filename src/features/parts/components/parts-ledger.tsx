@@ -36,6 +36,8 @@ import {
   saveGrouped,
 } from '../lib/column-prefs';
 import { useMediaQuery } from '../lib/use-media-query';
+import { pageRows } from '../lib/page-rows';
+import { partElementId } from '../lib/part-element-id';
 import { ColumnChooser } from './column-chooser';
 import { PartCard } from './part-card';
 import {
@@ -84,6 +86,8 @@ export type PartsLedgerProps = {
   toolbarActions?: ReactNode;
   /** Force a layout (the benchmark); by default a table from 768 px, cards below. */
   layout?: 'auto' | 'table' | 'cards';
+  /** A part to pick out (a link from the estimate): listed, its category open, scrolled to. */
+  focusPartId?: string | null;
 };
 
 /**
@@ -98,6 +102,7 @@ export function PartsLedger({
   initialSearch = '',
   toolbarActions,
   layout = 'auto',
+  focusPartId = null,
 }: PartsLedgerProps) {
   const wideScreen = useMediaQuery('(min-width: 768px)');
   const wide = layout === 'auto' ? wideScreen : layout === 'table';
@@ -164,9 +169,39 @@ export function PartsLedger({
   const filteredRows = table.getFilteredRowModel().rows;
   const allRows = table.getRowModel().rows;
   // The browser lays out only what is listed: a few hundred rows of form controls cost far
-  // more to lay out and paint than to sort, so the list grows on request.
-  const rows = allRows.length > limit ? allRows.slice(0, limit) : allRows;
-  const leavesListed = rows.reduce((n, r) => (r.getIsGrouped() ? n : n + 1), 0);
+  // more to lay out and paint than to sort, so the list grows on request, by parts (category
+  // headers are not counted, and never listed without a part of theirs).
+  const page = pageRows(allRows, limit, (r) => r.getIsGrouped());
+  const rows = page.rows;
+  const hiddenParts = page.listable - page.listed;
+  const inClosedCategories = filteredRows.length - page.listable;
+
+  // A part picked out by a link: make sure it is listed (its category open, the list long
+  // enough), then bring it into view once it is on screen.
+  const [focusHandled, setFocusHandled] = useState<string | null>(null);
+  useEffect(() => {
+    if (!focusPartId || focusHandled === focusPartId) return;
+    const row = table.getRowModel().flatRows.find((r) => r.id === focusPartId);
+    const parent = row?.getParentRow();
+    if (parent && !parent.getIsExpanded()) {
+      parent.toggleExpanded(true);
+      return;
+    }
+    const position = table
+      .getRowModel()
+      .rows.filter((r) => !r.getIsGrouped())
+      .findIndex((r) => r.id === focusPartId);
+    if (position >= limit) {
+      setLimit(Math.ceil((position + 1) / rowsPerStep) * rowsPerStep);
+      return;
+    }
+    const element = document.getElementById(partElementId(focusPartId));
+    if (element) {
+      element.scrollIntoView({ block: 'center' });
+      element.focus({ preventScroll: true });
+    }
+    setFocusHandled(focusPartId);
+  }, [focusPartId, focusHandled, limit, table, allRows]);
   const visibleKey = table
     .getVisibleLeafColumns()
     .map((c) => c.id)
@@ -330,9 +365,15 @@ export function PartsLedger({
                       money={money}
                       currency={actions.currency}
                       isExpanded={row.getIsExpanded()}
+                      listed={page.cut?.header === row ? page.cut.listed : undefined}
                     />
                   ) : (
-                    <LeafRow key={row.id} row={row} visibleKey={visibleKey} />
+                    <LeafRow
+                      key={row.id}
+                      row={row}
+                      visibleKey={visibleKey}
+                      picked={row.id === focusPartId}
+                    />
                   ),
                 )}
               </tbody>
@@ -348,23 +389,31 @@ export function PartsLedger({
                   money={money}
                   currency={actions.currency}
                   isExpanded={row.getIsExpanded()}
+                  listed={page.cut?.header === row ? page.cut.listed : undefined}
                 />
               ) : (
-                <PartCard key={row.id} part={row.original} money={money} />
+                <PartCard
+                  key={row.id}
+                  part={row.original}
+                  money={money}
+                  picked={row.id === focusPartId}
+                  headingLevel={grouped ? 3 : 2}
+                />
               ),
             )}
           </ul>
         )}
 
-        {allRows.length > rows.length && (
+        {hiddenParts > 0 && (
           <div className="flex flex-col items-center gap-2 rounded-lg border border-dashed border-rule-strong px-4 py-4 text-center sm:flex-row sm:justify-between sm:text-left">
-            <p className="text-ink-2">
-              Listing {leavesListed} of {filteredRows.length} parts. Search or filter to find one
-              quickly.
+            <p className="text-ink-2" data-testid="ledger-listing">
+              Listing {page.listed} of {filteredRows.length} parts
+              {inClosedCategories > 0 ? ` (${inClosedCategories} in closed categories)` : ''}.
+              Search or filter to find one quickly.
             </p>
             <div className="flex flex-wrap justify-center gap-2">
               <Button variant="secondary" onClick={() => setLimit((l) => l + rowsPerStep)}>
-                Show {Math.min(rowsPerStep, allRows.length - rows.length)} more
+                Show {Math.min(rowsPerStep, hiddenParts)} more
               </Button>
               <Button variant="ghost" onClick={() => setLimit(Number.POSITIVE_INFINITY)}>
                 Show all
@@ -378,12 +427,23 @@ export function PartsLedger({
 }
 
 /** One part as a table row. Memoised on the row object and the set of visible columns. */
-const LeafRow = memo(function LeafRow({ row }: { row: PartRow; visibleKey: string }) {
+const LeafRow = memo(function LeafRow({
+  row,
+  picked,
+}: {
+  row: PartRow;
+  visibleKey: string;
+  picked: boolean;
+}) {
   return (
     <tr
+      id={partElementId(row.id)}
+      tabIndex={picked ? -1 : undefined}
+      aria-current={picked ? 'true' : undefined}
       className={cn(
         'group border-b border-rule last:border-b-0 hover:bg-paper/60',
         row.original.status === 'returned' && 'text-muted',
+        picked && 'bg-accent-50 outline-2 -outline-offset-2 outline-accent-600',
       )}
     >
       {row.getVisibleCells().map((cell) => {
@@ -394,7 +454,12 @@ const LeafRow = memo(function LeafRow({ row }: { row: PartRow; visibleKey: strin
           <th
             key={cell.id}
             scope="row"
-            className="sticky left-0 z-[1] max-w-80 min-w-56 bg-sheet px-3 py-2 text-left font-normal shadow-[1px_0_0_var(--color-rule)] group-hover:bg-[#fbf8f1]"
+            className={cn(
+              'sticky left-0 z-[1] max-w-80 min-w-56 bg-sheet px-3 py-2 text-left font-normal shadow-[1px_0_0_var(--color-rule)] group-hover:bg-[#fbf8f1]',
+              // The sticky cell covers the row's outline: it carries the mark itself.
+              picked &&
+                'bg-accent-50 shadow-[inset_4px_0_0_var(--color-accent-600),1px_0_0_var(--color-rule)] group-hover:bg-accent-50',
+            )}
           >
             {content}
           </th>
@@ -419,7 +484,16 @@ function groupLabel(row: PartRow): string {
   return partCategoryLabels[row.groupingValue as PartCategory] ?? String(row.groupingValue);
 }
 
-function ToggleGroup({ row, isExpanded }: { row: PartRow; isExpanded: boolean }) {
+function ToggleGroup({
+  row,
+  isExpanded,
+  listed,
+}: {
+  row: PartRow;
+  isExpanded: boolean;
+  /** Set when the list stops inside this category: how many of its parts are listed. */
+  listed?: number;
+}) {
   const label = groupLabel(row);
   const count = row.subRows.length;
   return (
@@ -437,6 +511,7 @@ function ToggleGroup({ row, isExpanded }: { row: PartRow; isExpanded: boolean })
       <span>{label}</span>
       <span className="font-normal text-muted">
         {count} {count === 1 ? 'part' : 'parts'}
+        {listed !== undefined && `, ${listed} listed`}
       </span>
     </button>
   );
@@ -448,12 +523,14 @@ const GroupRow = memo(function GroupRow({
   money,
   currency,
   isExpanded,
+  listed,
 }: {
   row: PartRow;
   visibleKey: string;
   money: MoneyView;
   currency: string;
   isExpanded: boolean;
+  listed?: number;
 }) {
   const cells = row.getVisibleCells();
   const totalIndex = cells.findIndex((c) => c.column.id === 'totalCents');
@@ -466,7 +543,7 @@ const GroupRow = memo(function GroupRow({
         <>
           <th scope="rowgroup" colSpan={totalIndex} className="px-3 py-0 text-left">
             <span className="sticky left-3 inline-block">
-              <ToggleGroup row={row} isExpanded={isExpanded} />
+              <ToggleGroup row={row} isExpanded={isExpanded} listed={listed} />
             </span>
           </th>
           <td className="px-3 py-1 text-right font-bold whitespace-nowrap tabular-nums">
@@ -478,7 +555,7 @@ const GroupRow = memo(function GroupRow({
       ) : (
         <th scope="rowgroup" colSpan={cells.length} className="px-3 py-0 text-left">
           <span className="sticky left-3 inline-flex flex-wrap items-center gap-x-4">
-            <ToggleGroup row={row} isExpanded={isExpanded} />
+            <ToggleGroup row={row} isExpanded={isExpanded} listed={listed} />
             {subtotal && (
               <span className="font-bold tabular-nums">
                 <span className="font-normal text-muted">Subtotal </span>
@@ -492,23 +569,25 @@ const GroupRow = memo(function GroupRow({
   );
 });
 
-/** A category heading in the phone list. */
+/** A category heading in the phone list: an h2 under the page's h1, its parts' h3s under it. */
 function GroupHeading({
   row,
   money,
   currency,
   isExpanded,
+  listed,
 }: {
   row: PartRow;
   money: MoneyView;
   currency: string;
   isExpanded: boolean;
+  listed?: number;
 }) {
   return (
     <li className="mt-2 flex flex-wrap items-center justify-between gap-x-3 border-b-2 border-rule-strong first:mt-0">
-      <h3 className="m-0 text-base">
-        <ToggleGroup row={row} isExpanded={isExpanded} />
-      </h3>
+      <h2 className="m-0 text-base">
+        <ToggleGroup row={row} isExpanded={isExpanded} listed={listed} />
+      </h2>
       {money === 'full' && (
         <p className="font-bold tabular-nums">
           <span className="font-normal text-muted">Subtotal </span>

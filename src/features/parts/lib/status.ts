@@ -1,5 +1,5 @@
+import { stampStatusDates } from '../../../../shared/ledger/status-dates';
 import {
-  partConsistencyIssues,
   partStatusLabels,
   type Part,
   type PartStatus,
@@ -26,14 +26,6 @@ export function statusLabel(status: PartStatus): string {
   return partStatusLabels[status];
 }
 
-/** The date a status change records, when that date is still empty. */
-const dateFor: Partial<Record<PartStatus, keyof Part & keyof UpdatePartInput>> = {
-  ordered: 'orderedOn',
-  'in-hand': 'receivedOn',
-  'at-shop': 'sentOutOn',
-  installed: 'installedOn',
-};
-
 export function todayIso(now: Date = new Date()): string {
   const y = now.getFullYear();
   const m = String(now.getMonth() + 1).padStart(2, '0');
@@ -42,29 +34,11 @@ export function todayIso(now: Date = new Date()): string {
 }
 
 /**
- * What to send when a part's status is changed from its row: the status, plus today's date
- * in the matching empty date field (ordered, received, sent out, installed; back from the
- * shop when it leaves one). A date is only added when it keeps the part's dates in order,
- * so a quick status change never fails on a date the user did not type.
+ * What to send when a part's status is changed from its row: the status, plus today's date (the
+ * browser's own day) where the shared rule stamps one (ordered, received, sent out, installed;
+ * back from the shop when it leaves one). The server applies the same rule to what it is sent,
+ * so the dates sent here are the ones kept.
  */
 export function statusChange(part: Part, status: PartStatus, today = todayIso()): UpdatePartInput {
-  const patch: UpdatePartInput = { status };
-  const field = dateFor[status];
-  if (field && !part[field]) Object.assign(patch, { [field]: today });
-  if (part.status === 'at-shop' && status !== 'at-shop' && part.sentOutOn && !part.backOn) {
-    patch.backOn = today;
-  }
-  const merged = { ...part, ...patch };
-  const issues = partConsistencyIssues({
-    orderedOn: merged.orderedOn,
-    expectedOn: merged.expectedOn,
-    receivedOn: merged.receivedOn,
-    sentOutOn: merged.sentOutOn,
-    backOn: merged.backOn,
-    installedOn: merged.installedOn,
-  });
-  for (const key of Object.keys(issues)) {
-    if (key in patch && key !== 'status') delete patch[key as keyof UpdatePartInput];
-  }
-  return patch;
+  return stampStatusDates(part, { status }, today);
 }
