@@ -13,7 +13,7 @@ describe('caution suggestions', () => {
     for (const title of [
       'Replacing the high-pressure pump',
       'Replace the high pressure fuel pump',
-      'Swap the CP3',
+      'Swap the injection pump',
       'New injection lines',
       'Torque the injector lines',
       'Bleed the fuel rail',
