@@ -31,6 +31,12 @@ async function expectAllInView(page: Page) {
     expect(box.x + box.width).toBeLessThanOrEqual(phone.width);
     expect(box.height).toBeGreaterThanOrEqual(44);
     await expect(links.nth(i)).toBeInViewport({ ratio: 1 });
+    // The label is whole: no "Budg…" cut short by its box.
+    const label = links.nth(i).locator('span');
+    expect(
+      await label.evaluate((e) => e.scrollWidth <= e.clientWidth),
+      await label.innerText(),
+    ).toBe(true);
   }
   // Nothing scrolls sideways (and so nothing clips a focus ring).
   const list = nav.getByRole('list');
@@ -66,7 +72,7 @@ test('at phone width every section is one tap away and the current one is always
   await owner.goto(`/builds/${build.id}`);
   const nav = owner.getByRole('navigation', { name: 'Build sections' });
   const current = nav.locator('[aria-current="page"]');
-  expect(await expectAllInView(owner)).toBe(9);
+  expect(await expectAllInView(owner)).toBe(10);
   await expect(current).toHaveText('Overview');
 
   // Install, the crew's main section, is one tap from anywhere, and stays marked below it.
@@ -91,20 +97,71 @@ test('at phone width every section is one tap away and the current one is always
   await expect(focused).toHaveText('Send-outs');
   expect(await focused.evaluate((e) => getComputedStyle(e).outlineStyle)).toBe('solid');
 
-  // Room for the sections still to come (dyno days, timeline, sharing): with three more,
-  // all twelve still fit the phone's width without scrolling.
+  // Room for the sections still to come (timeline, sharing, one more): with three more, all
+  // thirteen still fit the phone's width without scrolling.
   await owner.goto(`/builds/${build.id}`);
   await nav.evaluate((el) => {
     const list = el.querySelector('ul')!;
-    for (const name of ['Dyno', 'Timeline', 'Sharing']) {
+    for (const name of ['Timeline', 'Sharing', 'Documents']) {
       const li = list.lastElementChild!.cloneNode(true) as HTMLElement;
       li.querySelector('span')!.textContent = name;
       li.querySelector('a')!.setAttribute('href', `#${name}`);
       list.appendChild(li);
     }
   });
-  expect(await expectAllInView(owner)).toBe(12);
+  expect(await expectAllInView(owner)).toBe(13);
   await context.close();
+});
+
+test('a viewer at phone width gets every section it may open, whole; a desktop gets them in one row', async ({
+  browser,
+}) => {
+  const ownerContext = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const owner = await ownerContext.newPage();
+  await signUpThroughPage(owner, 'Marisol Okafor', uniqueEmail('owner'));
+  const viewerEmail = uniqueEmail('viewer');
+  const viewerContext = await browser.newContext({ viewport: phone, hasTouch: true });
+  const viewer = await viewerContext.newPage();
+  await signUpThroughPage(viewer, 'Jo Whitlock', viewerEmail);
+  const { build } = await call<{ build: { id: string } }>(owner, '/api/builds', {
+    name: 'Gravel Hauler',
+    cylinders: 8,
+    aspiration: 'single-turbo',
+    targetPowerHp: 700,
+    targetPowerBasis: 'crank',
+  });
+  await joinByInvitation(owner, viewer, { buildId: build.id, email: viewerEmail, role: 'viewer' });
+
+  // The viewer: no budget (money), every other section whole and one tap away, the current
+  // one marked on its page.
+  await viewer.goto(`/builds/${build.id}`);
+  const nav = viewer.getByRole('navigation', { name: 'Build sections' });
+  expect(await expectAllInView(viewer)).toBe(9);
+  await expect(nav.getByRole('link', { name: 'Budget' })).toHaveCount(0);
+  for (const name of ['Dyno', 'Photos', 'Estimate']) {
+    await nav.getByRole('link', { name, exact: true }).tap();
+    await expect(nav.locator('[aria-current="page"]')).toHaveText(name);
+    await expect(nav.locator('[aria-current="page"]')).toBeInViewport({ ratio: 1 });
+  }
+
+  // A desktop: the ten sections in one row, none cut short, nothing scrolling.
+  await owner.goto(`/builds/${build.id}/budget`);
+  const wide = owner.getByRole('navigation', { name: 'Build sections' });
+  const links = wide.getByRole('link');
+  await expect(links).toHaveCount(10);
+  await expect(wide.locator('[aria-current="page"]')).toHaveText('Budget');
+  const tops = new Set<number>();
+  for (let i = 0; i < 10; i++) {
+    tops.add(Math.round((await links.nth(i).boundingBox())!.y));
+    const label = links.nth(i).locator('span');
+    expect(await label.evaluate((e) => e.scrollWidth <= e.clientWidth)).toBe(true);
+  }
+  expect([...tops]).toHaveLength(1);
+  expect(await wide.getByRole('list').evaluate((el) => el.scrollWidth <= el.clientWidth)).toBe(
+    true,
+  );
+  await ownerContext.close();
+  await viewerContext.close();
 });
 
 test('the overview shows every role what happened lately, without money, and one way to add people', async ({

@@ -122,7 +122,12 @@ describe('install log: jobs, steps, checklist and fastener specs', () => {
     ]);
     expect(moneyKeys(step)).toEqual([]);
     const b = (await owner.agent.get(`${base}/steps/${stepB.id}`)).body.step;
-    expect(b.cautions.map((c: { id: string }) => c.id)).toEqual(['lifting', 'service-information']);
+    // Head studs (linked part and words) suggest the critical-fastener caution (issue 20).
+    expect(b.cautions.map((c: { id: string }) => c.id)).toEqual([
+      'lifting',
+      'critical-fastener',
+      'service-information',
+    ]);
 
     const jobs = (await owner.agent.get(`${base}/jobs`)).body.jobs;
     expect(jobs).toHaveLength(1);
