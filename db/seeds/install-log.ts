@@ -184,16 +184,18 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
 
   // Teddy's wrenches, each with the date it was last calibrated. The small one is past the
   // usual 12 months, so the readings taken with it show the calibration warning.
-  const wrenchRows = (await knex('torque_wrenches')
-    .insert([
-      { user_id: crew, name: '3/8 in. click wrench, 10–80 lbf·ft', calibrated_on: day(-240) },
-      { user_id: crew, name: '1/4 in. click wrench, 2–25 N·m', calibrated_on: day(-460) },
-    ])
-    .returning(['id', 'name', 'calibrated_on'])) as {
-    id: string;
-    name: string;
-    calibrated_on: string;
-  }[];
+  const wrenches = [
+    { user_id: crew, name: '3/8 in. click wrench, 10–80 lbf·ft', calibrated_on: day(-240) },
+    { user_id: crew, name: '1/4 in. click wrench, 2–25 N·m', calibrated_on: day(-460) },
+  ];
+  // The dates as written, not as read back: a connection without the server's DATE parser
+  // (the e2e demo's) returns Date objects.
+  const wrenchRows = (
+    (await knex('torque_wrenches').insert(wrenches).returning(['id', 'name'])) as {
+      id: string;
+      name: string;
+    }[]
+  ).map((w) => ({ ...w, calibrated_on: wrenches.find((x) => x.name === w.name)!.calibrated_on }));
   const wrenchByName = new Map(wrenchRows.map((w) => [w.name, w]));
   /** Calibration due after the build's default interval. */
   const dueAfterYear = (date: string) => calibrationDueOn(date, defaultCalibrationMonths);
