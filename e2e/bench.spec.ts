@@ -1,7 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
-import { linkTo, waitForMail } from './mail';
+import { joinByInvitation, linkTo, waitForMail } from './mail';
 
 const phone = { width: 390, height: 844 };
 const desktop = { width: 1280, height: 900 };
@@ -98,7 +98,8 @@ test('the shop enters its injector sheets at phone width and at desktop; the own
     targetPowerBasis: 'wheel',
   });
   const api = `/api/builds/${build.id}`;
-  const { member } = await call<{ member: { userId: string } }>(owner, 'post', `${api}/members`, {
+  const shopUserId = await joinByInvitation(owner, shopPhone, {
+    buildId: build.id,
     email: shopEmail,
     role: 'shop',
   });
@@ -106,7 +107,7 @@ test('the shop enters its injector sheets at phone width and at desktop; the own
     category: 'fuel-injection',
     name: 'Injector set, new nozzles (6)',
     status: 'at-shop',
-    shopUserId: member.userId,
+    shopUserId,
     labourCents: 72_000,
   });
   await call(owner, 'post', `${api}/parts`, { category: 'exhaust', name: 'Down-pipe' });

@@ -1,5 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
+import { joinByInvitation } from './mail';
 
 // Long journeys (sign-up, a build, parts, reloads, an edit): give them room on a busy 2-core machine.
 test.describe.configure({ timeout: 120_000 });
@@ -62,7 +63,7 @@ test('the owner sees the weakest link move when a rating changes, and the bottom
     ratingUnit: 'lbf-ft',
   });
 
-  await page.getByRole('link', { name: 'Power estimate' }).click();
+  await page.getByRole('link', { name: 'Estimate', exact: true }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Power estimate' })).toBeVisible();
   const answer = page.getByRole('region', { name: 'Weakest link' });
   await expect(answer).toContainText(
@@ -109,7 +110,7 @@ test('the owner sees the weakest link move when a rating changes, and the bottom
   await page.getByLabel('Target power', { exact: true }).fill('750');
   await page.getByRole('button', { name: 'Save changes' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Night Freight' })).toBeVisible();
-  await page.getByRole('link', { name: 'Power estimate' }).click();
+  await page.getByRole('link', { name: 'Estimate', exact: true }).click();
   await expect(page.getByText('Saved estimate, from the server')).toBeVisible();
   const alert = page.getByRole('alert');
   await expect(alert).toContainText(
@@ -129,7 +130,7 @@ test('the owner saves assumptions in g/kWh and resets them to the defaults', asy
   await page.getByLabel('Target power', { exact: true }).fill('500');
   await page.getByRole('button', { name: 'Create build' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Feed Store Special' })).toBeVisible();
-  await page.getByRole('link', { name: 'Power estimate' }).click();
+  await page.getByRole('link', { name: 'Estimate', exact: true }).click();
 
   // No rated parts: an empty state, and every category is unknown rather than fine.
   await expect(page.getByText('No rated parts yet')).toBeVisible();
@@ -182,13 +183,14 @@ test('links from the estimate open the part: the owner at its rating, crew at it
   const origin = baseURL!;
   const crewEmail = uniqueEmail('estimate-crew');
   const shopEmail = uniqueEmail('estimate-shop');
+  const joiners: Page[] = [];
   for (const [name, email] of [
     ['Rosa Pike', crewEmail],
     ['Gauge Line Injection', shopEmail],
   ]) {
-    const context = await browser.newContext();
-    await signUpThroughPage(await context.newPage(), name, email);
-    await context.close();
+    const joiner = await (await browser.newContext()).newPage();
+    await signUpThroughPage(joiner, name, email);
+    joiners.push(joiner);
   }
 
   const ownerContext = await browser.newContext();
@@ -210,16 +212,15 @@ test('links from the estimate open the part: the owner at its rating, crew at it
   expect(created.status(), await created.text()).toBe(201);
   const buildId = ((await created.json()) as { build: { id: string } }).build.id;
   const members: Record<string, string> = {};
-  for (const [email, role] of [
-    [crewEmail, 'crew'],
-    [shopEmail, 'shop'],
-  ]) {
-    const res = await page.request.post(`/api/builds/${buildId}/members`, {
-      headers,
-      data: { email, role },
-    });
-    expect(res.status(), await res.text()).toBe(201);
-    members[role] = ((await res.json()) as { member: { userId: string } }).member.userId;
+  for (const [i, [email, role]] of (
+    [
+      [crewEmail, 'crew'],
+      [shopEmail, 'shop'],
+    ] as const
+  ).entries()) {
+    // Members join the one way there is: an invitation by e-mail, accepted.
+    members[role] = await joinByInvitation(page, joiners[i]!, { buildId, email, role });
+    await joiners[i]!.context().close();
   }
   // 44 unrated injection parts list first, so the bottom end is past the first 40 parts.
   for (let i = 1; i <= 44; i += 1) {

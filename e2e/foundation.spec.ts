@@ -1,10 +1,11 @@
 import { expect, test } from '@playwright/test';
 import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
+import { linkTo, waitForMail } from './mail';
 
-test('an owner signs up, starts a build, adds crew; the crew member sees it without money', async ({
+test('an owner signs up, starts a build, invites crew; the crew member sees it without money', async ({
   browser,
 }) => {
-  // The crew member-to-be makes an account first (adding members needs an existing account).
+  // The crew member-to-be already has an account: the invitation is the same either way.
   const crewEmail = uniqueEmail('crew');
   const crewContext = await browser.newContext();
   const crewPage = await crewContext.newPage();
@@ -30,17 +31,23 @@ test('an owner signs up, starts a build, adds crew; the crew member sees it with
   await expect(page.getByText('Red Dust Runner')).toBeVisible();
   await page.getByText('Red Dust Runner').click();
 
-  const addForm = page.getByRole('form', { name: 'Add someone' });
-  await addForm.getByLabel('E-mail', { exact: true }).fill(crewEmail);
-  await addForm.getByLabel('Role', { exact: true }).selectOption('crew');
-  await addForm.getByRole('button', { name: 'Add member' }).click();
-  await expect(page.getByText('Rosa Tillman')).toBeVisible();
+  // One way to add people: an invitation by e-mail, whether or not they have an account.
+  await expect(page.getByRole('form', { name: 'Add someone' })).toHaveCount(0);
+  await page.getByLabel('Address to invite').fill(crewEmail);
+  await page.getByLabel('Invite as').selectOption('crew');
+  await page.getByRole('button', { name: 'Send invitation' }).click();
+  await expect(page.getByText(`Invitation sent to ${crewEmail}`)).toBeVisible();
   const buildUrl = page.url();
+  const mail = await waitForMail(page.request, crewEmail, /invited to a build on Headroom/);
   await ownerContext.close();
 
   const crew = await browser.newContext();
   const crewView = await crew.newPage();
   await signInThroughPage(crewView, crewEmail, password);
+  await crewView.goto(linkTo(mail, '/invite/'));
+  await crewView.getByRole('button', { name: 'Accept and open the build' }).click();
+  await expect(crewView).toHaveURL(buildUrl);
+  await crewView.goto('/builds');
   await expect(crewView.getByText('Red Dust Runner')).toBeVisible();
   await crewView.getByText('Red Dust Runner').click();
   await expect(crewView.getByRole('heading', { level: 1, name: 'Red Dust Runner' })).toBeVisible();

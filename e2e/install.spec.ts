@@ -1,8 +1,12 @@
 import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { signUpThroughPage, uniqueEmail } from './helpers';
+import { joinByInvitation } from './mail';
 
 const phone = { width: 390, height: 844 };
+
+/** A calendar date `n` days ago, as a date box takes it. */
+const daysAgo = (n: number) => new Date(Date.now() - n * 86_400_000).toISOString().slice(0, 10);
 
 /** A JSON call as the signed-in user of `page`, with the Origin the server asks for. */
 async function call<T>(page: Page, method: 'post', url: string, data: unknown): Promise<T> {
@@ -56,7 +60,7 @@ test('at phone width the crew records torque (one out of spec, then corrected) a
     targetPowerBasis: 'crank',
   });
   const api = `/api/builds/${build.id}`;
-  await call(owner, 'post', `${api}/members`, { email: crewEmail, role: 'crew' });
+  await joinByInvitation(owner, crew, { buildId: build.id, email: crewEmail, role: 'crew' });
   const { job } = await call<{ job: { id: string } }>(owner, 'post', `${api}/jobs`, {
     title: 'Fit the rebuilt injectors',
   });
@@ -114,7 +118,15 @@ test('at phone width the crew records torque (one out of spec, then corrected) a
   const record1 = bolts.getByRole('button', { name: 'Record #1' });
   expect((await record1.boundingBox())!.height).toBeGreaterThanOrEqual(48);
 
-  await bolts.getByLabel('Wrench used').fill('3/8 in. click wrench, 10–80 lbf·ft');
+  // The crew member's own wrench, with its last calibration: kept on the account, offered here.
+  await bolts.getByRole('button', { name: 'Add a wrench' }).click();
+  await bolts.getByLabel('Wrench name or number').fill('3/8 in. click wrench, 10–80 lbf·ft');
+  await bolts.getByLabel('Last calibrated').fill(daysAgo(60));
+  await bolts.getByRole('button', { name: 'Add the wrench' }).click();
+  await expect(bolts.getByLabel('Wrench used').locator('option:checked')).toHaveText(
+    '3/8 in. click wrench, 10–80 lbf·ft',
+  );
+  await expect(bolts.getByText(/^Calibrated .*, due /)).toBeVisible();
 
   // #1 in spec.
   await bolts.getByLabel('Torque at #1').fill('36');
@@ -156,7 +168,9 @@ test('at phone width the crew records torque (one out of spec, then corrected) a
 
   // The wrench is remembered on this phone for the next entries.
   await crew.reload();
-  await expect(bolts.getByLabel('Wrench used')).toHaveValue('3/8 in. click wrench, 10–80 lbf·ft');
+  await expect(bolts.getByLabel('Wrench used').locator('option:checked')).toHaveText(
+    '3/8 in. click wrench, 10–80 lbf·ft',
+  );
 
   // The check, ticked with a big box; who ticked it shows.
   await crew.getByRole('checkbox', { name: /New copper washer on each injector/ }).check();

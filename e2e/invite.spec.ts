@@ -84,6 +84,11 @@ test('an existing user signs in from the invitation and accepts with one click',
   await signUpThroughPage(viewerPage, 'Priya Natarajan', viewerEmail);
   await viewerPage.getByRole('button', { name: 'Sign out' }).click();
   await expect(viewerPage.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  // Signing out says it worked; a reload does not say it again.
+  await expect(viewerPage.getByText('You have signed out')).toBeVisible();
+  await viewerPage.reload();
+  await expect(viewerPage.getByRole('heading', { name: 'Sign in' })).toBeVisible();
+  await expect(viewerPage.getByText('You have signed out')).toHaveCount(0);
 
   const owner = await browser.newContext();
   const page = await owner.newPage();

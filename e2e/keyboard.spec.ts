@@ -8,6 +8,7 @@ import { expect, test, type BrowserContext, type Locator, type Page } from '@pla
 import type { Role } from '../shared/permissions';
 import { ensureDemo, signedInState, type Demo } from './demo';
 import { postJson, signUpThroughApi } from './helpers';
+import { joinByInvitation } from './mail';
 import { opener, pages, settle } from './pages';
 
 // Long walks through every Tab stop of a page on a busy 2-core machine.
@@ -152,7 +153,12 @@ test.describe('a build of its own', () => {
       targetPowerBasis: 'crank',
     }));
     const api = `/api/builds/${buildId}`;
-    await post(`${api}/members`, { email: crew.email, role: 'crew' });
+    await joinByInvitation(owner.api, crew.api, {
+      buildId,
+      email: crew.email,
+      role: 'crew',
+      origin: baseURL,
+    });
     for (const part of [
       { category: 'fuel-injection', name: 'Injector set, matched', status: 'ordered' },
       { category: 'fuel-supply', name: 'Lift pump, 220 L/h', status: 'planned' },

@@ -2,7 +2,7 @@
  * Reading caught mail in Playwright specs: the e2e server runs without SMTP
  * settings, so its catcher keeps every message and /dev/mail lists them.
  */
-import { expect, type APIRequestContext } from '@playwright/test';
+import { expect, type APIRequestContext, type Page } from '@playwright/test';
 
 export type CaughtMail = {
   file: string;
@@ -41,4 +41,38 @@ export function linkTo(mail: CaughtMail, clientPath: string): string {
   if (!link) throw new Error(`no ${clientPath} link in mail "${mail.subject}"`);
   const url = new URL(link);
   return url.pathname + url.search;
+}
+
+/**
+ * Puts the person signed in on `member` onto the build with `role` the only way there is:
+ * the owner (signed in on `owner`) invites their address, and they accept from the mail's
+ * link. Returns their user id.
+ */
+export async function joinByInvitation(
+  owner: Page | APIRequestContext,
+  member: Page | APIRequestContext,
+  p: {
+    buildId: string;
+    email: string;
+    role: 'crew' | 'shop' | 'viewer' | 'owner';
+    /** The app's origin; needed when `owner` is an API context rather than a page. */
+    origin?: string;
+  },
+): Promise<string> {
+  const ownerRequest = 'request' in owner ? owner.request : owner;
+  const memberRequest = 'request' in member ? member.request : member;
+  const origin = p.origin ?? new URL((owner as Page).url()).origin;
+  const sent = await ownerRequest.post(`/api/builds/${p.buildId}/invitations`, {
+    data: { email: p.email, role: p.role },
+    headers: { Origin: origin },
+  });
+  expect(sent.ok(), await sent.text()).toBe(true);
+  const mail = await waitForMail(ownerRequest, p.email, /invited to a build on Headroom/);
+  const token = linkTo(mail, '/invite/').split('/').pop()!;
+  const accepted = await memberRequest.post(`/api/invitations/${token}/accept`, {
+    data: {},
+    headers: { Origin: origin },
+  });
+  expect(accepted.ok(), await accepted.text()).toBe(true);
+  return ((await accepted.json()) as { user: { id: string } }).user.id;
 }

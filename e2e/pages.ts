@@ -51,6 +51,7 @@ export const pages: readonly PageCheck[] = [
   { name: 'page not found', path: () => '/no-such-page', roles: guest },
 
   { name: 'builds list', path: () => b.list.getHref(), roles: members },
+  { name: 'account', path: () => paths.account.getHref(), roles: members },
   { name: 'new build', path: () => b.new.getHref(), roles: members },
   { name: 'overview and members', path: overview, roles: members },
   { name: 'remove-member dialog', path: overview, roles: owner, dialog: { button: /^Remove /, name: /^Remove / } },

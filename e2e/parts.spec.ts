@@ -1,6 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
+import { linkTo, waitForMail } from './mail';
 
 type NewPart = { name: string; category: string; status: string; price: string };
 
@@ -45,12 +46,20 @@ test('the owner builds a ledger, moves a part in its row and the budget follows;
   await page.getByRole('button', { name: 'Create build' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Salt Flat Shuttle' })).toBeVisible();
 
-  // The overview's member form adds someone who already has an account.
-  const addMember = page.getByRole('form', { name: 'Add someone' });
-  await addMember.getByLabel('E-mail').fill(crewEmail);
-  await addMember.getByLabel('Role').selectOption('crew');
-  await addMember.getByRole('button', { name: 'Add member' }).click();
-  await expect(page.getByText('Dale Okonkwo')).toBeVisible();
+  // The crew member joins through an invitation, the one way in.
+  await page.getByLabel('Address to invite').fill(crewEmail);
+  await page.getByLabel('Invite as').selectOption('crew');
+  await page.getByRole('button', { name: 'Send invitation' }).click();
+  const mail = await waitForMail(page.request, crewEmail, /invited to a build on Headroom/);
+  const crewJoin = await browser.newContext();
+  const joinPage = await crewJoin.newPage();
+  await signInThroughPage(joinPage, crewEmail, password);
+  await joinPage.goto(linkTo(mail, '/invite/'));
+  await joinPage.getByRole('button', { name: 'Accept and open the build' }).click();
+  await expect(
+    joinPage.getByRole('heading', { level: 1, name: 'Salt Flat Shuttle' }),
+  ).toBeVisible();
+  await crewJoin.close();
 
   const sections = page.getByRole('navigation', { name: 'Build sections' });
   await sections.getByRole('link', { name: 'Parts' }).click();
@@ -139,7 +148,7 @@ test('the owner builds a ledger, moves a part in its row and the budget follows;
   await expect(crewLedger.getByRole('rowheader', { name: 'Injector set, stage 2' })).toBeVisible();
   await expect(crewLedger.getByRole('rowheader', { name: 'Lift pump, 220 L/h' })).toBeVisible();
   await expect(crewPage.getByLabel('Status of Injector set, stage 2')).toHaveValue('in-hand');
-  for (const header of ['Total', 'Unit price', 'Labour', 'Your quote']) {
+  for (const header of ['Total', 'Unit price', 'Labor', 'Your quote']) {
     await expect(crewLedger.getByRole('columnheader', { name: header })).toHaveCount(0);
   }
   const text = await crewPage.locator('body').innerText();

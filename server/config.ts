@@ -68,6 +68,8 @@ const envSchema = z.object({
   CLIENT_DIR: z.string().min(1).optional(),
   /** Largest photo accepted, in MiB. */
   PHOTO_MAX_MB: z.coerce.number().positive().max(200).default(25),
+  /** How often each server process looks for parts newly overdue at a shop (ms). */
+  OVERDUE_POLL_MS: z.coerce.number().int().min(1000).default(600_000),
 });
 
 export type SmtpSettings =
@@ -98,6 +100,8 @@ export type AppConfig = {
   accountRateLimit: number;
   estimateRateLimit: number;
   invitationLimits: { perHour: number; perDay: number };
+  /** Period of the overdue-at-the-shop pass (parts.overdue.ts). */
+  overduePollMs: number;
   /** Key prefix for rate-limit counters; tests give each app its own. */
   rateLimitPrefix: string;
   trustProxy: boolean;
@@ -168,6 +172,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     accountRateLimit: e.ACCOUNT_RATE_LIMIT,
     estimateRateLimit: e.ESTIMATE_RATE_LIMIT,
     invitationLimits: { perHour: e.INVITATIONS_PER_HOUR, perDay: e.INVITATIONS_PER_DAY },
+    overduePollMs: e.OVERDUE_POLL_MS,
     rateLimitPrefix: 'rl:',
     trustProxy: e.TRUST_PROXY === '1',
     logLevel: e.LOG_LEVEL,

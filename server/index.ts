@@ -7,6 +7,7 @@ import { createMailer } from './lib/mailer';
 import { createFileWorker } from './features/files';
 import { createMailWorker } from './features/mail';
 import { createDigestWorker } from './features/timeline';
+import { createOverdueWorker } from './features/parts';
 import { createStorage, describeStorage } from './lib/stores';
 
 const config = loadConfig();
@@ -52,6 +53,9 @@ fileWorker.start();
 // The weekly timeline digest: queued once per member and week, whichever process gets there first.
 const digestWorker = createDigestWorker({ knex: db.knex, logger });
 digestWorker.start();
+// Parts overdue at a shop: told to the owner and the shop once per spell (see parts.overdue.ts).
+const overdueWorker = createOverdueWorker({ knex: db.knex, logger, pollMs: config.overduePollMs });
+overdueWorker.start();
 
 const server = app.listen(config.port, config.host, () => {
   logger.info(`Headroom is listening on http://${config.host}:${config.port}`);
@@ -72,6 +76,7 @@ async function stop(signal: string) {
   await mailWorker.stop();
   await fileWorker.stop();
   await digestWorker.stop();
+  await overdueWorker.stop();
   storage.close?.();
   mailer.close();
   await catcher?.close();

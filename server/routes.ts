@@ -5,7 +5,9 @@
  */
 import type { Router } from 'express';
 import type { AppDeps } from './lib/deps';
-import { authRouter, meRouter } from './features/auth/auth.router';
+import { activityRouter } from './features/activity/activity.router';
+import { emailChangesRouter, meRouter } from './features/auth/account.router';
+import { authRouter } from './features/auth/auth.router';
 import { benchSheetsRouter } from './features/bench/bench.router';
 import { passwordResetRouter } from './features/auth/password-reset.router';
 import { budgetRouter } from './features/budget/budget.router';
@@ -38,6 +40,7 @@ import {
   milestonesRouter,
   timelineRouter,
 } from './features/timeline/timeline.router';
+import { wrenchesRouter } from './features/wrenches/wrenches.router';
 
 /** `anonymous`: served before the session is read (no cookie lookup), e.g. the health check. */
 export type Mount = { path: string; router: Router; anonymous?: boolean };
@@ -51,13 +54,16 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: '/calendar-feeds', router: calendarFeedsRouter(deps), anonymous: true },
     { path: '/auth/password-reset', router: passwordResetRouter(deps) },
     { path: '/auth', router: authRouter(deps) },
-    { path: '/me', router: meRouter() },
+    { path: '/me/wrenches', router: wrenchesRouter(deps) },
+    { path: '/me', router: meRouter(deps) },
+    { path: '/email-changes', router: emailChangesRouter(deps) },
     { path: '/estimate', router: estimateRouter(deps) },
     { path: '/invitations', router: invitationLinksRouter(deps) },
     { path: '/builds', router: buildsRouter(deps) },
     { path: `${b}/members`, router: membersRouter(deps) },
     { path: `${b}/invitations`, router: buildInvitationsRouter(deps) },
     { path: `${b}/notice-preferences`, router: noticePreferencesRouter(deps) },
+    { path: `${b}/activity`, router: activityRouter(deps) },
     { path: `${b}/parts.csv`, router: partsCsvRouter(deps) },
     { path: `${b}/parts/:partId/photos`, router: subjectPhotosRouter(deps, 'partId') },
     { path: `${b}/parts`, router: partsRouter(deps) },

@@ -27,6 +27,8 @@ export const permissions = {
   'build:read': everyone,
   'build:update': ownerOnly,
   'build:delete': ownerOnly,
+  // Recent activity on the overview. A shop sees only its parts' events; none carries money.
+  'activity:read': everyone,
   'members:read': everyone,
   'members:manage': ownerOnly,
   'money:read': ownerOnly,

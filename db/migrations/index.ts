@@ -14,6 +14,11 @@ import * as m0050 from './20261202005000_create_file_deletions';
 import * as m0051 from './20261202005100_create_invitation_sends';
 import * as m0060 from './20261202006000_create_bench_sheets';
 import * as m0070 from './20261202007000_create_dyno_sessions';
+import * as m0080 from './20261202008000_add_reading_stages_and_position_names';
+import * as m0081 from './20261202008100_create_torque_wrenches';
+import * as m0082 from './20261202008200_add_step_caution_choices';
+import * as m0083 from './20261202008300_create_part_overdue_notices';
+import * as m0084 from './20261202008400_create_email_changes';
 import * as m0090 from './20261202009000_create_timeline';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
@@ -38,6 +43,11 @@ const migrations: Record<string, Migration> = {
   '20261202005100_create_invitation_sends': m0051,
   '20261202006000_create_bench_sheets': m0060,
   '20261202007000_create_dyno_sessions': m0070,
+  '20261202008000_add_reading_stages_and_position_names': m0080,
+  '20261202008100_create_torque_wrenches': m0081,
+  '20261202008200_add_step_caution_choices': m0082,
+  '20261202008300_create_part_overdue_notices': m0083,
+  '20261202008400_create_email_changes': m0084,
   '20261202009000_create_timeline': m0090,
 };
 

@@ -15,9 +15,18 @@ import sharp from 'sharp';
 import { processPhoto } from '../../server/features/photos/photos.images';
 import { insertPhotos, type NewPhoto } from '../../server/features/photos/photos.repository';
 import type { Storage } from '../../server/lib/storage';
+import { calibrationDueOn, defaultCalibrationMonths } from '../../shared/install-log/wrenches';
 
 const demoSource = (section: string) =>
   `Maker's service manual, ${section} — owner's entry. Demo values only: use your own service information.`;
+
+/** The demo truck's eight cylinders, as the crew names a fastener's positions. */
+const cylinders = Array.from({ length: 8 }, (_, i) => `Cyl ${i + 1}`);
+
+/** A calendar date `days` days from today (UTC), YYYY-MM-DD. */
+function day(days: number) {
+  return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+}
 
 /** A timestamp `days` days from now at a garage hour (UTC). */
 function at(days: number, hour: number, minute = 0) {
@@ -28,7 +37,7 @@ function at(days: number, hour: number, minute = 0) {
 }
 
 /** A simple drawing for a step photo: a bench, a part outline, a caption. */
-function drawing(title: string, shape: 'bore' | 'pipe' | 'probe' | 'injector', colour: string) {
+function drawing(title: string, shape: 'bore' | 'pipe' | 'probe' | 'injector', color: string) {
   const shapes = {
     bore: '<circle cx="600" cy="430" r="190" fill="#3b3f45"/><circle cx="600" cy="430" r="120" fill="#9aa3ad"/><circle cx="600" cy="430" r="55" fill="#20242a"/>',
     pipe: '<path d="M250 300 h380 a160 160 0 0 1 160 160 v200" stroke="#9aa3ad" stroke-width="110" fill="none"/><rect x="200" y="230" width="70" height="140" rx="12" fill="#6b7480"/>',
@@ -39,7 +48,7 @@ function drawing(title: string, shape: 'bore' | 'pipe' | 'probe' | 'injector', c
   };
   return Buffer.from(
     `<svg xmlns="http://www.w3.org/2000/svg" width="1200" height="900">
-      <rect width="1200" height="900" fill="${colour}"/>
+      <rect width="1200" height="900" fill="${color}"/>
       <rect y="720" width="1200" height="180" fill="#2b2f36"/>
       ${shapes[shape]}
       <text x="60" y="830" font-family="DejaVu Sans, Liberation Sans, sans-serif" font-size="54" fill="#f4f1ea">${title}</text>
@@ -79,7 +88,10 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
     description: string;
     parts: string[];
     liftsVehicle?: boolean;
-    signedOff?: { by: string; at: Date };
+    /** The cautions the author ticked; left out, the step shows the suggested ones. */
+    cautions?: string[];
+    /** An override: the owner signed off over the unticked checks, giving this reason. */
+    signedOff?: { by: string; at: Date; overrideReason?: string };
     underWay?: boolean;
     checklist: [string, Date | null][];
   };
@@ -92,9 +104,11 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
         title: s.title,
         description: s.description,
         lifts_vehicle: s.liftsVehicle ?? false,
+        caution_ids: s.cautions ? JSON.stringify(s.cautions) : null,
         status: s.signedOff ? 'signed-off' : s.underWay ? 'under-way' : 'not-started',
         signed_off_by: s.signedOff?.by ?? null,
         signed_off_at: s.signedOff?.at ?? null,
+        override_reason: s.signedOff?.overrideReason ?? null,
       })
       .returning('id')) as { id: string }[];
     if (s.parts.length)
@@ -102,15 +116,31 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
         s.parts.map((part_id) => ({ step_id: row.id, part_id })),
       );
     if (s.checklist.length) {
-      await knex('install_checklist_items').insert(
-        s.checklist.map(([label, done], i) => ({
-          step_id: row.id,
-          position: i + 1,
-          label,
-          done_by: done ? crew : null,
-          done_at: done,
-        })),
-      );
+      const items = (await knex('install_checklist_items')
+        .insert(
+          s.checklist.map(([label, done], i) => ({
+            step_id: row.id,
+            position: i + 1,
+            label,
+            done_by: done ? crew : null,
+            done_at: done,
+          })),
+        )
+        .returning(['id', 'label', 'done_at'])) as { id: string; label: string; done_at: Date }[];
+      if (s.signedOff?.overrideReason) {
+        // What the sign-off overrode, as the sign-off route records it.
+        const blockers = items
+          .filter((i) => !i.done_at)
+          .map((i) => ({
+            kind: 'unticked',
+            itemId: i.id,
+            label: i.label,
+            message: `Not ticked: ${i.label}`,
+          }));
+        await knex('install_steps')
+          .where({ id: row.id })
+          .update({ override_blockers: JSON.stringify(blockers) });
+      }
     }
     return row.id;
   };
@@ -124,6 +154,8 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
     finalAngleDeg?: number;
     thread: 'dry' | 'oiled' | 'anti-seize' | 'sealant';
     sequence?: string;
+    /** "Cyl 1" … when the positions have names. */
+    positionNames?: string[];
     source: string;
     retorqueHeatCycles?: number;
   };
@@ -143,13 +175,32 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
           final_angle_deg: s.finalAngleDeg ?? null,
           thread_condition: s.thread,
           sequence_note: s.sequence ?? '',
+          position_names: JSON.stringify(s.positionNames ?? []),
           spec_source: s.source,
           retorque_after_heat_cycles: s.retorqueHeatCycles ?? null,
         })
         .returning('id')) as { id: string }[]
     )[0].id;
 
-  /** Readings in order; a later one for the same position and kind supersedes the earlier. */
+  // Teddy's wrenches, each with the date it was last calibrated. The small one is past the
+  // usual 12 months, so the readings taken with it show the calibration warning.
+  const wrenches = [
+    { user_id: crew, name: '3/8 in. click wrench, 10–80 lbf·ft', calibrated_on: day(-240) },
+    { user_id: crew, name: '1/4 in. click wrench, 2–25 N·m', calibrated_on: day(-460) },
+  ];
+  // The dates as written, not as read back: a connection without the server's DATE parser
+  // (the e2e demo's) returns Date objects.
+  const wrenchRows = (
+    (await knex('torque_wrenches').insert(wrenches).returning(['id', 'name'])) as {
+      id: string;
+      name: string;
+    }[]
+  ).map((w) => ({ ...w, calibrated_on: wrenches.find((x) => x.name === w.name)!.calibrated_on }));
+  const wrenchByName = new Map(wrenchRows.map((w) => [w.name, w]));
+  /** Calibration due after the build's default interval. */
+  const dueAfterYear = (date: string) => calibrationDueOn(date, defaultCalibrationMonths);
+
+  /** Readings in order; a later one for the same position, kind and stage supersedes the earlier. */
   const readings = async (
     specId: string,
     list: {
@@ -160,11 +211,13 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
       wrench: string;
       note?: string;
       kind?: 'retorque';
+      stage?: number;
     }[],
   ) => {
     const current = new Map<string, { id: string }>();
     for (const r of list) {
-      const key = `${r.kind ?? 'install'}:${r.position}`;
+      const key = `${r.kind ?? 'install'}:${r.position}:${r.stage ?? 0}`;
+      const w = wrenchByName.get(r.wrench);
       const previous = current.get(key);
       if (previous)
         await knex('torque_readings').where({ id: previous.id }).update({ superseded_at: r.at });
@@ -175,7 +228,11 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
           kind: r.kind ?? 'install',
           value: r.value,
           unit: r.unit,
+          stage: r.stage ?? null,
           wrench: r.wrench,
+          wrench_id: w?.id ?? null,
+          wrench_calibrated_on: w?.calibrated_on ?? null,
+          wrench_calibration_due_on: w ? dueAfterYear(w.calibrated_on) : null,
           note: r.note ?? '',
           recorded_by: crew,
           recorded_at: r.at,
@@ -202,6 +259,7 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
       'Front on rated stands under the frame rails, rear wheels chocked. Shake-test before going under.',
     parts: [],
     liftsVehicle: true,
+    cautions: ['lifting'],
     signedOff: { by: crew, at: at(-80, 9, 10) },
     checklist: [
       ['Stands rated for the truck, on level concrete', at(-80, 9, 0)],
@@ -262,6 +320,9 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
     },
   ]);
   await readings(flange, [
+    { position: 1, value: 15, unit: 'lbf-ft', at: at(-80, 11, 40), wrench, stage: 1 },
+    { position: 2, value: 15.5, unit: 'lbf-ft', at: at(-80, 11, 42), wrench, stage: 1 },
+    { position: 3, value: 14.5, unit: 'lbf-ft', at: at(-80, 11, 44), wrench, stage: 1 },
     { position: 1, value: 30, unit: 'lbf-ft', at: at(-80, 11, 50), wrench },
     // Teddy's first pass on #2 clicked early; the correction supersedes it.
     { position: 2, value: 26, unit: 'lbf-ft', at: at(-80, 11, 52), wrench },
@@ -277,7 +338,7 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
   ]);
   const probeStep = await step(exhaust, 3, {
     title: 'Fit the EGT probe before the turbo',
-    description: 'Probe tip centred in the gas flow. Route the lead clear of the manifold.',
+    description: 'Probe tip centered in the gas flow. Route the lead clear of the manifold.',
     parts: [egt],
     signedOff: { by: crew, at: at(-80, 14, 10) },
     checklist: [
@@ -316,12 +377,20 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
     description:
       'Engine cold. Relieve pressure before opening any line. Cap every bore and line straight away.',
     parts: [injectors],
-    signedOff: { by: crew, at: at(-21, 16, 30) },
+    cautions: ['high-pressure-fuel'],
+    // Marisol signed this one off with a check still open, and said why.
+    signedOff: {
+      by: owner,
+      at: at(-21, 16, 30),
+      overrideReason:
+        "The shop photographed each injector's cylinder tag at intake; their photos stand in for ours.",
+    },
     checklist: [
       ['Engine cold, batteries disconnected', at(-21, 9, 0)],
       ['Rail pressure relieved as the service manual says', at(-21, 9, 15)],
       ['Bores and lines capped', at(-21, 15, 50)],
       ['Injectors bagged and labelled by cylinder for the shop', at(-21, 16, 20)],
+      ["Photo of each injector's cylinder tag", null],
     ],
   });
   const bores = await step(inj, 2, {
@@ -352,6 +421,7 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
     stages: [10],
     thread: 'oiled',
     sequence: 'Each injector: stage 1, then final, before the line goes on.',
+    positionNames: cylinders,
     source: demoSource('fuel system, injector installation'),
   });
   const hp = await step(inj, 4, {
@@ -371,6 +441,7 @@ export async function seedInstallLog(knex: Knex, { buildId, userIds }: Ids, stor
     tolerance: ['percent', 5],
     thread: 'dry',
     sequence: 'Start by hand; a cross-threaded nut is a new line.',
+    positionNames: cylinders,
     source: demoSource('fuel system, high-pressure lines'),
     retorqueHeatCycles: 1,
   });

@@ -4,8 +4,10 @@
  * that is in spec, and every checklist item is ticked. Anything else is a
  * blocker; only the build's owner may sign off over blockers, and must give a
  * reason, which is kept with the sign-off together with the blockers it overrode.
- * Re-torque readings do not count here: they come after the engine has run.
+ * Re-torque readings do not count here: they come after the engine has run, and neither
+ * do stage readings: the final torque is what the fastener is left at.
  */
+import { positionLabel, positionList } from './positions';
 import { formatTorque, verdictLabels, type TorqueUnit, type Verdict } from './torque';
 
 export type SignOffBlocker =
@@ -31,6 +33,8 @@ export type SignOffInput = {
     id: string;
     name: string;
     count: number;
+    /** Names of the positions ("Cyl 1" …), or empty for #1 … #n. */
+    positionNames?: readonly string[];
     positions: {
       position: number;
       current: { verdict: Verdict; value: number; unit: TorqueUnit } | null;
@@ -42,6 +46,7 @@ export type SignOffInput = {
 export function signOffBlockers(step: SignOffInput): SignOffBlocker[] {
   const blockers: SignOffBlocker[] = [];
   for (const f of step.fasteners) {
+    const names = f.positionNames ?? [];
     const missing: number[] = [];
     for (let position = 1; position <= f.count; position++) {
       const current = f.positions.find((p) => p.position === position)?.current ?? null;
@@ -54,7 +59,7 @@ export function signOffBlockers(step: SignOffInput): SignOffBlocker[] {
           specName: f.name,
           position,
           verdict: current.verdict,
-          message: `${f.name} #${position}: ${verdictLabels[current.verdict].toLowerCase()} (${formatTorque(current.value, current.unit)})`,
+          message: `${f.name} ${positionLabel(names, position)}: ${verdictLabels[current.verdict].toLowerCase()} (${formatTorque(current.value, current.unit)})`,
         });
       }
     }
@@ -64,7 +69,7 @@ export function signOffBlockers(step: SignOffInput): SignOffBlocker[] {
         specId: f.id,
         specName: f.name,
         positions: missing,
-        message: `${f.name}: no reading for #${missing.join(', #')}`,
+        message: `${f.name}: no reading for ${positionList(names, missing)}`,
       });
     }
   }

@@ -1,9 +1,9 @@
 import { z } from 'zod';
 import { roles } from '../permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
-import { emailSchema } from './auth';
 import { hasAtMostDecimals } from './precision';
 import { timeZoneSchema } from './time-zone';
+import { maxCalibrationMonths, minCalibrationMonths } from '../install-log/wrenches';
 
 export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
 import { aspirations, powerBases } from '../builds/vocabulary';
@@ -34,7 +34,7 @@ export const buildFieldsSchema = z.object({
   engineDescription: trimmed(200, 'Engine').optional(),
   displacementLiters: optionalNumber(
     z
-      .number({ message: 'Enter litres, e.g. 6.7' })
+      .number({ message: 'Enter liters, e.g. 6.7' })
       .min(0.5, { message: 'At least 0.5 L' })
       .max(20, { message: 'At most 20 L' }),
   ),
@@ -78,6 +78,13 @@ export const buildFieldsSchema = z.object({
   currency: currencySchema.optional(),
   /** The IANA zone the build's days are counted in; a new build takes the owner's browser's. */
   timeZone: timeZoneSchema.optional(),
+  /** Months a torque wrench's calibration holds on this build (default 12); older readings are flagged. */
+  wrenchCalibrationMonths: z
+    .number({ message: 'Enter months' })
+    .int({ message: 'A whole number of months' })
+    .min(minCalibrationMonths, { message: `At least ${minCalibrationMonths} month` })
+    .max(maxCalibrationMonths, { message: `At most ${maxCalibrationMonths} months` })
+    .optional(),
 });
 
 export const createBuildInputSchema = buildFieldsSchema.strict();
@@ -112,15 +119,13 @@ export type Build = {
   currency: (typeof currencies)[number];
   /** Null until chosen: the timeline counts in UTC meanwhile. */
   timeZone: string | null;
+  wrenchCalibrationMonths: number;
   id: string;
   myRole: (typeof roles)[number];
   memberCount: number;
   createdAt: string;
   updatedAt: string;
 };
-
-export const addMemberInputSchema = z.object({ email: emailSchema, role: roleSchema }).strict();
-export type AddMemberInput = z.infer<typeof addMemberInputSchema>;
 
 export const updateMemberInputSchema = z.object({ role: roleSchema }).strict();
 export type UpdateMemberInput = z.infer<typeof updateMemberInputSchema>;

@@ -4,9 +4,14 @@
  * the client forms and the server; response types describe what the API returns.
  */
 import { z } from 'zod';
-import type { Caution } from '../install-log/cautions';
+import {
+  choosableCautionIds,
+  type Caution,
+  type ChoosableCautionId,
+} from '../install-log/cautions';
 import type { RetorqueState } from '../install-log/retorque';
 import type { SignOffBlocker } from '../install-log/sign-off';
+import type { Calibration } from '../install-log/wrenches';
 import { toleranceTypes, torqueUnits, type TorqueUnit, type Verdict } from '../install-log/torque';
 import { idSchema, trimmed } from './common';
 
@@ -68,8 +73,25 @@ const stepFields = {
     .array(idSchema, { message: 'A list of part ids' })
     .max(50, { message: 'At most 50 parts' })
     .optional(),
-  /** The truck or its cab is off the ground for this step (shows the stands caution). */
+  /**
+   * The truck or its cab is off the ground for this step (shows the stands caution). Kept
+   * for older callers: `cautions` with or without 'lifting' says the same and wins.
+   */
   liftsVehicle: z.boolean({ message: 'Yes or no' }).optional(),
+  /**
+   * The cautions the author ticked; shown on the step whatever its words. Left out on a new
+   * step, the step shows the cautions its parts and words suggest (suggestCautions).
+   */
+  cautions: z
+    .array(
+      z.enum(choosableCautionIds, {
+        message: 'Choose high-pressure fuel, lifting or critical fasteners',
+      }),
+      { message: 'A list of cautions' },
+    )
+    .max(choosableCautionIds.length, { message: 'Each caution once' })
+    .refine((ids) => new Set(ids).size === ids.length, { message: 'Each caution once' })
+    .optional(),
   /** 1-based place in the job; the others move to make room. Default: last. */
   position: position.optional(),
 };
@@ -143,6 +165,16 @@ export const fastenerSpecFieldsSchema = z.object({
     message: 'Choose dry, oiled, anti-seize or sealant',
   }),
   sequenceNote: trimmed(2000, 'Sequence').optional(),
+  /**
+   * Names of the positions in order ("Cyl 1" … "Cyl 8"), one per fastener, when they have
+   * names; empty or left out, they are #1 … #n.
+   */
+  positionNames: z
+    .array(trimmed(24, 'A position name').min(1, { message: 'Name every position, or none' }), {
+      message: 'A list of names',
+    })
+    .max(100, { message: 'At most 100 names' })
+    .optional(),
   /** Where the spec came from, e.g. "maker's service manual, fuel system, injector installation". */
   specSource: trimmed(500, 'Source').min(1, {
     message: "Say where this spec comes from, e.g. the maker's service manual section",
@@ -181,6 +213,12 @@ export function fastenerSpecIssues(s: Partial<FastenerSpecFields>): Record<strin
   if (s.stages && s.targetValue != null && s.stages.some((v) => v > s.targetValue!)) {
     issues.stages = 'A stage is above the final torque';
   }
+  const names = s.positionNames ?? [];
+  if (names.length > 0 && s.count != null && names.length !== s.count) {
+    issues.positionNames = `Give ${s.count} names, one per position, or none`;
+  } else if (new Set(names.map((n) => n.toLowerCase())).size !== names.length) {
+    issues.positionNames = 'Give each position its own name';
+  }
   return issues;
 }
 
@@ -210,10 +248,20 @@ export const createReadingInputSchema = z
     position,
     value: torqueValue('the torque read'),
     unit: z.enum(torqueUnits, { message: 'Choose lbf·ft, lbf·in or N·m' }),
+    /** One of the caller's own wrenches (GET /api/me/wrenches): its name and calibration are kept. */
+    wrenchId: idSchema.optional(),
+    /** A wrench not on the list, in words (older callers); ignored when wrenchId is given. */
     wrench: trimmed(160, 'Wrench').optional(),
     note: trimmed(1000, 'Note').optional(),
     /** A re-check after heat cycles or miles, not the fitting torque. */
     retorque: z.boolean({ message: 'Yes or no' }).optional(),
+    /** The stage this reading was taken at (1 = the spec's first stage); left out: the final torque. */
+    stage: z
+      .number({ message: 'Choose a stage' })
+      .int({ message: 'A stage is a whole number' })
+      .min(1, { message: 'Stages start at 1' })
+      .max(10, { message: 'At most 10 stages' })
+      .optional(),
   })
   .strict();
 export type CreateReadingInput = z.infer<typeof createReadingInputSchema>;
@@ -251,7 +299,17 @@ export type TorqueReading = {
   verdict: Verdict;
   deviation: number;
   deviationPercent: number;
+  /** Null for the final torque, else the stage (1 = the spec's first). */
+  stage: number | null;
+  /** The wrench by name, as it was called when the reading was taken. */
   wrench: string;
+  /** The member's registered wrench used, if any (null when typed in or since deleted). */
+  wrenchId: string | null;
+  /**
+   * The wrench's calibration when the reading was taken (null when no registered wrench
+   * was used); `overdue` when the reading came after its calibration fell due.
+   */
+  calibration: Calibration | null;
   note: string;
   recordedBy: Person | null;
   recordedAt: string;
@@ -266,6 +324,8 @@ export type FastenerPosition = {
   current: TorqueReading | null;
   /** The newest re-torque reading, or null. */
   retorque: TorqueReading | null;
+  /** The current reading at each of the spec's stages, in order (null where none). */
+  stages: (TorqueReading | null)[];
   /** How many older readings this position has (kept, marked superseded). */
   supersededCount: number;
 };
@@ -277,6 +337,7 @@ export type FastenerSpec = FastenerSpecFields & {
   stages: number[];
   finalAngleDeg: number | null;
   sequenceNote: string;
+  positionNames: string[];
   retorqueAfterHeatCycles: number | null;
   retorqueAfterMiles: number | null;
   /** The band in the spec's unit. */
@@ -315,16 +376,6 @@ export type StepProgress = {
   outOfSpec: number;
 };
 
-export type StepSummary = {
-  id: string;
-  jobId: string;
-  position: number;
-  title: string;
-  status: StepStatus;
-  signedOffAt: string | null;
-  progress: StepProgress;
-};
-
 export type SignOff = {
   by: Person | null;
   at: string;
@@ -332,15 +383,32 @@ export type SignOff = {
   override: { reason: string; blockers: SignOffBlocker[] } | null;
 };
 
+export type StepSummary = {
+  id: string;
+  jobId: string;
+  /**
+   * The step's place among the steps the caller sees in its job, from 1. For a shop, which
+   * sees only the steps linked to its parts, that is not the step's place in the whole job.
+   */
+  position: number;
+  title: string;
+  status: StepStatus;
+  signedOffAt: string | null;
+  /** Who signed off, when, and — when the owner signed off over open items — why. */
+  signOff: SignOff | null;
+  progress: StepProgress;
+};
+
 export type Step = Omit<StepSummary, 'signedOffAt'> & {
   buildId: string;
   description: string;
   liftsVehicle: boolean;
+  /** The cautions the author ticked, or null when nobody has chosen (then suggestions show). */
+  cautionChoice: ChoosableCautionId[] | null;
   parts: StepPart[];
   checklist: ChecklistItem[];
   fasteners: FastenerSpec[];
   cautions: Caution[];
-  signOff: SignOff | null;
   /** What stands between the step and a plain sign-off (empty when ready). */
   signOffBlockers: SignOffBlocker[];
   photoCount: number;
@@ -376,6 +444,8 @@ export type RetorqueCheck = {
   since: string | null;
   /** Positions without a current in-spec re-torque reading. */
   positionsLeft: number[];
+  /** The spec's position names ("Cyl 1" …), or empty for #1 … #n. */
+  positionNames: string[];
   closedAt: string | null;
   closedBy: Person | null;
   closeNote: string;

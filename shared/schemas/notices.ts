@@ -5,6 +5,7 @@ import type { Role } from '../permissions';
 export const noticeKinds = [
   'part-received',
   'part-back-from-shop',
+  'part-overdue-at-shop',
   'step-signed-off',
   'torque-out-of-spec',
   'bench-sheet-from-shop',
@@ -15,6 +16,7 @@ export type NoticeKind = (typeof noticeKinds)[number];
 export const noticeKindLabels: Record<NoticeKind, string> = {
   'part-received': 'Part received',
   'part-back-from-shop': 'Part back from a shop',
+  'part-overdue-at-shop': 'Part overdue at a shop',
   'step-signed-off': 'Install step signed off',
   'torque-out-of-spec': 'Torque reading out of spec',
   'bench-sheet-from-shop': 'Bench sheet from a shop',
@@ -24,6 +26,8 @@ export const noticeKindLabels: Record<NoticeKind, string> = {
 export const noticeKindDescriptions: Record<NoticeKind, string> = {
   'part-received': 'An ordered part arrived and is in the garage',
   'part-back-from-shop': 'A part came back from a shop, or its back date was set',
+  'part-overdue-at-shop':
+    'A part at a shop is past its sent-out date plus the promised turnaround (once each time; the owner and that shop)',
   'step-signed-off': 'Someone signed off an install step',
   'torque-out-of-spec': 'A torque reading fell outside the spec’s tolerance',
   'bench-sheet-from-shop':
@@ -36,6 +40,7 @@ export const noticeKindDescriptions: Record<NoticeKind, string> = {
 export const noticeKindDefaults: Record<NoticeKind, boolean> = {
   'part-received': true,
   'part-back-from-shop': true,
+  'part-overdue-at-shop': true,
   'step-signed-off': true,
   'torque-out-of-spec': true,
   'bench-sheet-from-shop': true,
@@ -50,6 +55,8 @@ export const noticeKindDefaults: Record<NoticeKind, boolean> = {
 export const noticeAudience: Record<NoticeKind, readonly Role[]> = {
   'part-received': ['owner', 'crew', 'viewer'],
   'part-back-from-shop': ['owner', 'crew', 'viewer'],
+  // The owner chases it; the shop that has the part hears too (named by the caller).
+  'part-overdue-at-shop': ['owner'],
   'step-signed-off': ['owner', 'crew', 'viewer'],
   'torque-out-of-spec': ['owner', 'crew', 'viewer'],
   // The owner checks the shop's work; the shop that acted hears nothing of its own change.
@@ -68,6 +75,7 @@ export const noticePreferencesInputSchema = z
   .object({
     'part-received': onOff.optional(),
     'part-back-from-shop': onOff.optional(),
+    'part-overdue-at-shop': onOff.optional(),
     'step-signed-off': onOff.optional(),
     'torque-out-of-spec': onOff.optional(),
     'bench-sheet-from-shop': onOff.optional(),

@@ -27,6 +27,12 @@ const ResetPasswordRoute = lazy(() =>
 const InviteRoute = lazy(() =>
   import('./routes/auth/invite').then((m) => ({ default: m.InviteRoute })),
 );
+const ConfirmEmailRoute = lazy(() =>
+  import('./routes/auth/confirm-email').then((m) => ({ default: m.ConfirmEmailRoute })),
+);
+const AccountRoute = lazy(() =>
+  import('./routes/account/account').then((m) => ({ default: m.AccountRoute })),
+);
 const NoticesRoute = lazy(() =>
   import('./routes/builds/notices').then((m) => ({ default: m.NoticesRoute })),
 );
@@ -103,9 +109,11 @@ const router = createBrowserRouter([
           { path: paths.auth.forgotPassword.path, element: <ForgotPasswordRoute /> },
           { path: paths.auth.resetPassword.path, element: <ResetPasswordRoute /> },
           { path: paths.auth.invite.path, element: <InviteRoute /> },
+          { path: paths.auth.confirmEmail.path, element: <ConfirmEmailRoute /> },
           {
             element: <RequireAuth />,
             children: [
+              { path: paths.account.path, element: <AccountRoute /> },
               {
                 path: paths.builds.list.path,
                 element: <BuildsLayout />,

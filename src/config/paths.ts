@@ -26,7 +26,12 @@ export const paths = {
       path: '/invite/:token',
       getHref: (token: string) => `/invite/${encodeURIComponent(token)}`,
     },
+    confirmEmail: {
+      path: '/confirm-email/:token',
+      getHref: (token: string) => `/confirm-email/${encodeURIComponent(token)}`,
+    },
   },
+  account: { path: '/account', getHref: () => '/account' },
   builds: {
     list: { path: '/builds', getHref: () => '/builds' },
     new: { path: '/builds/new', getHref: () => '/builds/new' },

@@ -15,6 +15,23 @@ const meKey = getMeQueryOptions().queryKey;
  */
 let signedOutOnPurpose = false;
 
+/**
+ * True from "Sign out" until the sign-in page has said so ("You have signed out"). Kept here,
+ * not in the URL or the history entry: the route guard of the page being left may replace
+ * the navigation, and a reload must not say it again.
+ */
+let signedOutNotice = false;
+
+/** Whether the person has just signed out on purpose (for the sign-in page to confirm it). */
+export function justSignedOut(): boolean {
+  return signedOutNotice;
+}
+
+/** The sign-in page has shown the confirmation: a later visit does not repeat it. */
+export function forgetSignedOutNotice(): void {
+  signedOutNotice = false;
+}
+
 /** Drops everything cached for the previous user, keeping only the session query itself. */
 function forgetUserData(queryClient: QueryClient): void {
   queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== meKey[0] });
@@ -32,6 +49,7 @@ export function useStartSession() {
   return useCallback(
     (user: User) => {
       signedOutOnPurpose = false;
+      signedOutNotice = false;
       forgetUserData(queryClient);
       queryClient.setQueryData(meKey, user);
     },
@@ -46,6 +64,7 @@ export function useEndSession() {
     // The router renders route changes in a transition, so the guard on the page being left
     // may still see the user vanish; the flag tells it not to add a ?next= back to that page.
     signedOutOnPurpose = true;
+    signedOutNotice = true;
     void navigate(paths.auth.signIn.getHref(), { replace: true });
     queryClient.setQueryData(meKey, null);
     forgetUserData(queryClient);

@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { useTestApp } from '../helpers/app';
-import { buildInput, buildWithCast, createBuild, moneyKeys, signUp } from '../helpers/factories';
+import {
+  addMember,
+  buildInput,
+  buildWithCast,
+  createBuild,
+  moneyKeys,
+  signUp,
+} from '../helpers/factories';
 
 const app = useTestApp();
 
@@ -62,7 +69,7 @@ describe('GET /api/builds', () => {
     const b = await signUp(app, 'b');
     const own = await createBuild(a, { name: 'Mine', budgetCents: 123_45 });
     const theirs = await createBuild(b, { name: 'Theirs' });
-    await b.agent.post(`/api/builds/${theirs.id}/members`).send({ email: a.email, role: 'crew' });
+    await addMember(b, theirs.id, a, 'crew');
     const res = await a.agent.get('/api/builds');
     const byId = Object.fromEntries(res.body.builds.map((x: { id: string }) => [x.id, x]));
     expect(byId[own.id].budgetCents).toBe(123_45);

@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { passwordChecks } from '../../server/lib/auth';
 import { useTestApp } from '../helpers/app';
 import {
+  addMember,
   buildInput,
   buildWithCast,
   createBuild,
@@ -312,9 +313,8 @@ describe('CSV export', () => {
           .send({ email: shopEmail, password, displayName: 'Plus shop' })
       ).status,
     ).toBe(201);
-    await owner.agent
-      .post(`/api/builds/${build.id}/members`)
-      .send({ email: shopEmail, role: 'shop' });
+    const shopUser = (await shopAgent.get('/api/me')).body.user;
+    await addMember(owner, build.id, { ...shopUser, agent: shopAgent }, 'shop');
     const shopId = (await owner.agent.get(`/api/builds/${build.id}/members`)).body.members.find(
       (m: { email: string }) => m.email === shopEmail,
     ).userId;
@@ -345,9 +345,7 @@ describe('CSV export', () => {
     }
     // Importing the export into another build gives the original text back.
     const other = await createBuild(owner);
-    await owner.agent
-      .post(`/api/builds/${other.id}/members`)
-      .send({ email: shopEmail, role: 'shop' });
+    await addMember(owner, other.id, { ...shopUser, agent: shopAgent }, 'shop');
     const imp = await owner.agent
       .post(`/api/builds/${other.id}/parts/import`)
       .attach('file', Buffer.from(csv), 'parts.csv');

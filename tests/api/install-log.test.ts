@@ -106,8 +106,8 @@ describe('install log: jobs, steps, checklist and fastener specs', () => {
     expect(spec.alt.unit).toBe('n-m');
     expect(spec.alt.target).toBeCloseTo(135.582, 3); // NIST SP 811 (2008) B.9: 100 × 1.355818
     expect(spec.positions).toEqual([
-      { position: 1, current: null, retorque: null, supersededCount: 0 },
-      { position: 2, current: null, retorque: null, supersededCount: 0 },
+      { position: 1, current: null, retorque: null, stages: [null, null], supersededCount: 0 },
+      { position: 2, current: null, retorque: null, stages: [null, null], supersededCount: 0 },
     ]);
 
     const step = (await owner.agent.get(`${base}/steps/${stepA.id}`)).body.step;
@@ -122,7 +122,12 @@ describe('install log: jobs, steps, checklist and fastener specs', () => {
     ]);
     expect(moneyKeys(step)).toEqual([]);
     const b = (await owner.agent.get(`${base}/steps/${stepB.id}`)).body.step;
-    expect(b.cautions.map((c: { id: string }) => c.id)).toEqual(['lifting', 'service-information']);
+    // Head studs (linked part and words) suggest the critical-fastener caution (issue 20).
+    expect(b.cautions.map((c: { id: string }) => c.id)).toEqual([
+      'lifting',
+      'critical-fastener',
+      'service-information',
+    ]);
 
     const jobs = (await owner.agent.get(`${base}/jobs`)).body.jobs;
     expect(jobs).toHaveLength(1);

@@ -1,7 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { hashToken } from '../../server/lib/tokens';
 import { useTestApp } from '../helpers/app';
-import { buildWithCast, password, signUp, uniqueEmail, type TestUser } from '../helpers/factories';
+import {
+  addMember,
+  buildWithCast,
+  password,
+  signUp,
+  uniqueEmail,
+  type TestUser,
+} from '../helpers/factories';
 import { tokenFrom } from '../helpers/mail';
 
 const app = useTestApp({}, { mail: true });
@@ -202,9 +209,7 @@ describe('accepting an invitation', () => {
     const friend = await signUp(app, 'already');
     await invite(owner, build.id, friend.email, 'viewer');
     const token = await inviteToken(friend.email);
-    await owner.agent
-      .post(`/api/builds/${build.id}/members`)
-      .send({ email: friend.email, role: 'crew' });
+    await addMember(owner, build.id, friend, 'crew');
     const res = await friend.agent.post(`/api/invitations/${token}/accept`).send({});
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ role: 'crew', joined: false });

@@ -205,6 +205,7 @@ describe('notice preferences', () => {
     expect(put.body.preferences).toEqual({
       'part-received': true,
       'part-back-from-shop': true,
+      'part-overdue-at-shop': true,
       'step-signed-off': false,
       'torque-out-of-spec': true,
       'bench-sheet-from-shop': true,

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { useTestApp } from '../helpers/app';
-import { buildWithCast, moneyKeys, signUp } from '../helpers/factories';
+import { addMember, buildWithCast, moneyKeys, signUp } from '../helpers/factories';
 
 const app = useTestApp();
 
@@ -124,9 +124,7 @@ describe('parts: create and read', () => {
   it('never shows one shop the parts of another shop', async () => {
     const { owner, build, url, parts } = await castWithParts();
     const otherShop = await signUp(app, 'othershop');
-    await owner.agent
-      .post(`/api/builds/${build.id}/members`)
-      .send({ email: otherShop.email, role: 'shop' });
+    await addMember(owner, build.id, otherShop, 'shop');
     expect((await otherShop.agent.get(url)).body.parts).toEqual([]);
     expect((await otherShop.agent.get(`${url}/${parts[1].id}`)).status).toBe(404);
     expect(

@@ -12,6 +12,9 @@ export function uniqueEmail(prefix = 'user') {
 
 export type TestUser = { id: string; email: string; displayName: string; agent: Agent };
 
+/** The app each signed-up user's agent talks to, so factories can reach its database. */
+const appOf = new WeakMap<Agent, TestApp>();
+
 export async function signUp(app: TestApp, prefix = 'user'): Promise<TestUser> {
   const agent = app.agent();
   const email = uniqueEmail(prefix);
@@ -19,6 +22,7 @@ export async function signUp(app: TestApp, prefix = 'user'): Promise<TestUser> {
     .post('/api/auth/sign-up')
     .send({ email, password, displayName: `Test ${prefix}` });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
+  appOf.set(agent, app);
   return { ...res.body.user, agent };
 }
 
@@ -47,11 +51,18 @@ export async function createBuild(owner: TestUser, overrides: Record<string, unk
   return res.body.build as { id: string } & Record<string, unknown>;
 }
 
+/**
+ * Puts `user` on the owner's build with `role`, as an accepted invitation would (the API
+ * adds people only through invitations: tests/api/invitations.test.ts walks that path).
+ */
 export async function addMember(owner: TestUser, buildId: string, user: TestUser, role: Role) {
-  const res = await owner.agent
-    .post(`/api/builds/${buildId}/members`)
-    .send({ email: user.email, role });
-  expect(res.status, JSON.stringify(res.body)).toBe(201);
+  const app = appOf.get(owner.agent)!;
+  const owns = await app.db
+    .knex('build_members')
+    .where({ build_id: buildId, user_id: owner.id, role: 'owner' })
+    .first();
+  expect(owns, 'addMember: the first argument owns the build').toBeTruthy();
+  await app.db.knex('build_members').insert({ build_id: buildId, user_id: user.id, role });
 }
 
 /** An owner's build with one member of every other role, plus a stranger. */

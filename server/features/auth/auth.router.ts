@@ -41,11 +41,3 @@ export function authRouter({ db, config, sessions }: AppDeps) {
 
   return router;
 }
-
-export function meRouter() {
-  const router = Router();
-  router.get('/', requireAuth, (req, res) => {
-    res.json({ user: req.user });
-  });
-  return router;
-}

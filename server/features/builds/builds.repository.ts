@@ -22,6 +22,7 @@ const columns = {
   budgetCents: 'budget_cents',
   currency: 'currency',
   timeZone: 'time_zone',
+  wrenchCalibrationMonths: 'wrench_calibration_months',
 } as const satisfies Record<keyof CreateBuildInput, string>;
 
 type Row = Record<string, unknown> & {

@@ -18,6 +18,7 @@ export type SpecRow = {
   final_angle_deg: number | null;
   thread_condition: ThreadCondition;
   sequence_note: string;
+  position_names: string[];
   spec_source: string;
   retorque_after_heat_cycles: number | null;
   retorque_after_miles: number | null;
@@ -40,6 +41,7 @@ const specColumns = {
   finalAngleDeg: 'final_angle_deg',
   threadCondition: 'thread_condition',
   sequenceNote: 'sequence_note',
+  positionNames: 'position_names',
   specSource: 'spec_source',
   retorqueAfterHeatCycles: 'retorque_after_heat_cycles',
   retorqueAfterMiles: 'retorque_after_miles',
@@ -63,6 +65,7 @@ export function toSpec(r: SpecRow) {
     finalAngleDeg: r.final_angle_deg,
     threadCondition: r.thread_condition,
     sequenceNote: r.sequence_note,
+    positionNames: r.position_names,
     specSource: r.spec_source,
     retorqueAfterHeatCycles: r.retorque_after_heat_cycles,
     retorqueAfterMiles: r.retorque_after_miles,
@@ -80,7 +83,7 @@ function specRow(input: SpecFieldsInput) {
   for (const [key, column] of Object.entries(specColumns)) {
     const value = input[key as keyof typeof specColumns];
     if (value === undefined) continue;
-    row[column] = key === 'stages' ? JSON.stringify(value ?? []) : value;
+    row[column] = key === 'stages' || key === 'positionNames' ? JSON.stringify(value ?? []) : value;
   }
   return row;
 }
@@ -101,8 +104,9 @@ export async function listSpecs(knex: Knex, stepIds: string[]) {
 }
 
 /**
- * Every fastener spec of the build's steps with the current fitting reading of
- * each position (value and unit only), in one statement: what progress counts need.
+ * Every fastener spec of the build's steps with the current final fitting reading
+ * of each position (value and unit only; stage readings left out), in one
+ * statement: what progress counts need.
  */
 export async function listSpecsWithCurrentReadings(knex: Knex, buildId: string) {
   const rows: (SpecRow & {
@@ -112,7 +116,10 @@ export async function listSpecsWithCurrentReadings(knex: Knex, buildId: string) 
   })[] = await specs(knex)
     .join('install_steps as s', 's.id', 'f.step_id')
     .leftJoin('torque_readings as r', function () {
-      this.on('r.spec_id', 'f.id').andOnVal('r.kind', 'install').andOnNull('r.superseded_at');
+      this.on('r.spec_id', 'f.id')
+        .andOnVal('r.kind', 'install')
+        .andOnNull('r.stage')
+        .andOnNull('r.superseded_at');
     })
     .where('s.build_id', buildId)
     .select('r.position as reading_position', 'r.value as reading_value', 'r.unit as reading_unit');

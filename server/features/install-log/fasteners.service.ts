@@ -2,6 +2,7 @@
  * Fastener specs of a step and their torque readings: how readings supersede
  * each other, and who may change a target that readings were judged against.
  */
+import { positionLabel } from '../../../shared/install-log/positions';
 import { asksRetorque } from '../../../shared/install-log/retorque';
 import { judgeTorque } from '../../../shared/install-log/torque';
 import { can } from '../../../shared/permissions';
@@ -14,6 +15,7 @@ import {
 } from '../../../shared/schemas/install-log';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import { parseId, type BuildScope } from '../../lib/scope';
+import { wrenchForReading } from '../wrenches';
 import { assertOpen, loadStep, lockOpenStep, lockStep, renameNotFound } from './access';
 import { presentReading, presentSpec } from './fasteners.present';
 import * as repo from './fasteners.repository';
@@ -93,6 +95,15 @@ export async function updateFastener(
         });
       }
     }
+    // Likewise fewer stages than stages already read.
+    if (input.stages !== undefined && input.stages.length < spec.stages.length) {
+      const highest = await readingsRepo.highestReadStage(trx, spec.id);
+      if (input.stages.length < highest) {
+        throw new ValidationError('Readings exist for a later stage', {
+          stages: `Stage ${highest} already has readings; keep at least ${highest} stages`,
+        });
+      }
+    }
     await repo.updateSpec(trx, spec.id, input);
   });
   return presentOne(scope, spec.id);
@@ -120,12 +131,47 @@ export async function listReadings(scope: BuildScope, rawSpecId: string) {
   };
 }
 
+/** Refuses a stage the spec does not have, and a stage on a re-check. */
+function checkStage(spec: { name: string; stages: number[] }, input: CreateReadingInput) {
+  if (input.stage === undefined) return;
+  if (input.retorque) {
+    throw new ValidationError('A re-check is of the final torque', {
+      stage: 'Record a re-check without a stage',
+    });
+  }
+  if (input.stage > spec.stages.length) {
+    const n = spec.stages.length;
+    throw new ValidationError(
+      `${spec.name} has ${n ? `${n} stage${n === 1 ? '' : 's'}` : 'no stages'}`,
+      {
+        stage: n ? `Choose a stage from 1 to ${n}, or the final torque` : 'Record the final torque',
+      },
+    );
+  }
+}
+
+/** What the reading keeps of the wrench: a registered one's name and calibration, or typed words. */
+async function wrenchOf(scope: BuildScope, input: CreateReadingInput) {
+  if (!input.wrenchId) {
+    return { wrench: input.wrench ?? '', wrenchId: null, calibratedOn: null, dueOn: null };
+  }
+  const w = await wrenchForReading(scope.knex, {
+    buildId: scope.buildId,
+    userId: scope.caller.userId,
+    wrenchId: input.wrenchId,
+    on: new Date().toISOString().slice(0, 10),
+  });
+  return { wrench: w.name, wrenchId: w.id, calibratedOn: w.calibratedOn, dueOn: w.dueOn };
+}
+
 /**
  * Records a reading. Supersede rule: the new reading replaces the current one
- * of the same fastener, position and kind (fitting or re-torque); the old one
- * is kept, marked superseded by the new one. Fitting readings are refused on a
+ * of the same fastener, position, kind (fitting or re-torque) and stage; the old
+ * one is kept, marked superseded by the new one. Fitting readings are refused on a
  * signed-off step; re-torque readings need a signed-off step and a spec that
- * asks for a re-check.
+ * asks for a re-check. A reading taken with one of the person's wrenches keeps
+ * its calibration; one past the build's calibration interval is recorded with a
+ * warning, never refused.
  */
 export async function recordReading(
   scope: BuildScope,
@@ -142,12 +188,15 @@ export async function recordReading(
       },
     );
   }
+  checkStage(spec, input);
   const kind = input.retorque ? 'retorque' : 'install';
   if (kind === 'retorque' && !asksRetorque(spec)) {
     throw new ValidationError('This fastener asks for no re-torque check', {
       retorque: 'Record it as a fitting reading',
     });
   }
+  const wrench = await wrenchOf(scope, input);
+  const stage = input.stage ?? null;
   const { id, supersededId } = await knex.transaction(async (trx) => {
     const status = await lockStep(trx, step.id);
     if (kind === 'install') assertOpen({ status });
@@ -163,20 +212,25 @@ export async function recordReading(
       kind,
       value: input.value,
       unit: input.unit,
-      wrench: input.wrench ?? '',
+      stage,
+      wrench: wrench.wrench,
+      wrenchId: wrench.wrenchId,
+      wrenchCalibratedOn: wrench.calibratedOn,
+      wrenchCalibrationDueOn: wrench.dueOn,
       note: input.note ?? '',
       userId: caller.userId,
     });
     if (kind === 'install') await stepsRepo.markUnderWay(trx, step.id);
     const { verdict } = judgeTorque(input, spec);
-    if (verdict !== 'in-spec') {
+    // A stage is a way to the final torque: only final and re-check readings send notices.
+    if (stage === null && verdict !== 'in-spec') {
       await notifyTorqueOutOfSpec(trx, {
         buildId,
         stepId: step.id,
         stepTitle: step.title,
         specName: spec.name,
         spec,
-        position: input.position,
+        positionLabel: positionLabel(spec.positionNames, input.position),
         verdict,
         value: input.value,
         unit: input.unit,
@@ -187,5 +241,11 @@ export async function recordReading(
     return result;
   });
   const reading = presentReading((await readingsRepo.findReading(knex, id))!, spec);
-  return { reading, supersededId, fastener: await presentOne(scope, spec.id) };
+  const warnings: string[] = [];
+  if (reading.calibration?.overdue) {
+    warnings.push(
+      `${reading.wrench} was due for calibration on ${reading.calibration.dueOn}: check this reading with a calibrated wrench.`,
+    );
+  }
+  return { reading, supersededId, warnings, fastener: await presentOne(scope, spec.id) };
 }

@@ -65,7 +65,8 @@ export async function notifyTorqueOutOfSpec(
     stepTitle: string;
     specName: string;
     spec: TorqueTarget;
-    position: number;
+    /** "#3", or the position's name ("Cyl 3") when the spec names them. */
+    positionLabel: string;
     verdict: Exclude<Verdict, 'in-spec'>;
     value: number;
     unit: TorqueUnit;
@@ -80,9 +81,9 @@ export async function notifyTorqueOutOfSpec(
     n.buildId,
     'torque-out-of-spec',
     {
-      subject: `${verdictLabels[n.verdict]}: ${n.specName} #${n.position}`,
+      subject: `${verdictLabels[n.verdict]}: ${n.specName} ${n.positionLabel}`,
       text:
-        `${who} recorded a ${what} of ${formatTorque(n.value, n.unit)} on ${n.specName} #${n.position} ` +
+        `${who} recorded a ${what} of ${formatTorque(n.value, n.unit)} on ${n.specName} ${n.positionLabel} ` +
         `in ${quoted(n.stepTitle)}. The spec is ${describeTarget(n.spec)}.\n\n` +
         (n.retorque
           ? 'The re-torque check stays open until the position reads in spec.'

@@ -6,7 +6,7 @@ import * as files from '../files';
 import { loadJob, visibleSteps } from './access';
 import * as repo from './jobs.repository';
 import { lockOrdering } from './ordering.repository';
-import { assembleSteps, summariesForBuild, summarize } from './steps.detail';
+import { assembleSteps, numberAsSeen, summariesForBuild, summarize } from './steps.detail';
 import * as stepsRepo from './steps.repository';
 
 /** Every job with its step summaries; a shop gets only jobs holding steps it may see. */
@@ -29,7 +29,8 @@ export async function getJob(scope: BuildScope, rawJobId: string): Promise<Job> 
     (s) => !visible || visible.has(s.id),
   );
   if (visible && steps.length === 0) throw new NotFoundError('Job not found');
-  return { ...job, steps: (await assembleSteps(scope, steps)).map(summarize) };
+  const summaries = (await assembleSteps(scope, steps)).map(summarize);
+  return { ...job, steps: visible ? numberAsSeen(summaries) : summaries };
 }
 
 export async function createJob(scope: BuildScope, input: CreateJobInput) {

@@ -10,7 +10,11 @@ type ReadingRow = {
   kind: 'install' | 'retorque';
   value: number;
   unit: TorqueUnit;
+  stage: number | null;
   wrench: string;
+  wrench_id: string | null;
+  wrench_calibrated_on: string | null;
+  wrench_calibration_due_on: string | null;
   note: string;
   recorded_by: string | null;
   recorded_by_name: string | null;
@@ -27,7 +31,19 @@ function toReading(r: ReadingRow) {
     kind: r.kind,
     value: r.value,
     unit: r.unit,
+    stage: r.stage,
     wrench: r.wrench,
+    wrenchId: r.wrench_id,
+    calibration:
+      r.wrench_id || r.wrench_calibration_due_on || r.wrench_calibrated_on
+        ? {
+            calibratedOn: r.wrench_calibrated_on,
+            dueOn: r.wrench_calibration_due_on,
+            overdue:
+              r.wrench_calibration_due_on != null &&
+              r.recorded_at.toISOString().slice(0, 10) > r.wrench_calibration_due_on,
+          }
+        : null,
     note: r.note,
     recordedBy: person(r.recorded_by, r.recorded_by_name),
     recordedAt: r.recorded_at.toISOString(),
@@ -61,8 +77,8 @@ export async function findReading(knex: Knex, readingId: string) {
 }
 
 /**
- * Records a reading. The current reading of the same spec, kind and position,
- * if any, is kept and marked superseded by the new one. Run inside a
+ * Records a reading. The current reading of the same spec, kind, position and
+ * stage, if any, is kept and marked superseded by the new one. Run inside a
  * transaction that holds the step's row lock (lockStep), so two readings cannot both become current.
  */
 export async function insertReading(
@@ -73,15 +89,22 @@ export async function insertReading(
     kind: 'install' | 'retorque';
     value: number;
     unit: TorqueUnit;
+    stage: number | null;
     wrench: string;
+    wrenchId: string | null;
+    wrenchCalibratedOn: string | null;
+    wrenchCalibrationDueOn: string | null;
     note: string;
     userId: string;
   },
 ) {
   // Mark the old one first: the unique index allows one current reading at a time.
-  const previous: { id: string }[] = await trx('torque_readings')
+  const same = trx('torque_readings')
     .where({ spec_id: input.specId, kind: input.kind, position: input.position })
-    .whereNull('superseded_at')
+    .whereNull('superseded_at');
+  if (input.stage == null) same.whereNull('stage');
+  else same.where('stage', input.stage);
+  const previous: { id: string }[] = await same
     .update({ superseded_at: trx.fn.now() })
     .returning('id');
   const [row] = await trx('torque_readings')
@@ -91,7 +114,11 @@ export async function insertReading(
       kind: input.kind,
       value: input.value,
       unit: input.unit,
+      stage: input.stage,
       wrench: input.wrench,
+      wrench_id: input.wrenchId,
+      wrench_calibrated_on: input.wrenchCalibratedOn,
+      wrench_calibration_due_on: input.wrenchCalibrationDueOn,
       note: input.note,
       recorded_by: input.userId,
     })
@@ -113,6 +140,12 @@ export async function highestReadPosition(knex: Knex, specId: string): Promise<n
     .where({ spec_id: specId })
     .max('position as max')
     .first();
+  return Number(row?.max ?? 0);
+}
+
+/** The highest stage that holds a reading (0 when none). */
+export async function highestReadStage(knex: Knex, specId: string): Promise<number> {
+  const row = await knex('torque_readings').where({ spec_id: specId }).max('stage as max').first();
   return Number(row?.max ?? 0);
 }
 

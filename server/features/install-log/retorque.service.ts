@@ -68,6 +68,7 @@ export async function listRetorqueChecks(
       description: describeRetorque(r.spec),
       since: r.stepSignedOffAt,
       positionsLeft,
+      positionNames: r.spec.positionNames,
       closedAt: r.spec.retorqueClosedAt,
       closedBy: r.spec.retorqueClosedBy,
       closeNote: r.spec.retorqueCloseNote,

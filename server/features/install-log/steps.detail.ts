@@ -6,8 +6,14 @@
 import { cautionsForStep } from '../../../shared/install-log/cautions';
 import { signOffBlockers } from '../../../shared/install-log/sign-off';
 import { judgeTorque } from '../../../shared/install-log/torque';
-import type { ChecklistItem, Step, StepSummary } from '../../../shared/schemas/install-log';
+import type {
+  ChecklistItem,
+  SignOff,
+  Step,
+  StepSummary,
+} from '../../../shared/schemas/install-log';
 import type { BuildScope } from '../../lib/scope';
+import { visibleSteps } from './access';
 import { seesPart } from '../parts';
 import * as checklistRepo from './checklist.repository';
 import * as fastenersRepo from './fasteners.repository';
@@ -15,6 +21,32 @@ import { presentSpec } from './fasteners.present';
 import * as readingsRepo from './readings.repository';
 import * as stepPartsRepo from './step-parts.repository';
 import * as stepsRepo from './steps.repository';
+
+/** A step's sign-off as the API shows it, with the override's reason when there was one. */
+function signOffOf(s: stepsRepo.StepRecord): SignOff | null {
+  if (!s.signedOffAt) return null;
+  return {
+    by: s.signedOffBy,
+    at: s.signedOffAt,
+    override: s.overrideReason
+      ? { reason: s.overrideReason, blockers: s.overrideBlockers ?? [] }
+      : null,
+  };
+}
+
+/**
+ * Numbers steps as the caller sees them: 1, 2, 3 … within each job, in the order given. A
+ * shop sees only the steps linked to its parts; their places in the whole job ("step 3" of
+ * two it can see) would read as nonsense, and would hint at steps it may not see.
+ */
+export function numberAsSeen<T extends { jobId: string; position: number }>(steps: T[]): T[] {
+  const next = new Map<string, number>();
+  return steps.map((s) => {
+    const position = (next.get(s.jobId) ?? 0) + 1;
+    next.set(s.jobId, position);
+    return { ...s, position };
+  });
+}
 
 /**
  * Full steps with their parts, checklist, fasteners, readings, cautions and
@@ -57,6 +89,7 @@ export async function assembleSteps(
       title: s.title,
       description: s.description,
       liftsVehicle: s.liftsVehicle,
+      cautionChoice: s.cautionChoice,
       status: s.status,
       progress: {
         checklistDone: items.filter((i) => i.done).length,
@@ -74,16 +107,9 @@ export async function assembleSteps(
         partCategories: linked.map((p) => p.category),
         liftsVehicle: s.liftsVehicle,
         fastenerCount: fasteners.length,
+        chosen: s.cautionChoice,
       }),
-      signOff: s.signedOffAt
-        ? {
-            by: s.signedOffBy,
-            at: s.signedOffAt,
-            override: s.overrideReason
-              ? { reason: s.overrideReason, blockers: s.overrideBlockers ?? [] }
-              : null,
-          }
-        : null,
+      signOff: signOffOf(s),
       signOffBlockers: blockers,
       photoCount: photoCounts.get(s.id) ?? 0,
       createdAt: s.createdAt,
@@ -100,15 +126,17 @@ export function summarize(step: Step): StepSummary {
     title: step.title,
     status: step.status,
     signedOffAt: step.signOff?.at ?? null,
+    signOff: step.signOff,
     progress: step.progress,
   };
 }
 
 /**
- * The summaries of every step a caller may see, for job lists, in three
- * statements whatever the build's size: steps with checklist counts (shop
- * filter included), and specs with their current readings, judged here alike
- * with the full step view.
+ * The summaries of every step a caller may see, for job lists, in two
+ * statements whatever the build's size: steps with checklist counts, sign-off
+ * and override (shop filter included), and specs with their current readings,
+ * judged here alike with the full step view. A shop's steps are numbered as it
+ * sees them (numberAsSeen).
  */
 export async function summariesForBuild({ knex, buildId, caller }: BuildScope) {
   const [steps, specs] = await Promise.all([
@@ -117,7 +145,7 @@ export async function summariesForBuild({ knex, buildId, caller }: BuildScope) {
     }),
     fastenersRepo.listSpecsWithCurrentReadings(knex, buildId),
   ]);
-  return steps.map((s): StepSummary => {
+  const summaries = steps.map((s): StepSummary => {
     const mine = specs.filter((f) => f.spec.stepId === s.id);
     const current = mine.flatMap(({ spec, current }) =>
       current.filter((r) => r.position <= spec.count).map((r) => judgeTorque(r, spec).verdict),
@@ -129,6 +157,7 @@ export async function summariesForBuild({ knex, buildId, caller }: BuildScope) {
       title: s.title,
       status: s.status,
       signedOffAt: s.signedOffAt,
+      signOff: signOffOf(s),
       progress: {
         checklistDone: s.checklistDone,
         checklistTotal: s.checklistTotal,
@@ -138,11 +167,20 @@ export async function summariesForBuild({ knex, buildId, caller }: BuildScope) {
       },
     };
   });
+  return caller.role === 'shop' ? numberAsSeen(summaries) : summaries;
 }
 
-/** One step in full; the caller has already been shown it exists and is visible (loadStep). */
+/**
+ * One step in full; the caller has already been shown it exists and is visible (loadStep).
+ * For a shop, its position is its place among the steps of its job the shop may see.
+ */
 export async function stepDetail(scope: BuildScope, stepId: string) {
   const step = (await stepsRepo.findStep(scope.knex, scope.buildId, stepId))!;
   const [detail] = await assembleSteps(scope, [step]);
-  return detail;
+  const visible = await visibleSteps(scope);
+  if (!visible) return detail;
+  const seen = (await stepsRepo.listSteps(scope.knex, scope.buildId, { jobId: step.jobId }))
+    .filter((s) => visible.has(s.id))
+    .map((s) => s.id);
+  return { ...detail, position: seen.indexOf(step.id) + 1 };
 }

@@ -1,5 +1,6 @@
 /** Steps of a job, their status and sign-off, and the photo count shown on each step card. */
 import type { Knex } from 'knex';
+import type { ChoosableCautionId } from '../../../shared/install-log/cautions';
 import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
 import type { StepStatus } from '../../../shared/schemas/install-log';
 import { iso, person } from './rows';
@@ -12,6 +13,7 @@ type StepRow = {
   title: string;
   description: string;
   lifts_vehicle: boolean;
+  caution_ids: ChoosableCautionId[] | null;
   status: StepStatus;
   signed_off_by: string | null;
   signed_off_by_name: string | null;
@@ -31,6 +33,7 @@ function toStep(r: StepRow) {
     title: r.title,
     description: r.description,
     liftsVehicle: r.lifts_vehicle,
+    cautionChoice: r.caution_ids,
     status: r.status,
     signedOffBy: person(r.signed_off_by, r.signed_off_by_name),
     signedOffAt: iso(r.signed_off_at),
@@ -102,7 +105,13 @@ export async function insertStep(
   trx: Knex.Transaction,
   buildId: string,
   jobId: string,
-  input: { title: string; description?: string; liftsVehicle?: boolean; position: number },
+  input: {
+    title: string;
+    description?: string;
+    liftsVehicle?: boolean;
+    cautions?: ChoosableCautionId[] | null;
+    position: number;
+  },
 ) {
   const [row] = await trx('install_steps')
     .insert({
@@ -111,6 +120,7 @@ export async function insertStep(
       title: input.title,
       description: input.description ?? '',
       lifts_vehicle: input.liftsVehicle ?? false,
+      caution_ids: input.cautions ? JSON.stringify(input.cautions) : null,
       position: input.position,
     })
     .returning('id');
@@ -120,12 +130,21 @@ export async function insertStep(
 export async function updateStep(
   knex: Knex,
   stepId: string,
-  input: { title?: string; description?: string; liftsVehicle?: boolean; status?: StepStatus },
+  input: {
+    title?: string;
+    description?: string;
+    liftsVehicle?: boolean;
+    cautions?: ChoosableCautionId[] | null;
+    status?: StepStatus;
+  },
 ) {
   const row: Record<string, unknown> = {};
   if (input.title !== undefined) row.title = input.title;
   if (input.description !== undefined) row.description = input.description;
   if (input.liftsVehicle !== undefined) row.lifts_vehicle = input.liftsVehicle;
+  if (input.cautions !== undefined) {
+    row.caution_ids = input.cautions ? JSON.stringify(input.cautions) : null;
+  }
   if (input.status !== undefined) row.status = input.status;
   await knex('install_steps')
     .where({ id: stepId })

@@ -1,4 +1,5 @@
 /** Steps of a job: adding, changing, moving and deleting them, and signing them off. */
+import type { ChoosableCautionId } from '../../../shared/install-log/cautions';
 import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
 import { can } from '../../../shared/permissions';
 import type {
@@ -27,6 +28,26 @@ async function checkParts({ knex, buildId }: BuildScope, partIds: string[] | und
   }
 }
 
+/**
+ * The ticked cautions and the off-the-ground mark say the same about lifting: `cautions`
+ * wins and sets the mark; a mark alone (older callers) adds or removes lifting from the
+ * ticks, if the author has ticked any.
+ */
+function cautionFields(
+  input: { cautions?: ChoosableCautionId[]; liftsVehicle?: boolean },
+  chosen: ChoosableCautionId[] | null,
+) {
+  if (input.cautions) {
+    return { cautions: input.cautions, liftsVehicle: input.cautions.includes('lifting') };
+  }
+  if (input.liftsVehicle === undefined || chosen === null) return {};
+  const others = chosen.filter((id) => id !== 'lifting');
+  return {
+    cautions: input.liftsVehicle ? [...others, 'lifting' as const] : others,
+    liftsVehicle: input.liftsVehicle,
+  };
+}
+
 export async function createStep(scope: BuildScope, rawJobId: string, input: CreateStepInput) {
   const { knex, buildId } = scope;
   const job = await loadJob(scope, rawJobId);
@@ -36,7 +57,11 @@ export async function createStep(scope: BuildScope, rawJobId: string, input: Cre
     // Deleted while this request waited for the lock: 404, not a foreign-key error.
     await loadJob({ ...scope, knex: trx }, job.id);
     const last = await order.nextPosition('install_steps', job.id);
-    const stepId = await repo.insertStep(trx, buildId, job.id, { ...input, position: last });
+    const stepId = await repo.insertStep(trx, buildId, job.id, {
+      ...input,
+      ...cautionFields(input, null),
+      position: last,
+    });
     if (input.position !== undefined && input.position < last) {
       await order.moveTo('install_steps', job.id, stepId, input.position);
     }
@@ -59,7 +84,7 @@ export async function updateStep(scope: BuildScope, rawStepId: string, input: Up
     const order = await lockOrdering(trx, scope.buildId);
     const status = await lockStep(trx, step.id);
     if (input.status !== undefined) assertOpen({ status });
-    await repo.updateStep(trx, step.id, input);
+    await repo.updateStep(trx, step.id, { ...input, ...cautionFields(input, step.cautionChoice) });
     if (input.partIds) await stepPartsRepo.setStepParts(trx, step.id, input.partIds);
     if (input.position !== undefined) {
       await order.moveTo('install_steps', step.jobId, step.id, input.position);

@@ -1,10 +1,14 @@
 import { Router } from 'express';
-import { addMemberInputSchema, updateMemberInputSchema } from '../../../shared/schemas/builds';
+import { updateMemberInputSchema } from '../../../shared/schemas/builds';
 import type { AppDeps } from '../../lib/deps';
 import { validate } from '../../middleware/validate';
 import * as service from './members.service';
 
-/** Mounted at /api/builds/:buildId/members. */
+/**
+ * Mounted at /api/builds/:buildId/members. People join only through an invitation
+ * (/invitations): adding an existing account by its address here would tell the owner
+ * which addresses have Headroom accounts.
+ */
 export function membersRouter(deps: AppDeps) {
   const { db } = deps;
   const router = Router({ mergeParams: true });
@@ -13,14 +17,6 @@ export function membersRouter(deps: AppDeps) {
   router.get('/', deps.access('members:read'), async (req, res) => {
     res.json({ members: await service.list(knex, req.membership!.buildId, req.membership!.role) });
   });
-  router.post(
-    '/',
-    deps.access('members:manage'),
-    validate({ body: addMemberInputSchema }),
-    async (req, res) => {
-      res.status(201).json({ member: await service.add(knex, req.membership!.buildId, req.body) });
-    },
-  );
   router.patch(
     '/:userId',
     deps.access('members:manage'),

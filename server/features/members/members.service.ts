@@ -1,9 +1,8 @@
 import type { Knex } from 'knex';
 import { can, type Role } from '../../../shared/permissions';
-import type { AddMemberInput, UpdateMemberInput } from '../../../shared/schemas/builds';
+import type { UpdateMemberInput } from '../../../shared/schemas/builds';
 import { idSchema } from '../../../shared/schemas/common';
-import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
-import { findUserByEmail } from '../auth';
+import { ConflictError, NotFoundError } from '../../lib/errors';
 import * as repo from './members.repository';
 
 function present(member: repo.MemberRecord, viewerRole: Role) {
@@ -16,22 +15,6 @@ function present(member: repo.MemberRecord, viewerRole: Role) {
 export async function list(knex: Knex, buildId: string, viewerRole: Role) {
   const members = await repo.listMembers(knex, buildId);
   return members.map((m) => present(m, viewerRole));
-}
-
-export async function add(knex: Knex, buildId: string, input: AddMemberInput) {
-  const user = await findUserByEmail(knex, input.email);
-  if (!user) {
-    throw new ValidationError('No Headroom account uses that e-mail', {
-      email: 'No Headroom account uses this e-mail yet — ask them to create one first',
-    });
-  }
-  const added = await repo.insertMember(knex, buildId, user.id, input.role);
-  if (!added) {
-    throw new ConflictError('already_member', 'That person is already on this build', {
-      email: 'Already on this build — change their role in the list instead',
-    });
-  }
-  return (await repo.findMember(knex, buildId, user.id))!;
 }
 
 function memberId(raw: string) {

@@ -154,3 +154,101 @@ export async function shopMembers(knex: Knex, buildId: string) {
     .select('m.user_id', 'u.email', 'u.display_name');
   return rows;
 }
+
+// ---- overdue send-outs ------------------------------------------------------------------
+
+export type OverduePart = {
+  id: string;
+  buildId: string;
+  name: string;
+  category: PartRecord['category'];
+  partNumber: string;
+  shopUserId: string | null;
+  shopName: string | null;
+  sentOutOn: string;
+  turnaroundDays: number;
+  dueOn: string;
+};
+
+const overdueColumns = (knex: Knex) => [
+  'p.id',
+  'p.build_id',
+  'p.name',
+  'p.category',
+  'p.part_number',
+  'p.shop_user_id',
+  's.display_name as shop_name',
+  'p.sent_out_on',
+  'p.turnaround_days',
+  knex.raw(`to_char(p.sent_out_on + p.turnaround_days, 'YYYY-MM-DD') as due_on`),
+];
+
+type OverdueRow = {
+  id: string;
+  build_id: string;
+  name: string;
+  category: PartRecord['category'];
+  part_number: string;
+  shop_user_id: string | null;
+  shop_name: string | null;
+  sent_out_on: string;
+  turnaround_days: number;
+  due_on: string;
+};
+
+const toOverdue = (r: OverdueRow): OverduePart => ({
+  id: r.id,
+  buildId: r.build_id,
+  name: r.name,
+  category: r.category,
+  partNumber: r.part_number,
+  shopUserId: r.shop_user_id,
+  shopName: r.shop_name,
+  sentOutOn: r.sent_out_on,
+  turnaroundDays: r.turnaround_days,
+  dueOn: r.due_on,
+});
+
+/** At a shop, past sent-out date + turnaround on `today`, with no notice yet for this spell. */
+function overdue(knex: Knex, today: string) {
+  return knex('parts as p')
+    .leftJoin('users as s', 's.id', 'p.shop_user_id')
+    .where('p.status', 'at-shop')
+    .whereNotNull('p.sent_out_on')
+    .whereNotNull('p.turnaround_days')
+    .whereRaw('p.sent_out_on + p.turnaround_days < ?::date', [today])
+    .whereNotExists(
+      knex('part_overdue_notices as n')
+        .whereRaw('n.part_id = p.id')
+        .whereRaw('n.sent_out_on = p.sent_out_on')
+        .whereRaw('n.due_on = p.sent_out_on + p.turnaround_days'),
+    );
+}
+
+/** Every part overdue on `today` whose spell nobody has been told of, oldest due first. */
+export async function overdueUntold(knex: Knex, today: string, limit = 500) {
+  const rows: OverdueRow[] = await overdue(knex, today)
+    .orderByRaw('p.sent_out_on + p.turnaround_days')
+    .limit(limit)
+    .select(overdueColumns(knex));
+  return rows.map(toOverdue);
+}
+
+/** The part, locked for the transaction, if it is still overdue and untold on `today`. */
+export async function lockOverdue(trx: Knex.Transaction, partId: string, today: string) {
+  const row: OverdueRow | undefined = await overdue(trx, today)
+    .where('p.id', partId)
+    .forUpdate('p')
+    .first(overdueColumns(trx));
+  return row ? toOverdue(row) : undefined;
+}
+
+/** Records that this spell was told; false when another process got there first. */
+export async function recordOverdueNotice(trx: Knex.Transaction, part: OverduePart) {
+  const rows = await trx('part_overdue_notices')
+    .insert({ part_id: part.id, sent_out_on: part.sentOutOn, due_on: part.dueOn })
+    .onConflict(['part_id', 'sent_out_on', 'due_on'])
+    .ignore()
+    .returning('part_id');
+  return rows.length > 0;
+}

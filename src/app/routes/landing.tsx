@@ -27,7 +27,7 @@ const points = [
   {
     icon: ReceiptText,
     title: 'Keep the money straight',
-    text: 'A budget only the owner sees: parts, labour, shipping, cores and their refunds.',
+    text: 'A budget only the owner sees: parts, labor, shipping, cores and their refunds.',
   },
   {
     icon: Users,

@@ -1,75 +1,44 @@
 import { NavLink, Outlet, useParams } from 'react-router-dom';
-import {
-  Activity,
-  CalendarClock,
-  Camera,
-  ClipboardList,
-  Droplets,
-  Gauge,
-  LayoutDashboard,
-  Package,
-  PiggyBank,
-  Truck,
-  type LucideIcon,
-} from 'lucide-react';
-import { can, type Action } from '../../../shared/permissions';
-import { paths } from '../../config/paths';
+import { can } from '../../../shared/permissions';
 import { useBuild } from '../../features/builds/api/get-build';
 import { cn } from '../ui/cn';
+import { buildSections } from './build-sections';
 
-type Tab = {
-  label: string;
-  href: (id: string) => string;
-  icon: LucideIcon;
-  end?: boolean;
-  needs?: Action;
-};
-
-/** The sections of a build, in the order the work goes. Budget only for roles that see money. */
-const tabs: Tab[] = [
-  { label: 'Overview', href: paths.builds.overview.getHref, icon: LayoutDashboard, end: true },
-  { label: 'Timeline', href: paths.builds.timeline.getHref, icon: CalendarClock },
-  { label: 'Parts', href: paths.builds.parts.getHref, icon: Package },
-  { label: 'Send-outs', href: paths.builds.sendOuts.getHref, icon: Truck },
-  { label: 'Budget', href: paths.builds.budget.getHref, icon: PiggyBank, needs: 'budget:read' },
-  { label: 'Power estimate', href: paths.builds.estimate.getHref, icon: Gauge },
-  { label: 'Bench', href: paths.builds.bench.getHref, icon: Droplets },
-  { label: 'Install', href: paths.builds.install.getHref, icon: ClipboardList },
-  { label: 'Photos', href: paths.builds.photos.getHref, icon: Camera },
-  { label: 'Dyno', href: paths.builds.dyno.getHref, icon: Activity },
-];
-
-/** Every /builds/:buildId/* page: a row of section tabs over the page. */
+/**
+ * Every /builds/:buildId/* page: the build's sections over the page.
+ *
+ * Laid out as a grid, never a row that scrolls sideways: at phone width four to a row (a
+ * dozen sections is three rows), six on a tablet, and one row on a desktop. Every section
+ * is one tap away, the current one is always in view (filled in ink), and nothing clips a
+ * tab's focus ring.
+ */
 export function BuildSectionLayout() {
   const { buildId = '' } = useParams();
   const build = useBuild(buildId);
   const role = build.data?.myRole;
-  const visible = tabs.filter((t) => !t.needs || (role && can(role, t.needs)));
+  const visible = buildSections.filter((s) => !s.needs || (role && can(role, s.needs)));
 
   return (
     <>
       {build.isSuccess && (
-        <nav
-          aria-label="Build sections"
-          className="-mx-4 mb-5 overflow-x-auto border-b border-rule px-4 sm:mx-0 sm:px-0"
-        >
-          <ul className="flex min-w-max gap-1">
-            {visible.map((t) => (
-              <li key={t.label}>
+        <nav aria-label="Build sections" className="mb-5 border-b border-rule pb-3">
+          <ul className="grid grid-cols-4 gap-1.5 sm:grid-cols-6 lg:auto-cols-fr lg:grid-flow-col lg:grid-cols-none">
+            {visible.map((s) => (
+              <li key={s.label} className="min-w-0">
                 <NavLink
-                  to={t.href(buildId)}
-                  end={t.end}
+                  to={s.href(buildId)}
+                  end={s.end}
                   className={({ isActive }) =>
                     cn(
-                      'flex min-h-11 items-center gap-1.5 border-b-[3px] px-3 text-[15px] font-semibold',
+                      'flex min-h-12 flex-col items-center justify-center gap-0.5 rounded-md border px-1 py-1 text-center text-[13px] leading-tight font-semibold sm:text-sm',
                       isActive
-                        ? 'border-accent-500 text-ink'
-                        : 'border-transparent text-muted hover:text-ink',
+                        ? 'border-ink bg-ink text-white'
+                        : 'border-rule bg-sheet text-ink-2 hover:border-rule-strong hover:text-ink',
                     )
                   }
                 >
-                  <t.icon aria-hidden className="size-4" />
-                  {t.label}
+                  <s.icon aria-hidden className="size-[18px] shrink-0" />
+                  <span className="max-w-full truncate">{s.label}</span>
                 </NavLink>
               </li>
             ))}

@@ -49,7 +49,11 @@ function Header() {
         </Link>
         {user ? (
           <div className="flex min-w-0 items-center gap-2 sm:gap-3">
-            <span className="flex min-w-0 items-center gap-1.5 text-white/85" title={user.email}>
+            <Link
+              to={paths.account.getHref()}
+              className="flex min-h-11 min-w-0 items-center gap-1.5 rounded px-1 text-white/85 hover:text-white hover:underline"
+              title={`${user.email} — your account`}
+            >
               <UserRound aria-hidden className="size-4 shrink-0" />
               <span
                 className="max-w-[7.5rem] truncate sm:max-w-[14rem]"
@@ -57,7 +61,8 @@ function Header() {
               >
                 {user.displayName}
               </span>
-            </span>
+              <span className="sr-only">: your account</span>
+            </Link>
             <SignOutButton />
           </div>
         ) : (

@@ -1,10 +1,12 @@
 import type { ReactNode } from 'react';
 import { cn } from './cn';
 
-type Tone = 'neutral' | 'accent' | 'ink' | 'ok' | 'tight' | 'over';
+type Tone = 'neutral' | 'info' | 'accent' | 'ink' | 'ok' | 'tight' | 'over';
 
 const tones: Record<Tone, string> = {
   neutral: 'bg-ink/[0.06] text-ink-2',
+  // Neutral states that still want to stand out (work under way): never a warning colour.
+  info: 'bg-state-blue-soft text-state-blue',
   accent: 'bg-accent-50 text-accent-700 ring-1 ring-accent-100',
   ink: 'bg-ink text-white',
   ok: 'bg-ok-soft text-[#1d5434]',

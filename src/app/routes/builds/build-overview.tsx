@@ -1,5 +1,5 @@
 import { useParams } from 'react-router-dom';
-import { Bell, Pencil } from 'lucide-react';
+import { Pencil } from 'lucide-react';
 import { can } from '../../../../shared/permissions';
 import { paths } from '../../../config/paths';
 import { useBuild } from '../../../features/builds/api/get-build';
@@ -15,6 +15,7 @@ import { RoleBadge } from '../../../components/ui/role-badge';
 import { MembersPanel } from '../../../features/members/components/members-panel';
 import { InvitationsPanel } from '../../../features/invitations/components/invitations-panel';
 import { TimelineSummary } from '../../../features/timeline/components/timeline-summary';
+import { ActivityList } from '../../../features/activity/components/activity-list';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { ButtonLink } from '../../../components/ui/button';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -44,13 +45,6 @@ export function BuildOverviewRoute() {
         badges={<RoleBadge role={b.myRole} prefix="You: " />}
         actions={
           <>
-            <ButtonLink
-              to={paths.builds.notices.getHref(b.id)}
-              variant="secondary"
-              icon={<Bell aria-hidden className="size-4" />}
-            >
-              Notices
-            </ButtonLink>
             {isOwner && (
               <ButtonLink
                 to={paths.builds.edit.getHref(b.id)}
@@ -73,6 +67,9 @@ export function BuildOverviewRoute() {
         <div className="flex flex-col gap-5">
           <TruckSection build={b} />
           <BudgetSection build={b} />
+        </div>
+        <div className="lg:col-span-2">
+          <ActivityList buildId={b.id} />
         </div>
         {/* Owners get the invitations beside the crew; everyone else, the crew at full width. */}
         <div

@@ -1,10 +1,10 @@
 import { useEffect, useMemo, useState } from 'react';
 import { useParams } from 'react-router-dom';
-import { useQueries, useQuery } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { ClipboardList, Plus } from 'lucide-react';
 import { can } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
-import type { Job, Person } from '../../../../shared/schemas/install-log';
+import type { Job } from '../../../../shared/schemas/install-log';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -17,8 +17,8 @@ import { useCreateStep } from '../../../features/install-log/api/create-step';
 import { useDeleteJob } from '../../../features/install-log/api/delete-job';
 import { useJobs } from '../../../features/install-log/api/get-jobs';
 import { useRetorqueChecks } from '../../../features/install-log/api/get-retorque-checks';
-import { getStepQueryOptions } from '../../../features/install-log/api/get-step';
 import { useUpdateJob } from '../../../features/install-log/api/update-job';
+import { CalibrationInterval } from '../../../features/install-log/components/calibration-interval';
 import { JobCard } from '../../../features/install-log/components/job-card';
 import { JobForm } from '../../../features/install-log/components/job-form';
 import { RetorqueChecks } from '../../../features/install-log/components/retorque-checks';
@@ -36,22 +36,6 @@ export function InstallRoute() {
     return <BuildLoadError error={build.error} onRetry={() => void build.refetch()} />;
   }
   return <InstallPage build={build.data} />;
-}
-
-/**
- * Who signed off each signed-off step. The jobs list gives only when; the step itself says
- * who. Few steps per build, and the step pages reuse what is fetched here.
- */
-function useSignedOffBy(buildId: string, jobs: Job[] | undefined) {
-  const ids = (jobs ?? []).flatMap((j) =>
-    j.steps.filter((s) => s.status === 'signed-off').map((s) => s.id),
-  );
-  const steps = useQueries({
-    queries: ids.map((id) => ({ ...getStepQueryOptions(buildId, id), staleTime: 60_000 })),
-  });
-  const byId = new Map<string, Person | null>();
-  for (const q of steps) if (q.data?.signOff) byId.set(q.data.id, q.data.signOff.by);
-  return byId;
 }
 
 function InstallPage({ build }: { build: Build }) {
@@ -73,7 +57,6 @@ function InstallPage({ build }: { build: Build }) {
   const [deletingJob, setDeletingJob] = useState<Job | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const parts = useQuery({ ...getPartsQueryOptions(build.id), enabled: addingStepTo !== null });
-  const signedOffBy = useSignedOffBy(build.id, jobs.data);
 
   const totals = useMemo(() => {
     const steps = (jobs.data ?? []).flatMap((j) => j.steps);
@@ -129,7 +112,7 @@ function InstallPage({ build }: { build: Build }) {
             key={job.id}
             buildId={build.id}
             job={job}
-            signedOffBy={signedOffBy}
+            partial={build.myRole === 'shop'}
             onAddStep={
               canWrite
                 ? () => {
@@ -192,6 +175,9 @@ function InstallPage({ build }: { build: Build }) {
           <RetorqueChecks buildId={build.id} checks={checks.data} canWrite={canWrite} />
         )}
         {body}
+        {build.myRole !== 'shop' && (
+          <CalibrationInterval build={build} canChange={can(build.myRole, 'build:update')} />
+        )}
       </div>
 
       <Modal

@@ -1,6 +1,5 @@
 import { useParams } from 'react-router-dom';
 import { BellRing } from 'lucide-react';
-import { paths } from '../../../config/paths';
 import { useBuild } from '../../../features/builds/api/get-build';
 import { useNoticePreferences } from '../../../features/notices/api/get-notice-preferences';
 import { NoticePreferencesForm } from '../../../features/notices/components/notice-preferences-form';
@@ -43,7 +42,6 @@ export function NoticesRoute() {
     <>
       <title>{`Notices · ${b.name} · Headroom`}</title>
       <PageHeader
-        back={{ to: paths.builds.overview.getHref(b.id), label: b.name }}
         title="Notices"
         subtitle={<span>Short e-mails when something happens on this build</span>}
       />

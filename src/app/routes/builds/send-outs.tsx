@@ -39,7 +39,7 @@ function SendOutsPage({ build }: { build: Build }) {
   const role = build.myRole;
   const canUpdate = can(role, 'parts:update');
   const quoteLabel =
-    role === 'shop' ? 'Your quote' : can(role, 'money:read') ? 'Labour quote' : null;
+    role === 'shop' ? 'Your quote' : can(role, 'money:read') ? 'Labor quote' : null;
 
   const onBack = useCallback(
     (part: Part) =>

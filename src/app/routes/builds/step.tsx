@@ -40,6 +40,7 @@ import { Modal } from '../../../components/ui/modal';
 import { SignOffPanel } from '../../../features/install-log/components/sign-off-panel';
 import { StepForm } from '../../../features/install-log/components/step-form';
 import { StepStatusBadge } from '../../../features/install-log/components/step-status';
+import { fastenerMode, stepPlace } from '../../../features/install-log/lib/step-place';
 import { formatWhen } from '../../../lib/dates';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { BuildLoadError } from './build-states';
@@ -85,14 +86,6 @@ function StepLoader({ build, stepId }: { build: Build; stepId: string }) {
     );
   }
   return <StepPage build={build} step={step.data} />;
-}
-
-function fastenerMode(step: Step, spec: FastenerSpec, canWrite: boolean) {
-  if (!canWrite) return 'read-only' as const;
-  if (step.status !== 'signed-off') return 'fitting' as const;
-  return spec.retorque.asked && !spec.retorque.closedAt
-    ? ('retorque' as const)
-    : ('read-only' as const);
 }
 
 /**
@@ -160,18 +153,8 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
       <PageHeader
         back={{ to: paths.builds.install.getHref(build.id), label: 'Install' }}
         title={step.title}
-        subtitle={
-          <span className="text-base">
-            {job ? (
-              <>
-                {job.title} · step {step.position} of {job.steps.length}
-              </>
-            ) : (
-              <>Step {step.position}</>
-            )}
-          </span>
-        }
-        badges={<StepStatusBadge status={step.status} />}
+        subtitle={<span className="text-base">{stepPlace(step, job, role)}</span>}
+        badges={<StepStatusBadge status={step.status} overridden={!!step.signOff?.override} />}
         actions={
           editable && step.status === 'not-started' ? (
             <Button
@@ -196,11 +179,17 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
         <CautionList cautions={step.cautions} />
 
         {locked && step.signOff && (
-          <Alert tone="ok" title={`Signed off by ${step.signOff.by?.name ?? 'someone'}`}>
+          <Alert
+            tone={step.signOff.override ? 'warning' : 'ok'}
+            title={`${step.signOff.override ? 'Signed off over open items' : 'Signed off'} by ${step.signOff.by?.name ?? 'someone'}`}
+          >
             {formatWhen(step.signOff.at)}. Readings and ticks are locked
             {canWrite && step.fasteners.some((f) => f.retorque.asked && !f.retorque.closedAt)
               ? '; re-torque checks can still be recorded.'
               : '.'}
+            {step.signOff.override && (
+              <span className="mt-1 block">Why: “{step.signOff.override.reason}”</span>
+            )}
           </Alert>
         )}
         {updateStep.isError && <Alert tone="error">{updateStep.error.message}</Alert>}
@@ -258,6 +247,7 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
                 buildId={build.id}
                 spec={spec}
                 mode={fastenerMode(step, spec, canWrite)}
+                calibrationMonths={build.wrenchCalibrationMonths}
                 onEdit={
                   editable
                     ? () => {

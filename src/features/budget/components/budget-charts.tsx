@@ -13,6 +13,7 @@ import {
 } from 'recharts';
 import { formatIsoDate, formatMoney, minorUnitDigits } from '../../../../shared/format';
 import { partCategoryLabels, type Budget } from '../../../../shared/schemas/parts';
+import { dayTime, formatTick, timeDomain, timeTicks } from '../lib/time-axis';
 
 // recharts is only imported by this file, which only the lazily loaded budget page uses.
 //
@@ -111,14 +112,20 @@ export function CategoryChart({ budget }: { budget: Budget }) {
   );
 }
 
-/** Money committed and spent so far, added up day by day, against the budget line. */
+/**
+ * Money committed and spent so far, added up day by day, against the budget line. The
+ * x axis is time: each date sits at its distance in days from the others.
+ */
 export function SpendingChart({ budget }: { budget: Budget }) {
   const { currency } = budget;
   const data = budget.spendingOverTime.map((p) => ({
+    t: dayTime(p.date),
     date: p.date,
     committed: p.committedCents,
     spent: p.spentCents,
   }));
+  const domain = timeDomain(data.map((d) => d.t));
+  const { ticks, unit } = timeTicks(domain[0], domain[1]);
   return (
     <div className="h-72 w-full">
       <ResponsiveContainer width="100%" height="100%">
@@ -129,11 +136,15 @@ export function SpendingChart({ budget }: { budget: Budget }) {
         >
           <CartesianGrid vertical={false} stroke={colours.grid} />
           <XAxis
-            dataKey="date"
-            tickFormatter={(d: string) => formatIsoDate(d).replace(/,?\s*\d{4}$/, '')}
+            dataKey="t"
+            type="number"
+            scale="time"
+            domain={domain}
+            ticks={ticks}
+            tickFormatter={(t: number) => formatTick(t, unit)}
             tick={axisTick}
             stroke={colours.grid}
-            minTickGap={24}
+            interval={0}
           />
           <YAxis
             tickFormatter={(v: number) => compactMoney(v, currency)}
@@ -142,7 +153,7 @@ export function SpendingChart({ budget }: { budget: Budget }) {
             width={64}
           />
           <Tooltip
-            labelFormatter={(d) => formatIsoDate(String(d))}
+            labelFormatter={(t) => formatIsoDate(new Date(Number(t)).toISOString().slice(0, 10))}
             formatter={(value) => formatMoney(Number(value), currency)}
           />
           <Legend wrapperStyle={{ fontSize: 14 }} formatter={legendText} />

@@ -12,6 +12,8 @@ export type RecordedReading = {
   reading: TorqueReading;
   /** The reading this one replaced (kept, marked superseded), if any. */
   supersededId: string | null;
+  /** Recorded, but worth a look: e.g. the wrench was due for calibration. */
+  warnings: string[];
   fastener: FastenerSpec;
 };
 

@@ -1,4 +1,4 @@
-import { BookOpen, Syringe, TriangleAlert, type LucideIcon } from 'lucide-react';
+import { BookOpen, Bolt, Syringe, TriangleAlert, type LucideIcon } from 'lucide-react';
 import type { Caution, CautionId } from '../../../../shared/install-log/cautions';
 import { cn } from '../../../components/ui/cn';
 
@@ -10,6 +10,11 @@ const looks: Record<CautionId, { icon: LucideIcon; box: string; iconClass: strin
   },
   lifting: {
     icon: TriangleAlert,
+    box: 'border-tight bg-tight-soft text-[#6b4408]',
+    iconClass: 'text-tight',
+  },
+  'critical-fastener': {
+    icon: Bolt,
     box: 'border-tight bg-tight-soft text-[#6b4408]',
     iconClass: 'text-tight',
   },

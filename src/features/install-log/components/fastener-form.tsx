@@ -12,6 +12,7 @@ import {
   type FastenerSpec,
   type UpdateFastenerSpecInput,
 } from '../../../../shared/schemas/install-log';
+import { cylinderNames } from '../../../../shared/install-log/positions';
 import { toleranceTypes, torqueUnits } from '../../../../shared/install-log/torque';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -43,6 +44,15 @@ function toStages(value: unknown): number[] | undefined {
     .map((t) => Number(t));
 }
 
+/** "Cyl 1, Cyl 2" → ['Cyl 1', 'Cyl 2']; an empty box → no names (#1 … #n). */
+function toNames(value: unknown): string[] {
+  if (Array.isArray(value)) return value as string[];
+  return String(value ?? '')
+    .split(',')
+    .map((t) => t.trim())
+    .filter(Boolean);
+}
+
 function toIntOrNull(value: unknown): number | null {
   return parseDecimalOrNull(value);
 }
@@ -66,6 +76,8 @@ function specToFormValues(spec: FastenerSpec): Input {
     finalAngleDeg: spec.finalAngleDeg,
     threadCondition: spec.threadCondition,
     sequenceNote: spec.sequenceNote,
+    // The box shows "Cyl 1,Cyl 2"; toNames reads it back the same way.
+    positionNames: spec.positionNames,
     specSource: spec.specSource,
     retorqueAfterHeatCycles: spec.retorqueAfterHeatCycles,
     retorqueAfterMiles: spec.retorqueAfterMiles,
@@ -100,6 +112,7 @@ export function FastenerForm(props: FastenerFormProps) {
     register,
     handleSubmit,
     setError,
+    setValue,
     watch,
     formState: { errors, isSubmitting },
   } = useForm<Input, unknown, Values>({
@@ -111,9 +124,11 @@ export function FastenerForm(props: FastenerFormProps) {
           targetUnit: 'lbf-ft',
           toleranceType: 'percent',
           sequenceNote: '',
+          positionNames: [],
           specSource: '',
         },
   });
+  const count = watch('count');
   const unit = watch('targetUnit') ?? 'lbf-ft';
   const tolType = watch('toleranceType') ?? 'percent';
 
@@ -123,8 +138,12 @@ export function FastenerForm(props: FastenerFormProps) {
         await props.onSubmit(values);
         return;
       }
-      // An empty stages box clears the stages (left out, the server would keep the old ones).
-      const input: UpdateFastenerSpecInput = { ...values, stages: values.stages ?? [] };
+      // An empty stages or names box clears them (left out, the server would keep the old ones).
+      const input: UpdateFastenerSpecInput = {
+        ...values,
+        stages: values.stages ?? [],
+        positionNames: values.positionNames ?? [],
+      };
       if (torqueLocked) for (const key of torqueDefiningFields) delete input[key];
       await props.onSubmit(input);
     } catch (error) {
@@ -281,11 +300,43 @@ export function FastenerForm(props: FastenerFormProps) {
         </FormField>
       </div>
 
+      <div className="flex flex-col gap-2">
+        <FormField
+          label="Position names"
+          optional
+          error={
+            errors.positionNames?.message ??
+            (Array.isArray(errors.positionNames)
+              ? errors.positionNames.find((e) => e?.message)?.message
+              : undefined)
+          }
+          hint="One per fastener, separated by commas, e.g. Cyl 1, Cyl 2 … Left empty: #1, #2 …"
+        >
+          {(c) => (
+            <TextInput
+              {...c}
+              {...register('positionNames', { setValueAs: toNames })}
+              autoComplete="off"
+            />
+          )}
+        </FormField>
+        {typeof count === 'number' && count >= 1 && count <= 16 && (
+          <Button
+            variant="secondary"
+            size="sm"
+            className="self-start"
+            onClick={() => setValue('positionNames', cylinderNames(count), { shouldDirty: true })}
+          >
+            Name them Cyl 1 to Cyl {count}
+          </Button>
+        )}
+      </div>
+
       <FormField
         label="Sequence"
         optional
         error={errors.sequenceNote?.message}
-        hint="e.g. Centre out, criss-cross; all to stage 1 first"
+        hint="e.g. Center out, criss-cross; all to stage 1 first"
       >
         {(c) => <TextArea {...c} {...register('sequenceNote')} rows={2} />}
       </FormField>

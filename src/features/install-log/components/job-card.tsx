@@ -1,21 +1,36 @@
 import { Link } from 'react-router-dom';
 import { ChevronRight, Pencil, Plus, Trash2 } from 'lucide-react';
-import type { Job, Person, StepSummary } from '../../../../shared/schemas/install-log';
+import type { Job, StepSummary } from '../../../../shared/schemas/install-log';
 import { paths } from '../../../config/paths';
 import { Button } from '../../../components/ui/button';
 import { formatWhen } from '../../../lib/dates';
 import { StepProgressChips } from './step-progress';
 import { StepStatusBadge } from './step-status';
 
-function StepRow({
-  buildId,
-  step,
-  signedOffBy,
-}: {
-  buildId: string;
-  step: StepSummary;
-  signedOffBy?: Person | null;
-}) {
+/** Why the owner signed a step off over open items: one tap away from the list. */
+function OverrideReason({ step }: { step: StepSummary }) {
+  const override = step.signOff?.override;
+  if (!override) return null;
+  return (
+    <details className="group mx-4 mb-3 rounded-md border border-tight/40 bg-tight-soft px-3 text-[15px] text-[#6b4408] sm:mx-5 sm:ml-17">
+      <summary className="flex min-h-11 cursor-pointer items-center font-semibold">
+        Why it was signed off anyway
+        <span className="sr-only">: {step.title}</span>
+      </summary>
+      <p className="pb-1">“{override.reason}”</p>
+      {override.blockers.length > 0 && (
+        <ul className="list-disc pb-2 pl-5">
+          {override.blockers.map((b, i) => (
+            <li key={i}>{b.message}</li>
+          ))}
+        </ul>
+      )}
+    </details>
+  );
+}
+
+function StepRow({ buildId, step }: { buildId: string; step: StepSummary }) {
+  const signOff = step.signOff;
   return (
     <li>
       <Link
@@ -34,38 +49,40 @@ function StepRow({
             {step.title}
           </span>
           <span className="flex flex-wrap items-center gap-1.5">
-            <StepStatusBadge status={step.status} />
+            <StepStatusBadge status={step.status} overridden={!!signOff?.override} />
             <StepProgressChips progress={step.progress} />
           </span>
-          {step.signedOffAt && (
+          {signOff && (
             <span className="text-sm text-muted">
-              Signed off{signedOffBy ? ` by ${signedOffBy.name}` : ''},{' '}
-              {formatWhen(step.signedOffAt)}
+              {signOff.override ? 'Signed off over open items' : 'Signed off'}
+              {signOff.by ? ` by ${signOff.by.name}` : ''}, {formatWhen(signOff.at)}
             </span>
           )}
         </span>
         <ChevronRight aria-hidden className="size-5 shrink-0 text-muted" />
       </Link>
+      <OverrideReason step={step} />
     </li>
   );
 }
 
 /**
  * One job with its steps in order, each step a link to its page. The actions show only
- * when given (the page passes those the member's role allows).
+ * when given (the page passes those the member's role allows). A shop sees only the steps
+ * that use its parts, numbered among those (`partial`), and is told so.
  */
 export function JobCard({
   buildId,
   job,
-  signedOffBy,
+  partial = false,
   onAddStep,
   onEdit,
   onDelete,
 }: {
   buildId: string;
   job: Job;
-  /** Who signed off each signed-off step, when known. */
-  signedOffBy: Map<string, Person | null>;
+  /** The caller sees only some of the job's steps (a shop: those using its parts). */
+  partial?: boolean;
   onAddStep?: () => void;
   onEdit?: () => void;
   onDelete?: () => void;
@@ -82,7 +99,7 @@ export function JobCard({
           <p className="mt-0.5 text-[15px] text-muted">
             {job.steps.length === 0
               ? 'No steps yet'
-              : `${done} of ${job.steps.length} step${job.steps.length === 1 ? '' : 's'} signed off`}
+              : `${done} of ${job.steps.length} step${job.steps.length === 1 ? '' : 's'}${partial ? ' using your parts' : ''} signed off`}
           </p>
           {job.notes && (
             <p className="mt-1.5 text-[15px] whitespace-pre-line text-ink-2">{job.notes}</p>
@@ -130,7 +147,7 @@ export function JobCard({
       {job.steps.length > 0 ? (
         <ol className="divide-y divide-rule">
           {job.steps.map((s) => (
-            <StepRow key={s.id} buildId={buildId} step={s} signedOffBy={signedOffBy.get(s.id)} />
+            <StepRow key={s.id} buildId={buildId} step={s} />
           ))}
         </ol>
       ) : (

@@ -5,17 +5,20 @@ import { cn } from '../../../components/ui/cn';
 import { useReadings } from '../api/get-readings';
 import { readingConverted, torque } from '../lib/format';
 import { formatWhen } from '../../../lib/dates';
-import { VerdictBadge } from './reading-line';
+import { CalibrationFlag, VerdictBadge } from './reading-line';
 
 /** Every reading of one position, newest first; replaced ones struck through but kept. */
 export function PositionHistory({
   buildId,
   spec,
   position,
+  label,
 }: {
   buildId: string;
   spec: FastenerSpec;
   position: number;
+  /** "#3", or the position's name. */
+  label: string;
 }) {
   const readings = useReadings(buildId, spec.id);
   if (readings.isPending) {
@@ -37,7 +40,7 @@ export function PositionHistory({
     .sort((a, b) => b.recordedAt.localeCompare(a.recordedAt));
   if (here.length === 0) return <p className="py-2 text-muted">No readings yet.</p>;
   return (
-    <ol aria-label={`History of #${position}`} className="mt-1 flex flex-col gap-2">
+    <ol aria-label={`History of ${label}`} className="mt-1 flex flex-col gap-2">
       {here.map((r) => {
         const replaced = r.supersededAt !== null;
         return (
@@ -71,11 +74,17 @@ export function PositionHistory({
               {r.kind === 'retorque' && (
                 <span className="rounded bg-ink/[0.06] px-1.5 text-sm font-semibold">Re-check</span>
               )}
+              {r.stage != null && (
+                <span className="rounded bg-ink/[0.06] px-1.5 text-sm font-semibold">
+                  Stage {r.stage}
+                </span>
+              )}
             </p>
             <p className="text-sm">
               {r.recordedBy?.name ?? 'Someone'}, {formatWhen(r.recordedAt)}
               {r.wrench && <> · {r.wrench}</>}
             </p>
+            {!replaced && <CalibrationFlag reading={r} />}
             {r.note && <p className="text-sm">“{r.note}”</p>}
           </li>
         );

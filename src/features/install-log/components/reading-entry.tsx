@@ -27,14 +27,17 @@ const submitLabels: Record<EntryKind, string> = {
 
 /**
  * The numeric entry for one position: the value read, its unit (the spec's by default) and,
- * for a correction, why. The wrench comes from the card (remembered on this device).
+ * for a correction, why. The wrench and the stage come from the card (the wrench is
+ * remembered on this device).
  */
 export function ReadingEntry({
   buildId,
   spec,
   position,
+  label,
+  stage = null,
   kind,
-  wrench,
+  wrenchId,
   autoFocus,
   layout = 'form',
   onRecorded,
@@ -43,8 +46,13 @@ export function ReadingEntry({
   buildId: string;
   spec: FastenerSpec;
   position: number;
+  /** The position as people call it: "#3", or "Cyl 3" when the spec names its positions. */
+  label: string;
+  /** The stage being read (1 = the spec's first), or null for the final torque. */
+  stage?: number | null;
   kind: EntryKind;
-  wrench: string;
+  /** One of my wrenches, or '' for none. */
+  wrenchId: string;
   autoFocus?: boolean;
   /** "row": value, unit and Record on one line (a first reading); "form": with a note. */
   layout?: 'row' | 'form';
@@ -79,9 +87,10 @@ export function ReadingEntry({
           position,
           value: values.value,
           unit: values.unit as TorqueUnit,
-          wrench: wrench.trim() || undefined,
+          wrenchId: wrenchId || undefined,
           note: values.note || undefined,
           retorque: kind === 'retorque' || undefined,
+          stage: stage ?? undefined,
         },
       });
       reset({ value: undefined, unit: values.unit, note: '' });
@@ -92,6 +101,8 @@ export function ReadingEntry({
         fields.value ??
         fields.position ??
         fields.unit ??
+        fields.stage ??
+        fields.wrenchId ??
         (isApiError(error) ? error.message : 'Could not record that. Try again.');
       setError('value', { type: 'server', message });
     }
@@ -102,10 +113,11 @@ export function ReadingEntry({
   const error = errors.value?.message ?? errors.unit?.message ?? errors.note?.message;
 
   const row = layout === 'row';
+  const what = stage ? `Stage ${stage} torque` : kind === 'retorque' ? 'Re-check torque' : 'Torque';
   const valueInput = (
     <div className="min-w-0">
       <label htmlFor={`${id}-value`} className="sr-only">
-        {kind === 'retorque' ? 'Re-check torque' : 'Torque'} at #{position}
+        {what} at {label}
       </label>
       <input
         id={`${id}-value`}
@@ -132,7 +144,7 @@ export function ReadingEntry({
   const unitSelect = (
     <div>
       <label htmlFor={`${id}-unit`} className="sr-only">
-        Unit at #{position}
+        Unit at {label}
       </label>
       <select
         id={`${id}-unit`}
@@ -151,7 +163,8 @@ export function ReadingEntry({
     <Button type="submit" pending={isSubmitting} size="sm" className="min-h-12!">
       {row ? 'Record' : submitLabels[kind]}
       <span className="sr-only">
-        {row && kind === 'retorque' ? ' re-check' : ''} #{position}
+        {row && kind === 'retorque' ? ' re-check' : ''}
+        {stage ? ` stage ${stage}` : ''} {label}
       </span>
     </Button>
   );
@@ -183,7 +196,9 @@ export function ReadingEntry({
       className="mt-2 flex flex-col gap-2 rounded-md border border-rule-strong bg-paper p-2.5"
     >
       <p className="text-[15px] font-semibold text-ink">
-        {kind === 'retorque' ? `Re-check #${position}` : `Correct #${position}`}
+        {kind === 'retorque'
+          ? `Re-check ${label}`
+          : `Correct ${label}${stage ? `, stage ${stage}` : ''}`}
         <span className="font-normal text-muted">
           {kind === 'correction' ? ' — the reading above stays in the history, struck through' : ''}
         </span>
@@ -194,7 +209,7 @@ export function ReadingEntry({
       </div>
       <div>
         <label htmlFor={`${id}-note`} className="sr-only">
-          Note for #{position}
+          Note for {label}
         </label>
         <input
           id={`${id}-note`}

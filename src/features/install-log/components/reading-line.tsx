@@ -1,4 +1,5 @@
-import { ArrowDown, ArrowUp, Check } from 'lucide-react';
+import { ArrowDown, ArrowUp, Check, TriangleAlert } from 'lucide-react';
+import { formatIsoDate } from '../../../../shared/format';
 import { verdictLabels, type Verdict } from '../../../../shared/install-log/torque';
 import type { FastenerSpec, TorqueReading } from '../../../../shared/schemas/install-log';
 import { cn } from '../../../components/ui/cn';
@@ -21,6 +22,18 @@ export function VerdictBadge({ verdict, className }: { verdict: Verdict; classNa
       <Icon aria-hidden className="size-4" strokeWidth={3} />
       {verdictLabels[verdict]}
     </span>
+  );
+}
+
+/** "Wrench due for calibration 14 Mar 2026" on a reading taken with a wrench past its date. */
+export function CalibrationFlag({ reading }: { reading: TorqueReading }) {
+  const c = reading.calibration;
+  if (!c?.overdue || !c.dueOn) return null;
+  return (
+    <p className="mt-0.5 flex items-start gap-1.5 text-sm font-semibold text-[#6b4408]">
+      <TriangleAlert aria-hidden className="mt-0.5 size-4 shrink-0 text-tight" />
+      Wrench was due for calibration {formatIsoDate(c.dueOn)}: worth checking with a calibrated one.
+    </p>
   );
 }
 
@@ -51,6 +64,7 @@ export function ReadingLine({
         {reading.recordedBy?.name ?? 'Someone'}, {formatWhen(reading.recordedAt)}
         {reading.wrench && <> · {reading.wrench}</>}
       </p>
+      <CalibrationFlag reading={reading} />
       {reading.note && <p className="text-sm text-ink-2">“{reading.note}”</p>}
     </div>
   );

@@ -8,6 +8,7 @@ import {
   closeRetorqueInputSchema,
   type RetorqueCheck,
 } from '../../../../shared/schemas/install-log';
+import { positionList } from '../../../../shared/install-log/positions';
 import { paths } from '../../../config/paths';
 import { Button } from '../../../components/ui/button';
 import { FormError } from '../../../components/ui/form-error';
@@ -92,7 +93,7 @@ function CheckItem({
           ? 'Not re-checked yet'
           : left.length === check.count
             ? `All ${check.count} still to re-check`
-            : `Still to re-check: #${left.join(', #')}`}
+            : `Still to re-check: ${positionList(check.positionNames, left)}`}
         {check.since && <> · signed off {formatWhen(check.since)}</>}
       </p>
       <p className="text-sm text-muted">

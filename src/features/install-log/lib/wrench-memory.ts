@@ -1,6 +1,6 @@
 import { useCallback, useSyncExternalStore } from 'react';
 
-const key = 'headroom.install.wrench';
+const key = 'headroom.install.wrench-id';
 const event = 'headroom:wrench';
 
 function read(): string {
@@ -21,11 +21,11 @@ function subscribe(onChange: () => void) {
 }
 
 /**
- * The wrench last used on this device, kept in localStorage so it is typed once per
- * session in the garage, not once per bolt. Every entry form on the page shares it.
+ * Which of my wrenches I last used on this device, kept in localStorage so it is chosen
+ * once per session in the garage, not once per bolt. Every fastener on the page shares it.
  */
-export function useRememberedWrench(): [string, (wrench: string) => void] {
-  const wrench = useSyncExternalStore(subscribe, read, () => '');
+export function useRememberedWrench(): [string, (wrenchId: string) => void] {
+  const wrenchId = useSyncExternalStore(subscribe, read, () => '');
   const set = useCallback((next: string) => {
     try {
       window.localStorage.setItem(key, next);
@@ -34,5 +34,5 @@ export function useRememberedWrench(): [string, (wrench: string) => void] {
     }
     window.dispatchEvent(new Event(event));
   }, []);
-  return [wrench, set];
+  return [wrenchId, set];
 }

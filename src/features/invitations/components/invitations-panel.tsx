@@ -47,13 +47,13 @@ export function InvitationsPanel({ build }: { build: Build }) {
   return (
     <Section
       id="invitations"
-      title="Invitations"
+      title="Invite by e-mail"
       icon={<MailPlus aria-hidden className="size-5 text-ink-3" />}
     >
       <div className="flex flex-col gap-5">
         <p className="-mb-1 text-ink-2">
-          Invite someone by e-mail: they get a link and join with the role you choose. No Headroom
-          account needed: they create one on the way.
+          The one way to bring someone in: they get a link and join with the role you choose. With a
+          Headroom account they sign in; without one, they create it on the way.
         </p>
         <InviteForm buildId={build.id} />
         <div className="flex flex-col gap-3 border-t border-rule pt-4">

@@ -24,11 +24,7 @@ const resolver = lazyResolver<Input, Output>(() =>
 );
 const fieldNames: Path<Input>[] = ['email', 'role'];
 
-/**
- * The owner's main way to bring someone in: an e-mail with a link; no account needed.
- * No label, aria-label or heading here may contain "E-mail" or "Role": the members panel's add
- * form owns those (Playwright's getByLabel matches substrings, aria-labelledby regions too).
- */
+/** The owner's one way to bring someone in: an e-mail with a link; no account needed. */
 export function InviteForm({ buildId }: { buildId: string }) {
   const createInvitation = useCreateInvitation();
   const [sent, setSent] = useState<string | null>(null);

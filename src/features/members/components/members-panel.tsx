@@ -6,7 +6,6 @@ import { PageSpinner } from '../../../components/ui/spinner';
 import { ErrorState } from '../../../components/ui/states';
 import { useUser } from '../../../lib/auth';
 import { useMembers } from '../api/get-members';
-import { AddMemberForm } from './add-member-form';
 import { MemberRow } from './member-row';
 
 const roleOrder = Object.fromEntries(roles.map((role, index) => [role, index]));
@@ -68,14 +67,13 @@ export function MembersPanel({ build }: { build: Build }) {
         {body}
         {canManage && (
           <p className="-mb-3 text-sm text-ink-2">
-            Not on Headroom yet?{' '}
+            To bring someone in,{' '}
             <a href="#invitations" className="font-semibold text-accent-700 underline">
-              Invite them by e-mail
+              invite them by e-mail
             </a>
-            . Below, add someone who already has an account.
+            : with or without a Headroom account, they join from the link.
           </p>
         )}
-        {canManage && <AddMemberForm buildId={build.id} />}
         {canManage && (
           <details className="text-sm text-ink-2">
             <summary className="min-h-11 cursor-pointer py-2 font-semibold text-accent-700">

@@ -51,7 +51,7 @@ const progressFields: readonly Path<PartFormInput>[] = partProgressFields;
 
 const moneyFields = [
   ['unitPriceCents', 'Unit price', 'Each, before tax'],
-  ['labourCents', 'Labour', 'Fitting, machining, a shop’s rebuild'],
+  ['labourCents', 'Labor', 'Fitting, machining, a shop’s rebuild'],
   ['shippingCents', 'Shipping', undefined],
   ['taxCents', 'Tax', undefined],
   ['coreChargeCents', 'Core charge', 'Paid until the old part goes back'],
@@ -407,7 +407,7 @@ export function PartForm({
                   hint={
                     shops.length === 0
                       ? 'Add the shop to the build as a member with the Shop role to choose it here.'
-                      : 'The shop member sees this part and its labour quote, nothing else.'
+                      : 'The shop member sees this part and its labor quote, nothing else.'
                   }
                 >
                   {(c) => (
@@ -449,7 +449,7 @@ export function PartForm({
         <>
           <FieldGroup
             legend="Money"
-            description={`Amounts in ${currency}. Only owners of the build ever see money; a shop sees its own labour quote.`}
+            description={`Amounts in ${currency}. Only owners of the build ever see money; a shop sees its own labor quote.`}
           >
             {moneyFields.map(([name, label, hint]) => (
               <MoneyField

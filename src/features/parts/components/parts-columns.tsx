@@ -318,7 +318,7 @@ export function buildPartColumns(money: MoneyView) {
     ...(money === 'full'
       ? [
           moneyColumn('unitPriceCents', 'Unit price'),
-          moneyColumn('labourCents', 'Labour'),
+          moneyColumn('labourCents', 'Labor'),
           moneyColumn('shippingCents', 'Shipping'),
           moneyColumn('taxCents', 'Tax'),
           moneyColumn('coreChargeCents', 'Core charge'),

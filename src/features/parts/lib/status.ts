@@ -7,15 +7,17 @@ import {
 } from '../../../../shared/schemas/parts';
 
 /**
- * Each status has its own look: a tone and an icon name, so colour is never the only cue.
- * Planned is an outline (nothing has happened yet), then the part gathers ink as it
- * moves toward the truck; a part away at a shop is amber because someone else has it.
+ * Each status has its own look: a tone and an icon, so color is never the only cue.
+ * Planned is an outline (nothing has happened yet); ordered, in the garage and out at a
+ * shop are calm colors of their own (blue, teal, violet), never the brand orange or the
+ * amber and red that mean a warning; installed is the green of done. Warnings about a part
+ * (overdue at the shop) are drawn apart, in the warning colors.
  */
 export const statusTone: Record<PartStatus, string> = {
   planned: 'border-dashed border-rule-strong bg-transparent text-ink-2',
-  ordered: 'border-[#b9c3d6] bg-[#eef1f7] text-[#2c3a57]',
-  'in-hand': 'border-accent-100 bg-accent-50 text-accent-700',
-  'at-shop': 'border-tight/40 bg-tight-soft text-[#6b4408]',
+  ordered: 'border-state-blue-line bg-state-blue-soft text-state-blue',
+  'in-hand': 'border-state-teal-line bg-state-teal-soft text-state-teal',
+  'at-shop': 'border-state-violet-line bg-state-violet-soft text-state-violet',
   installed: 'border-ok/40 bg-ok-soft text-[#1d5434]',
   returned: 'border-rule bg-paper text-muted',
 };

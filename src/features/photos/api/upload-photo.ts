@@ -83,7 +83,7 @@ export function uploadPhoto({
       reject(
         new ApiError(0, 'network', 'Could not reach Headroom. Check your connection and retry.'),
       );
-    xhr.onabort = () => reject(new DOMException('Upload cancelled', 'AbortError'));
+    xhr.onabort = () => reject(new DOMException('Upload canceled', 'AbortError'));
     signal?.addEventListener('abort', () => xhr.abort(), { once: true });
 
     const body = new FormData();

@@ -1,0 +1,17 @@
+import { Router } from 'express';
+import type { AppDeps } from '../../lib/deps';
+import { scoped } from '../../lib/scope';
+import * as service from './activity.service';
+
+/** Mounted at /api/builds/:buildId/activity: what has happened lately, as the caller may see it. */
+export function activityRouter(deps: AppDeps) {
+  const router = Router({ mergeParams: true });
+  router.get(
+    '/',
+    deps.access('activity:read'),
+    scoped(deps.db.knex, async (s) => ({
+      events: await service.recentActivity(s, new Date().toISOString().slice(0, 10)),
+    })),
+  );
+  return router;
+}

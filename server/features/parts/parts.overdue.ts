@@ -1,0 +1,112 @@
+/**
+ * The "overdue at the shop" notice: a part at a shop past its sent-out date plus the
+ * promised turnaround is told to the owner and to that shop, once per part per overdue
+ * spell (a new send-out, or a new turnaround that also passes, is a new spell).
+ *
+ * How: a periodic pass in every server process (as the mail worker runs), not a check on
+ * requests — a part falls overdue at midnight whether or not anyone opens the app. What
+ * was sent is recorded in PostgreSQL (part_overdue_notices); its primary key is the spell,
+ * so with two or more processes passing at once the insert lands once and only the process
+ * that made it queues the notice, in the same transaction. Nothing is kept in memory.
+ */
+import type { Knex } from 'knex';
+import { partCategoryLabels } from '../../../shared/schemas/parts';
+import type { Logger } from '../../lib/logger';
+import { mailDate, quoted } from '../mail';
+import { notify } from '../notices';
+import * as repo from './parts.repository';
+
+/** Client path of a build's send-outs page (the client's route for it must match). */
+export const sendOutsPath = (buildId: string) => `/builds/${buildId}/send-outs`;
+
+/** The UTC calendar day, as the parts service judges send-outs (sendOutStatus). */
+const utcToday = (now: Date) => now.toISOString().slice(0, 10);
+
+/**
+ * One pass: every part now overdue whose spell has not been told yet. Returns how many
+ * notices this process queued. `today` is YYYY-MM-DD (tests pass their own).
+ */
+export async function notifyOverdueParts(knex: Knex, today: string): Promise<number> {
+  let told = 0;
+  for (const candidate of await repo.overdueUntold(knex, today)) {
+    told += await knex.transaction(async (trx) => {
+      // Still out and still overdue on the same promise (it may have come back meanwhile)?
+      const part = await repo.lockOverdue(trx, candidate.id, today);
+      if (!part || !(await repo.recordOverdueNotice(trx, part))) return 0;
+      const daysOver = Math.round(
+        (Date.parse(`${today}T00:00:00Z`) - Date.parse(`${part.dueOn}T00:00:00Z`)) / 86_400_000,
+      );
+      const shop = part.shopName ? ` at ${part.shopName}` : ' at the shop';
+      const bits = [partCategoryLabels[part.category]];
+      if (part.partNumber) bits.push(`part number ${part.partNumber}`);
+      await notify(
+        trx,
+        part.buildId,
+        'part-overdue-at-shop',
+        {
+          subject: `${part.name} overdue${shop}`,
+          text:
+            `${quoted(part.name)} (${bits.join(', ')}) went out${shop} on ${mailDate(part.sentOutOn)} ` +
+            `with a turnaround of ${part.turnaroundDays} day${part.turnaroundDays === 1 ? '' : 's'}, ` +
+            `so it was due back on ${mailDate(part.dueOn)}: ${daysOver} day${daysOver === 1 ? '' : 's'} ago.\n\n` +
+            'If a new date was agreed, change the turnaround on the part; you will hear again only if that date passes too.',
+          link: sendOutsPath(part.buildId),
+          linkLabel: 'Open the send-outs',
+        },
+        // Nobody acted: the owner and the shop that has the part both hear.
+        { actorUserId: null, shopUserId: part.shopUserId },
+      );
+      return 1;
+    });
+  }
+  return told;
+}
+
+/** Passes every pollMs until stop(); a failed pass is logged and tried again at the next. */
+export function createOverdueWorker(opts: {
+  knex: Knex;
+  logger: Logger;
+  pollMs?: number;
+  now?: () => Date;
+}) {
+  const log = opts.logger.child({ component: 'overdue-worker' });
+  const now = opts.now ?? (() => new Date());
+  let timer: NodeJS.Timeout | null = null;
+  let running: Promise<number> | null = null;
+  let stopped = true;
+
+  function runOnce(): Promise<number> {
+    running ??= notifyOverdueParts(opts.knex, utcToday(now())).finally(() => {
+      running = null;
+    });
+    return running;
+  }
+
+  function schedule(delay: number) {
+    if (stopped) return;
+    timer = setTimeout(() => {
+      runOnce()
+        .then((n) => n && log.info({ notices: n }, 'overdue send-outs told'))
+        .catch((err) => log.error({ err }, 'overdue pass failed'))
+        .finally(() => schedule(opts.pollMs ?? 10 * 60_000));
+    }, delay);
+    timer.unref();
+  }
+
+  return {
+    runOnce,
+    start() {
+      if (!stopped) return;
+      stopped = false;
+      // A first pass soon after start-up, then every pollMs.
+      schedule(5_000);
+    },
+    async stop() {
+      stopped = true;
+      if (timer) clearTimeout(timer);
+      timer = null;
+      await running?.catch(() => undefined);
+    },
+  };
+}
+export type OverdueWorker = ReturnType<typeof createOverdueWorker>;
