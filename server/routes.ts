@@ -32,6 +32,11 @@ import { membersRouter } from './features/members/members.router';
 import { noticePreferencesRouter } from './features/notices/notices.router';
 import { partsCsvRouter, partsRouter } from './features/parts/parts.router';
 import { photosRouter, subjectPhotosRouter } from './features/photos/photos.router';
+import {
+  buildSheetRouter,
+  shareSettingsRouter,
+  sharedRouter,
+} from './features/sharing/sharing.router';
 
 /** `anonymous`: served before the session is read (no cookie lookup), e.g. the health check. */
 export type Mount = { path: string; router: Router; anonymous?: boolean };
@@ -41,6 +46,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
   const b = '/builds/:buildId';
   return [
     { path: '/health', router: healthRouter(deps), anonymous: true },
+    // A shared build's public page: no session is read, nothing is writable.
+    { path: '/shared', router: sharedRouter(deps), anonymous: true },
     { path: '/auth/password-reset', router: passwordResetRouter(deps) },
     { path: '/auth', router: authRouter(deps) },
     { path: '/me', router: meRouter() },
@@ -66,6 +73,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/bench-sheets`, router: benchSheetsRouter(deps) },
     { path: `${b}/dyno-sessions`, router: dynoSessionsRouter(deps) },
     { path: `${b}/dyno-runs`, router: dynoRunsRouter(deps) },
+    { path: `${b}/share`, router: shareSettingsRouter(deps) },
+    { path: `${b}/sheet`, router: buildSheetRouter(deps) },
   ];
 }
 

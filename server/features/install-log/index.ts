@@ -10,3 +10,6 @@ export const visibleSteps = (knex: Knex, buildId: string, caller: Caller) =>
 /** A step the caller may see, or 404 (a malformed id, another build's step, or hidden from a shop). */
 export const getVisibleStep = (knex: Knex, buildId: string, rawStepId: string, caller: Caller) =>
   loadStep({ knex, buildId, caller }, rawStepId);
+
+/** The whole log in full, for the build sheet. */
+export { installRecord } from './record';
