@@ -89,7 +89,8 @@ export type ViewPart = {
   name: string;
   quantity: number;
   status: PartStatus;
-  rating: { value: number; unit: RatingUnit; for: string } | null;
+  statusLabel: string;
+  rating: { value: number; unit: RatingUnit; unitLabel: string; for: string } | null;
   /** The estimate's headroom of a rated part against the target. */
   headroom: { pct: number; status: 'over' | 'tight' | 'ok' } | null;
   /** Member sheet only. */
@@ -171,12 +172,13 @@ export type BuildView = {
   parts: {
     total: number;
     byStatus: Partial<Record<PartStatus, number>>;
-    categories: { category: PartCategory; parts: ViewPart[] }[];
+    categories: { category: PartCategory; label: string; parts: ViewPart[] }[];
   } | null;
   estimate: {
     weakestLink: {
       name: string;
       category: PartCategory;
+      categoryLabel: string;
       headroomPct: number;
       status: 'over' | 'tight' | 'ok';
       message: string;

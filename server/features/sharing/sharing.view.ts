@@ -9,7 +9,13 @@
 import type { Knex } from 'knex';
 import { computeBudget } from '../../../shared/ledger/budget';
 import { partTotalCents } from '../../../shared/ledger/cost';
-import { partCategories, type PartCategory } from '../../../shared/schemas/parts';
+import {
+  partCategories,
+  partCategoryLabels,
+  partStatusLabels,
+  ratingUnitLabels,
+  type PartCategory,
+} from '../../../shared/schemas/parts';
 import type {
   BuildView,
   ShareSections,
@@ -58,9 +64,15 @@ function viewParts(all: PartRecord[], est: Estimate | null, opts: ViewOptions) {
     name: p.name,
     quantity: p.quantity,
     status: p.status,
+    statusLabel: partStatusLabels[p.status],
     rating:
       p.ratingValue !== null && p.ratingUnit !== null
-        ? { value: p.ratingValue, unit: p.ratingUnit, for: p.ratingFor }
+        ? {
+            value: p.ratingValue,
+            unit: p.ratingUnit,
+            unitLabel: ratingUnitLabels[p.ratingUnit],
+            for: p.ratingFor,
+          }
         : null,
     headroom: headroom.get(p.id) ?? null,
     ...(opts.kind === 'member' ? { vendor: p.vendor, partNumber: p.partNumber } : {}),
@@ -70,6 +82,7 @@ function viewParts(all: PartRecord[], est: Estimate | null, opts: ViewOptions) {
   const categories = partCategories
     .map((category: PartCategory) => ({
       category,
+      label: partCategoryLabels[category],
       parts: list.filter((p) => p.category === category).map(present),
     }))
     .filter((c) => c.parts.length > 0);
@@ -82,6 +95,7 @@ function viewEstimate(est: Estimate) {
       ? {
           name: est.weakestLink.name,
           category: est.weakestLink.category,
+          categoryLabel: partCategoryLabels[est.weakestLink.category],
           headroomPct: Math.round(est.weakestLink.headroomPct * 10) / 10,
           status: est.weakestLink.status,
           message: est.weakestLink.message,
