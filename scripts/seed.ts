@@ -2,6 +2,8 @@
 import knexFactory from 'knex';
 import { knexConfig } from '../db/knexfile';
 import { seedDemo } from '../db/seeds/demo';
+import { createStorage } from '../server/lib/stores';
+import { objectStoreFromEnv } from '../server/storage-config';
 
 const url = process.env.DATABASE_URL;
 if (!url) {
@@ -14,7 +16,16 @@ try {
   if (Number(count) > 0 && !process.argv.includes('--force')) {
     console.log('database already has accounts: demo data not added');
   } else {
-    await knex.transaction((trx) => seedDemo(trx));
+    // Demo photos go where the server will read them: STORAGE_DIR, or the object store with STORAGE=s3.
+    const storage = createStorage({
+      storageDir: process.env.STORAGE_DIR ?? '.data/uploads',
+      objectStore: objectStoreFromEnv(),
+    });
+    try {
+      await knex.transaction((trx) => seedDemo(trx, { storage }));
+    } finally {
+      storage.close?.();
+    }
     console.log('demo data added');
   }
 } finally {

@@ -8,7 +8,8 @@ import type { AppConfig } from './config';
 import { createSessions } from './lib/auth';
 import type { Database } from './lib/database';
 import { createLogger, type Logger } from './lib/logger';
-import { createLocalDiskStorage, type Storage } from './lib/storage';
+import type { Storage } from './lib/storage';
+import { createStorage } from './lib/stores';
 import { redactTokens } from './lib/tokens';
 import './lib/request';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
@@ -31,12 +32,13 @@ export function createApp(opts: {
   storage?: Storage;
 }) {
   const logger = opts.logger ?? createLogger(opts.config.logLevel);
+  // Photos and attachments: the store the config names (the local disk by default) unless the caller passes one.
+  const storage = opts.storage ?? createStorage(opts.config);
   const deps: AppDeps = {
     ...opts,
     logger,
     sessions: createSessions(opts.db.pool),
-    // Photos: the local disk unless the caller passes another store (an S3-compatible one).
-    storage: opts.storage ?? createLocalDiskStorage(opts.config.storageDir),
+    storage,
     access: createBuildAccess(opts.db.knex, findRole),
   };
   const app = express();
@@ -48,7 +50,16 @@ export function createApp(opts: {
   app.use(
     helmet({
       contentSecurityPolicy: {
-        directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null },
+        directives: {
+          // Images may come from the object store: its signed URLs are where photo routes redirect.
+          'img-src': [
+            "'self'",
+            'data:',
+            'blob:',
+            ...(storage.signedUrlOrigin ? [storage.signedUrlOrigin] : []),
+          ],
+          'upgrade-insecure-requests': null,
+        },
       },
       strictTransportSecurity: opts.config.trustProxy,
     }),

@@ -2,6 +2,14 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
+import {
+  checkStorageEnv,
+  objectStoreFrom,
+  storageEnv,
+  type ObjectStoreSettings,
+} from './storage-config';
+
+export type { ObjectStoreSettings } from './storage-config';
 
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -59,6 +67,7 @@ const envSchema = z.object({
   PASSWORD_RESET_RATE_LIMIT: z.coerce.number().int().min(1).default(5),
   /** Folder of the local-disk photo store (relative to the working folder). */
   STORAGE_DIR: z.string().min(1).default('.data/uploads'),
+  ...storageEnv,
   /** Folder for uploads while they are checked; emptied after every request. Default: the OS temp folder. */
   UPLOAD_TMP_DIR: z.string().min(1).optional(),
   /** Folder of the built client (vite build's outDir); npm test builds its own copy elsewhere. */
@@ -108,8 +117,10 @@ export type AppConfig = {
   appUrl: string;
   mail: MailConfig;
   passwordResetRateLimit: number;
-  /** Absolute folder of the local-disk photo store. */
+  /** Absolute folder of the local-disk photo store (used when objectStore is null). */
   storageDir: string;
+  /** STORAGE=s3: photos and attachments in an S3-compatible object store instead of storageDir. */
+  objectStore: ObjectStoreSettings | null;
   /** Absolute folder where multer writes uploads before they are checked. */
   uploadTmpDir: string;
   /** Largest photo accepted, in bytes (25 MiB by default). */
@@ -125,6 +136,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     process.exit(1);
   }
   const e = parsed.data;
+  const storageProblem = checkStorageEnv(e);
+  if (storageProblem) {
+    console.error(`Headroom cannot start; fix these settings:\n  ${storageProblem}`);
+    process.exit(1);
+  }
   const smtp: SmtpSettings | null = e.SMTP_URL
     ? { url: e.SMTP_URL }
     : e.SMTP_HOST
@@ -179,6 +195,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     },
     passwordResetRateLimit: e.PASSWORD_RESET_RATE_LIMIT,
     storageDir: path.resolve(e.STORAGE_DIR),
+    objectStore: objectStoreFrom(e),
     uploadTmpDir: path.resolve(e.UPLOAD_TMP_DIR ?? path.join(os.tmpdir(), 'headroom-uploads')),
     photoMaxBytes: Math.round(e.PHOTO_MAX_MB * 1024 * 1024),
   };

@@ -6,7 +6,7 @@ import { startMailCatcher, type MailCatcher } from './lib/mail-catcher';
 import { createMailer } from './lib/mailer';
 import { createFileWorker } from './features/files';
 import { createMailWorker } from './features/mail';
-import { createLocalDiskStorage } from './lib/storage';
+import { createStorage, describeStorage } from './lib/stores';
 
 const config = loadConfig();
 const logger = createLogger(config.logLevel);
@@ -14,7 +14,9 @@ const db = createDatabase(config.databaseUrl, {
   // PostgreSQL restarting drops idle connections; the pool replaces them on the next request.
   onError: (err) => logger.warn({ err: err.message }, 'a database connection was dropped'),
 });
-const storage = createLocalDiskStorage(config.storageDir);
+// The local disk, or the object store with STORAGE=s3 (shared by every app process).
+const storage = createStorage(config);
+logger.info(describeStorage(config));
 const app = createApp({ db, config, logger, storage });
 
 // Mail: without SMTP settings a local catcher keeps every message under MAIL_DIR
@@ -65,6 +67,7 @@ async function stop(signal: string) {
   // Queued mail stays in PostgreSQL; a pass under way finishes first.
   await mailWorker.stop();
   await fileWorker.stop();
+  storage.close?.();
   mailer.close();
   await catcher?.close();
   await db.close().catch(() => undefined);

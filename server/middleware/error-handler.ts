@@ -4,6 +4,7 @@ import { ZodError } from 'zod';
 import { isDatabaseUnavailable } from '../lib/database';
 import { AppError, fieldsFromZod } from '../lib/errors';
 import type { Logger } from '../lib/logger';
+import { isStorageUnavailable } from '../lib/storage';
 
 export const notFoundApi: RequestHandler = (req, res) => {
   res
@@ -85,6 +86,17 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
         code: 'database_unavailable',
         message:
           'Headroom cannot reach its database just now. Nothing was saved; try again shortly.',
+      });
+      return;
+    }
+    if (isStorageUnavailable(err)) {
+      logger.warn({ err: String(err), url: req.originalUrl }, 'file store unavailable');
+      res.set('Retry-After', '5');
+      send({
+        status: 503,
+        code: 'storage_unavailable',
+        message:
+          'Headroom cannot reach its file store just now. Nothing was saved; try again shortly.',
       });
       return;
     }

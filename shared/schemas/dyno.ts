@@ -15,6 +15,13 @@
  * its size before comparing.
  */
 import { z } from 'zod';
+
+export {
+  DEFAULT_CORRECTION_STANDARD,
+  correctionStandardLabels,
+  correctionStandards,
+  type CorrectionStandard,
+} from '../dyno/vocabulary';
 import {
   convertPressure,
   convertTemperature,
@@ -24,6 +31,7 @@ import {
   type TorqueUnit,
 } from '../units/convert';
 import { aspirations, powerBases } from './builds';
+import { DEFAULT_CORRECTION_STANDARD, correctionStandards } from '../dyno/vocabulary';
 import { idSchema, isoDateSchema, trimmed } from './common';
 import { workingConstantSchema } from './estimate';
 
@@ -103,25 +111,6 @@ export const runStatusLabels: Record<RunStatus, string> = {
   aborted: 'Stopped early',
 };
 
-/**
- * Standards a run can be corrected to. `uncorrected` is the figure as measured
- * (factor 1). See shared/dyno/correction.ts for each formula and its source.
- */
-export const correctionStandards = [
-  'uncorrected',
-  'sae-j1349',
-  'ece-r85',
-  'sae-j607',
-  'din-70020',
-] as const;
-export type CorrectionStandard = (typeof correctionStandards)[number];
-export const correctionStandardLabels: Record<CorrectionStandard, string> = {
-  uncorrected: 'As measured (no correction)',
-  'sae-j1349': 'SAE J1349 (2004), 25 °C and 99 kPa dry air',
-  'ece-r85': 'UN ECE R85 / ISO 1585, diesel engines',
-  'sae-j607': 'SAE J607, older records (60 °F, 29.92 inHg)',
-  'din-70020': 'DIN 70020, older records (20 °C, 1013 mbar)',
-};
 export const correctionStandardSchema = z.enum(correctionStandards, {
   message: 'Choose a correction standard from the list',
 });
@@ -680,9 +669,6 @@ export const correctedRunSchema = z.object({
 export type CorrectedRun = z.infer<typeof correctedRunSchema>;
 
 // ---------------------------------------------------------------- what the API answers
-
-/** The standard a page opens in when none is chosen: the one chassis dynos most often report. */
-export const DEFAULT_CORRECTION_STANDARD: CorrectionStandard = 'sae-j1349';
 
 /**
  * The correction choice as query parameters (`?standard=ece-r85&engineFactor=0.8`):

@@ -15,7 +15,12 @@ import type { RouteInfo } from '../../server/routes';
 import { loadConfig, type AppConfig } from '../../server/config';
 import { createDatabase, type Database } from '../../server/lib/database';
 import { createLogger } from '../../server/lib/logger';
+import type { Storage } from '../../server/lib/storage';
+import { createStorage } from '../../server/lib/stores';
+import type { ObjectStoreSettings } from '../../server/storage-config';
+import { createOwnDatabase } from './database';
 import { prepareTestMail, type TestMail } from './mail';
+import { startFakeS3, type FakeS3 } from './s3';
 
 export type Agent = ReturnType<typeof supertest.agent>;
 
@@ -33,18 +38,32 @@ export type TestApp = {
   /** This app's own photo store and upload temp folder (fresh temp folders, removed afterwards). */
   storageDir: string;
   uploadTmpDir: string;
+  /** The store the app uses: the local disk in storageDir, or the S3 fake with { objectStore }. */
+  storage: Storage;
+  /** Only with useTestApp(…, { objectStore }): the S3 fake, started and stopped with the app. */
+  s3: FakeS3;
+};
+
+export type TestAppOptions = {
+  mail?: boolean;
+  /** Photos and attachments in a local S3 fake (s3rver) instead of the local disk. */
+  objectStore?: boolean | Partial<ObjectStoreSettings>;
+  /** The file's own migrated database (the mail option implies it). */
+  ownDatabase?: boolean;
 };
 
 /**
  * Starts one app for the test file; `overrides` changes config (e.g. a low rate limit).
- * `{ mail: true }` gives the file its own database, a mail catcher and a worker (see ./mail.ts).
+ * `{ mail: true }` gives the file its own database, a mail catcher and a worker (see ./mail.ts);
+ * `{ objectStore: true }` keeps its files in a local S3 fake (see ./s3.ts).
  */
 export function useTestApp(
   overrides: Partial<AppConfig> = {},
-  options: { mail?: boolean } = {},
+  options: TestAppOptions = {},
 ): TestApp {
   const ctx = {} as TestApp & { server: Server };
   let mailSetup: Awaited<ReturnType<typeof prepareTestMail>> | undefined;
+  let ownDatabase: Awaited<ReturnType<typeof createOwnDatabase>> | undefined;
   let filesDir: string | undefined;
   beforeAll(async () => {
     filesDir = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-test-files-'));
@@ -69,11 +88,25 @@ export function useTestApp(
     if (options.mail) {
       mailSetup = await prepareTestMail(config);
       config = mailSetup.config;
+    } else if (options.ownDatabase) {
+      ownDatabase = await createOwnDatabase(config.databaseUrl);
+      config = { ...config, databaseUrl: ownDatabase.databaseUrl };
+    }
+    if (options.objectStore) {
+      ctx.s3 = await startFakeS3();
+      const extra = typeof options.objectStore === 'object' ? options.objectStore : {};
+      config = { ...config, objectStore: ctx.s3.settings(extra) };
     }
     ctx.storageDir = config.storageDir;
     ctx.uploadTmpDir = config.uploadTmpDir;
+    ctx.storage = createStorage(config);
     ctx.db = createDatabase(config.databaseUrl);
-    const app = createApp({ db: ctx.db, config, logger: createLogger('silent') });
+    const app = createApp({
+      db: ctx.db,
+      config,
+      logger: createLogger('silent'),
+      storage: ctx.storage,
+    });
     ctx.server.on('request', app);
     ctx.routes = app.routes;
     ctx.agent = () => supertest.agent(ctx.origin).set('Origin', ctx.origin);
@@ -84,6 +117,9 @@ export function useTestApp(
     await new Promise((r) => ctx.server?.close(r));
     await ctx.db?.close();
     await mailSetup?.teardown();
+    await ownDatabase?.drop();
+    (ctx.storage as { close?: () => void } | undefined)?.close?.();
+    await ctx.s3?.close();
     if (filesDir) fs.rmSync(filesDir, { recursive: true, force: true });
   });
   return ctx;

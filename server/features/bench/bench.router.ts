@@ -12,6 +12,7 @@ import {
 import type { AppDeps } from '../../lib/deps';
 import { AppError } from '../../lib/errors';
 import { param, scoped } from '../../lib/scope';
+import { sendStoredFile } from '../../lib/stored-file';
 import { receiveUpload } from '../../lib/uploads';
 import { validate } from '../../middleware/validate';
 import * as service from './bench.service';
@@ -183,14 +184,21 @@ export function benchSheetsRouter(deps: AppDeps) {
       size === 'original' ? '/:sheetId/original' : `/:sheetId/original/${size}`,
       read,
       scoped(knex, async (s, req, res) => {
-        const file = await service.originalFile(ctx, s.buildId, sheetId(req), s.caller, size);
-        res
-          .type(file.contentType)
-          // Members only: no shared cache may keep it.
-          .set('Cache-Control', 'private, max-age=3600')
+        const file = await service.originalFile(s.knex, s.buildId, sheetId(req), s.caller, size);
+        await sendStoredFile(res, deps.storage, file.key, {
+          contentType: file.contentType,
           // Always a download: a PDF never opens as a page of this site.
-          .attachment(file.fileName)
-          .send(file.data);
+          disposition: 'attachment',
+          fileName: file.fileName,
+          // Members only: no shared cache may keep it.
+          cacheSeconds: 3600,
+          missingMessage: 'The file of this original is missing',
+          onMissing: () =>
+            deps.logger.error(
+              { sheetId: file.sheetId, size },
+              'bench original missing from storage',
+            ),
+        });
       }),
     );
   }

@@ -507,28 +507,24 @@ export async function removeOriginal(
 
 export type OriginalSize = 'original' | 'web' | 'thumb';
 
-/** The bytes of the original or one of its copies, for the members-only download routes. */
+/** Where the original or one of its copies is kept, for the members-only download routes. */
 export async function originalFile(
-  ctx: Ctx,
+  knex: Knex,
   buildId: string,
   rawSheetId: string,
   caller: Caller,
   size: OriginalSize,
 ) {
-  const sheet = await loadVisible(ctx.knex, buildId, rawSheetId, caller);
+  const sheet = await loadVisible(knex, buildId, rawSheetId, caller);
   const o = sheet.original;
   if (!o) throw new NotFoundError('This sheet has no original attached');
   const key = size === 'original' ? o.originalKey : size === 'web' ? o.webKey : o.thumbKey;
   if (!key) throw new NotFoundError('A PDF has no picture copies: download the original');
-  const data = await ctx.storage.get(key);
-  if (!data) {
-    ctx.logger.error({ sheetId: sheet.id, size }, 'bench original missing from storage');
-    throw new NotFoundError('The file of this original is missing');
-  }
   const fileName =
     size === 'original' ? o.fileName : `${o.fileName.replace(/\.[a-z]+$/, '')}-${size}.jpg`;
   return {
-    data,
+    sheetId: sheet.id,
+    key,
     contentType: size === 'original' ? o.contentType : 'image/jpeg',
     fileName,
   };

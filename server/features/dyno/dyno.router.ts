@@ -14,6 +14,7 @@ import type { AppDeps } from '../../lib/deps';
 import { AppError, ValidationError, fieldsFromZod } from '../../lib/errors';
 import { param, scoped } from '../../lib/scope';
 import { receiveUpload } from '../../lib/uploads';
+import { sendStoredFile } from '../../lib/stored-file';
 import { validate } from '../../middleware/validate';
 import * as runs from './runs.service';
 import * as sessions from './sessions.service';
@@ -180,14 +181,17 @@ export function dynoRunsRouter(deps: AppDeps) {
     '/:runId/attachment',
     read,
     scoped(knex, async (s, req, res) => {
-      const { data, attachment } = await runs.getAttachment(s, store, id(req));
-      res
-        // A download, whatever the name says; its type is what the content was checked to be.
-        .attachment(attachment.name)
-        .type(attachment.contentType)
-        // Members only: no shared cache may keep it.
-        .set('Cache-Control', 'private, max-age=3600')
-        .send(data);
+      const { key, attachment, runId } = await runs.getAttachment(s, id(req));
+      // A download, whatever the name says; its type is what the content was checked to be.
+      // Members only (private caching); from the object store by a signed link when it has one.
+      await sendStoredFile(res, deps.storage, key, {
+        contentType: attachment.contentType,
+        disposition: 'attachment',
+        fileName: attachment.name,
+        cacheSeconds: 3600,
+        missingMessage: 'The attached file is missing',
+        onMissing: () => store.logger.error({ runId }, 'dyno attachment missing from storage'),
+      });
     }),
   );
   router.put(

@@ -382,17 +382,12 @@ export async function putAttachment(
   return { run: await findPresented(scope, run.id) };
 }
 
-export async function getAttachment(scope: BuildScope, store: Store, rawRunId: string) {
+export async function getAttachment(scope: BuildScope, rawRunId: string) {
   const { run } = await loadRun(scope, rawRunId);
   if (!run.attachmentKey || !run.attachment) {
     throw new NotFoundError('This run has no attachment');
   }
-  const data = await store.storage.get(run.attachmentKey);
-  if (!data) {
-    store.logger.error({ runId: run.id }, 'dyno attachment missing from storage');
-    throw new NotFoundError('The attached file is missing');
-  }
-  return { data, attachment: run.attachment };
+  return { key: run.attachmentKey, attachment: run.attachment, runId: run.id };
 }
 
 export async function deleteAttachment(scope: BuildScope, store: Store, rawRunId: string) {

@@ -9,6 +9,7 @@ import {
   type PhotoSize,
 } from '../../../shared/schemas/photos';
 import type { AppDeps } from '../../lib/deps';
+import { sendStoredFile } from '../../lib/stored-file';
 import { receiveUpload } from '../../lib/uploads';
 import { assertNoNul, validate } from '../../middleware/validate';
 import * as service from './photos.service';
@@ -71,19 +72,23 @@ export function photosRouter(deps: AppDeps) {
   });
   for (const size of ['web', 'thumb'] as const satisfies PhotoSize[]) {
     router.get(`/:photoId/${size}`, read, async (req, res) => {
-      const { data, contentType, photo } = await service.file(
-        ctx,
+      const { key, contentType, photo } = await service.storedFile(
+        knex,
         build(req),
         param(req, 'photoId'),
         caller(req),
         size,
       );
-      res
-        .type(contentType)
-        // Private: only members may see it, so no shared cache may keep it.
-        .set('Cache-Control', 'private, max-age=3600')
-        .set('Content-Disposition', `inline; filename="photo-${photo.id}-${size}.jpg"`)
-        .send(data);
+      await sendStoredFile(res, deps.storage, key, {
+        contentType,
+        disposition: 'inline',
+        fileName: `photo-${photo.id}-${size}.jpg`,
+        // Private (only members may see it): no shared cache may keep it.
+        cacheSeconds: 3600,
+        missingMessage: 'Photo file not found',
+        onMissing: () =>
+          deps.logger.error({ photoId: photo.id, size }, 'photo file missing from storage'),
+      });
     });
   }
   router.patch(

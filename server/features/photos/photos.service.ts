@@ -80,21 +80,20 @@ export async function get(knex: Knex, buildId: string, rawPhotoId: string, calle
   return repo.present(await load(knex, buildId, rawPhotoId, caller));
 }
 
-/** The bytes of one stored size, for the authenticated image routes. */
-export async function file(
-  ctx: Ctx,
+/** Where one stored size is kept, for the authenticated image routes (after the access check). */
+export async function storedFile(
+  knex: Knex,
   buildId: string,
   rawPhotoId: string,
   caller: Caller,
   size: PhotoSize,
 ) {
-  const photo = await load(ctx.knex, buildId, rawPhotoId, caller);
-  const data = await ctx.storage.get(size === 'web' ? photo.webKey : photo.thumbKey);
-  if (!data) {
-    ctx.logger.error({ photoId: photo.id, size }, 'photo file missing from storage');
-    throw new NotFoundError('Photo file not found');
-  }
-  return { data, contentType: photo.web.contentType, photo };
+  const photo = await load(knex, buildId, rawPhotoId, caller);
+  return {
+    key: size === 'web' ? photo.webKey : photo.thumbKey,
+    contentType: photo.web.contentType,
+    photo,
+  };
 }
 
 export async function upload(

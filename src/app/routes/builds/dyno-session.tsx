@@ -34,13 +34,14 @@ import {
   useDynoSession,
   type DynoSessionAnswer,
 } from '../../../features/dyno/api/get-dyno-session';
-import { choiceSearch, useCorrectionChoice } from '../../../features/dyno/choice';
+import { useCorrectionChoice } from '../../../features/dyno/choice';
+import { choiceSearch } from '../../../features/dyno/choice-search';
 import { AttachmentDialog } from '../../../features/dyno/components/attachment-dialog';
 import {
   CorrectionFigure,
   StandardPicker,
-  standardShortLabels,
 } from '../../../features/dyno/components/correction-panel';
+import { standardShortLabels } from '../../../../shared/dyno/vocabulary';
 import type { ChartRun } from '../../../features/dyno/components/curve-chart';
 import { DynoCautions } from '../../../features/dyno/components/dyno-cautions';
 import { ImportRunDialog } from '../../../features/dyno/components/import-run';

@@ -17,11 +17,10 @@ import {
   useDynoSessions,
   type DynoSessionsAnswer,
 } from '../../../features/dyno/api/get-dyno-sessions';
-import { choiceSearch, useCorrectionChoice } from '../../../features/dyno/choice';
-import {
-  StandardPicker,
-  standardShortLabels,
-} from '../../../features/dyno/components/correction-panel';
+import { useCorrectionChoice } from '../../../features/dyno/choice';
+import { choiceSearch } from '../../../features/dyno/choice-search';
+import { StandardPicker } from '../../../features/dyno/components/correction-panel';
+import { standardShortLabels } from '../../../../shared/dyno/vocabulary';
 import { DynoCautions } from '../../../features/dyno/components/dyno-cautions';
 import { AgainstPlan } from '../../../features/dyno/components/plan-panel';
 import { SessionFormDialog } from '../../../features/dyno/components/session-form';

@@ -6,7 +6,7 @@ import type {
   DynoSessionSummary,
 } from '../../../../shared/schemas/dyno';
 import { api } from '../../../lib/api-client';
-import { choiceSearch } from '../choice';
+import { choiceSearch } from '../choice-search';
 import { dynoKey } from './keys';
 
 export type DynoSessionsAnswer = {

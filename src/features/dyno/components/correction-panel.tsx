@@ -10,21 +10,13 @@ import {
   type CorrectionStandard,
   type EngineAspiration,
 } from '../../../../shared/schemas/dyno';
+import { standardShortLabels } from '../../../../shared/dyno/vocabulary';
 import { formatNumber } from '../../../../shared/format';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
 import { factorText } from '../format';
 import { ShowWorking, WorkingBody } from './working';
-
-/** Short names for the select; the long label says the reference conditions. */
-export const standardShortLabels: Record<CorrectionStandard, string> = {
-  uncorrected: 'As measured',
-  'sae-j1349': 'SAE J1349',
-  'ece-r85': 'UN ECE R85 / ISO 1585',
-  'sae-j607': 'SAE J607',
-  'din-70020': 'DIN 70020',
-};
 
 /**
  * The standard the figures are shown in. For R85, the engine's aspiration and the engine

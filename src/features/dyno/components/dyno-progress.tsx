@@ -1,6 +1,9 @@
 import { Activity } from 'lucide-react';
 import type { Build } from '../../../../shared/schemas/builds';
-import { DEFAULT_CORRECTION_STANDARD } from '../../../../shared/schemas/dyno';
+import {
+  DEFAULT_CORRECTION_STANDARD,
+  standardShortLabels,
+} from '../../../../shared/dyno/vocabulary';
 import { formatIsoDate, formatNumber } from '../../../../shared/format';
 import { Badge } from '../../../components/ui/badge';
 import { ButtonLink } from '../../../components/ui/button';
@@ -9,8 +12,7 @@ import { Spinner } from '../../../components/ui/spinner';
 import { paths } from '../../../config/paths';
 import { useDynoSessions } from '../api/get-dyno-sessions';
 import { dynoKindShort, powerText, progressText } from '../format';
-import { standardShortLabels } from './correction-panel';
-import { ProgressBar } from './plan-panel';
+import { ProgressBar } from './progress-bar';
 
 const choice = { standard: DEFAULT_CORRECTION_STANDARD };
 
