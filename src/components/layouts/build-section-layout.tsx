@@ -8,6 +8,8 @@ import {
   LayoutDashboard,
   Package,
   PiggyBank,
+  Printer,
+  Share2,
   Truck,
   type LucideIcon,
 } from 'lucide-react';
@@ -24,7 +26,10 @@ type Tab = {
   needs?: Action;
 };
 
-/** The sections of a build, in the order the work goes. Budget only for roles that see money. */
+/**
+ * The sections of a build, in the order the work goes, then its sheet and sharing. Budget only
+ * for roles that see money, the sheet not for a shop, sharing for the owner.
+ */
 const tabs: Tab[] = [
   { label: 'Overview', href: paths.builds.overview.getHref, icon: LayoutDashboard, end: true },
   { label: 'Parts', href: paths.builds.parts.getHref, icon: Package },
@@ -35,6 +40,8 @@ const tabs: Tab[] = [
   { label: 'Install', href: paths.builds.install.getHref, icon: ClipboardList },
   { label: 'Photos', href: paths.builds.photos.getHref, icon: Camera },
   { label: 'Dyno', href: paths.builds.dyno.getHref, icon: Activity },
+  { label: 'Build sheet', href: paths.builds.sheet.getHref, icon: Printer, needs: 'sheet:read' },
+  { label: 'Share', href: paths.builds.share.getHref, icon: Share2, needs: 'share:manage' },
 ];
 
 /** Every /builds/:buildId/* page: a row of section tabs over the page. */
@@ -49,7 +56,7 @@ export function BuildSectionLayout() {
       {build.isSuccess && (
         <nav
           aria-label="Build sections"
-          className="-mx-4 mb-5 overflow-x-auto border-b border-rule px-4 sm:mx-0 sm:px-0"
+          className="-mx-4 mb-5 overflow-x-auto border-b border-rule px-4 sm:mx-0 sm:px-0 print:hidden"
         >
           <ul className="flex min-w-max gap-1">
             {visible.map((t) => (

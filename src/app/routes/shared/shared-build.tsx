@@ -4,7 +4,8 @@ import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
 import { ButtonLink } from '../../../components/ui/button';
 import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState, NotFoundState } from '../../../components/ui/states';
+import { ErrorState } from '../../../components/ui/states';
+import { NotShared } from '../../../features/sharing/components/not-shared';
 import { useSharedBuild } from '../../../features/sharing/api/get-shared-build';
 import { PublicBuild } from '../../../features/sharing/components/public-build';
 
@@ -16,15 +17,7 @@ export function SharedBuildRoute() {
   if (shared.isPending) return <PageSpinner label="Loading the build…" />;
   if (shared.isError) {
     if (isApiError(shared.error) && shared.error.status === 404) {
-      return (
-        <div className="py-6">
-          <title>Build not shared · Headroom</title>
-          <NotFoundState title="This build is not shared" titleAs="h1">
-            Its owner has switched the public page off, or given it a new address. Ask them for
-            the current link.
-          </NotFoundState>
-        </div>
-      );
+      return <NotShared />;
     }
     return (
       <ErrorState

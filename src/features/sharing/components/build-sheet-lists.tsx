@@ -118,7 +118,8 @@ function Torque({ install }: { install: NonNullable<BuildView['install']> }) {
                     — {stepStatusLabels[s.status]}
                     {s.signOff &&
                       ` ${dateText(s.signOff.on)}${s.signOff.by ? ` by ${s.signOff.by}` : ''}${s.signOff.override ? ' (owner override)' : ''}`}
-                    {s.checklist.total > 0 && ` · checklist ${s.checklist.done}/${s.checklist.total}`}
+                    {s.checklist.total > 0 &&
+                      ` · checklist ${s.checklist.done}/${s.checklist.total}`}
                   </span>
                 </p>
                 {s.fasteners.length > 0 && (
@@ -146,7 +147,9 @@ function Torque({ install }: { install: NonNullable<BuildView['install']> }) {
                             {torqueSpecText(f)}, {f.threadCondition.toLowerCase()}
                             {f.finalAngleDeg !== null && ` + ${formatNumber(f.finalAngleDeg, 0)}°`}
                           </td>
-                          <td className={`${td} ${f.outOfSpec > 0 ? 'font-semibold text-over' : ''}`}>
+                          <td
+                            className={`${td} ${f.outOfSpec > 0 ? 'font-semibold text-over' : ''}`}
+                          >
                             {readingsText(f)}
                           </td>
                           <td className={td}>

@@ -101,13 +101,9 @@ function Summary({ view }: { view: BuildView }) {
         )}
         {t && t.positionsTotal > 0 && (
           <Line term="Torque record">
-            {t.positionsRecorded} of {t.positionsTotal} fastener positions read on{' '}
-            {t.fasteners} specs: {t.inSpec} in spec
-            {t.outOfSpec > 0 ? (
-              <strong>, {t.outOfSpec} out of spec</strong>
-            ) : (
-              ', none out of spec'
-            )}
+            {t.positionsRecorded} of {t.positionsTotal} fastener positions read on {t.fasteners}{' '}
+            specs: {t.inSpec} in spec
+            {t.outOfSpec > 0 ? <strong>, {t.outOfSpec} out of spec</strong> : ', none out of spec'}
           </Line>
         )}
         {view.dyno && (
@@ -179,8 +175,7 @@ export function BuildSheet({ view, printedOn }: { view: BuildView; printedOn: st
       <SheetLists view={view} />
       <footer className="mt-6 border-t border-rule pt-2 text-sm text-muted print:text-[8pt]">
         Torque values come from the maker&rsquo;s service information; Headroom records them and
-        checks readings against them. Estimates are estimates: ratings are the makers&rsquo;
-        claims.
+        checks readings against them. Estimates are estimates: ratings are the makers&rsquo; claims.
       </footer>
     </article>
   );

@@ -1,17 +1,9 @@
 import type { ReactNode } from 'react';
 import { Flag } from 'lucide-react';
 import type { BuildView } from '../../../../shared/schemas/sharing';
-import {
-  AtAGlance,
-  BenchSection,
-  CrewSection,
-  DynoSection,
-  EstimateSection,
-  InstallSection,
-  PartsSection,
-  PhotosSection,
-  TruckSection,
-} from './public-sections';
+import { AtAGlance } from './at-a-glance';
+import { BenchSection, CrewSection, DynoSection, PhotosSection } from './public-results';
+import { EstimateSection, InstallSection, PartsSection, TruckSection } from './public-sections';
 import { dateText, engineFacts, powerText, vehicleLine } from './view-text';
 
 /** A shared build as a visitor sees it: what its owner chose to show, read-only. */
@@ -53,7 +45,10 @@ export function PublicBuild({ view, actions }: { view: BuildView; actions?: Reac
                 </p>
                 <p className="mt-1 flex flex-wrap items-center gap-x-2 text-ink-2">
                   <span>
-                    Target <strong className="text-ink">{powerText(s.targetPowerHp, s.targetPowerBasis)}</strong>
+                    Target{' '}
+                    <strong className="text-ink">
+                      {powerText(s.targetPowerHp, s.targetPowerBasis)}
+                    </strong>
                   </span>
                   {(s.targetEvent || s.targetDate) && (
                     <span className="inline-flex items-center gap-1.5">

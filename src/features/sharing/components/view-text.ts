@@ -35,7 +35,8 @@ const torqueUnits: Record<string, string> = { 'lbf-ft': 'lbf·ft', 'n-m': 'N·m'
 /** "512 wheel hp at 3,050 rpm" (hp keeps its basis; kW and PS say it after). */
 export function dynoPower(b: ViewDynoBest): string {
   if (b.peakPower === null) return '—';
-  const unit = b.powerUnit === 'hp' ? basisLabel(b.basis) : `${powerUnits[b.powerUnit]} (${b.basis})`;
+  const unit =
+    b.powerUnit === 'hp' ? basisLabel(b.basis) : `${powerUnits[b.powerUnit]} (${b.basis})`;
   const rpm = b.peakPowerRpm !== null ? ` at ${formatNumber(b.peakPowerRpm, 0)} rpm` : '';
   return `${formatNumber(b.peakPower, 0)} ${unit}${rpm}`;
 }
@@ -68,7 +69,10 @@ export const torqueSpecText = (f: ViewFastener) =>
 /** "3 of 8 in spec", or "not read yet". */
 export function readingsText(f: ViewFastener): string {
   if (f.recorded === 0) return 'Not read yet';
-  const out = f.outOfSpec > 0 ? `; ${f.outOfSpec} out of spec (${f.outOfSpecPositions.map((p) => `#${p}`).join(', ')})` : '';
+  const out =
+    f.outOfSpec > 0
+      ? `; ${f.outOfSpec} out of spec (${f.outOfSpecPositions.map((p) => `#${p}`).join(', ')})`
+      : '';
   return `${f.inSpec} of ${f.count} in spec${out}`;
 }
 
@@ -87,3 +91,9 @@ export const roleNames: Record<string, string> = {
   shop: 'Shop',
   viewer: 'Follower',
 };
+
+/** Today on this device, YYYY-MM-DD: the date a sheet is printed. */
+export function todayIso(now = new Date()): string {
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+}
