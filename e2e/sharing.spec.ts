@@ -128,6 +128,12 @@ function pdfPageSizes(pdf: Buffer): { width: number; height: number }[] {
   }));
 }
 
+/** The PDF's title (Chromium writes the page's title into it, as UTF-16 hex). */
+function pdfTitle(pdf: Buffer): string {
+  const hex = /\/Title\s*<FEFF([0-9A-Fa-f]*)>/.exec(pdf.toString('latin1'))?.[1] ?? '';
+  return Buffer.from(hex, 'hex').swap16().toString('utf16le');
+}
+
 // A4 is 210 × 297 mm and US Letter 8.5 × 11 in: 595.3 × 841.9 and 612 × 792 points.
 const paperPoints = { a4: { width: 595.3, height: 841.9 }, letter: { width: 612, height: 792 } };
 
@@ -165,6 +171,7 @@ test('the build sheet prints on A4 and US Letter with the build’s name and wea
     expect(printed).not.toMatch(moneyPattern);
 
     const pdf = await page.pdf({ preferCSSPageSize: true, printBackground: true });
+    expect(pdfTitle(pdf)).toContain(sheet.name);
     const sizes = pdfPageSizes(pdf);
     // The summary, then the lists from a new page.
     expect(sizes.length).toBeGreaterThanOrEqual(2);

@@ -58,7 +58,7 @@ export function BuildSectionLayout() {
           aria-label="Build sections"
           className="-mx-4 mb-5 overflow-x-auto border-b border-rule px-4 sm:mx-0 sm:px-0 print:hidden"
         >
-          <ul className="flex min-w-max gap-1">
+          <ul className="flex min-w-max">
             {visible.map((t) => (
               <li key={t.label}>
                 <NavLink
@@ -66,7 +66,7 @@ export function BuildSectionLayout() {
                   end={t.end}
                   className={({ isActive }) =>
                     cn(
-                      'flex min-h-11 items-center gap-1.5 border-b-[3px] px-3 text-[15px] font-semibold',
+                      'flex min-h-11 items-center gap-1 border-b-[3px] px-2 text-[15px] font-semibold',
                       isActive
                         ? 'border-accent-500 text-ink'
                         : 'border-transparent text-muted hover:text-ink',

@@ -23,9 +23,12 @@ export function AtAGlance({ view }: { view: View }) {
     });
   }
   if (view.estimate?.supported) {
+    // In the target's basis, so the two cards compare at a glance.
+    const basis = view.summary?.targetPowerBasis ?? 'crank';
+    const { crankHp, wheelHp } = view.estimate.supported;
     cards.push({
       label: 'Parts support',
-      value: powerText(view.estimate.supported.crankHp, 'crank'),
+      value: powerText(basis === 'wheel' ? wheelHp : crankHp, basis),
       note: view.estimate.weakestLink ? `limited by ${view.estimate.weakestLink.name}` : undefined,
     });
   }
