@@ -37,7 +37,7 @@ export function AtAGlance({ view }: { view: View }) {
     cards.push({
       label: 'On the truck',
       value: `${on} of ${view.parts.total} parts`,
-      note: `${percent(on, view.parts.total)} %`,
+      note: `${percent(on, view.parts.total)} % installed`,
     });
   }
   if (view.install && view.install.totals.steps > 0) {

@@ -20,17 +20,17 @@ export function PublicBuild({ view, actions }: { view: BuildView; actions?: Reac
     !view.crew;
   return (
     <article className="flex flex-col gap-5">
-      <header className="flex flex-col gap-4">
+      <header className="flex flex-col gap-4 md:flex-row-reverse md:items-start">
         {view.cover && (
           <img
             src={view.cover.webUrl}
             alt={view.cover.caption || view.name}
             width={view.cover.width}
             height={view.cover.height}
-            className="max-h-80 w-full rounded-lg border border-rule object-cover"
+            className="aspect-[4/3] w-full rounded-lg border border-rule object-cover md:w-80 md:shrink-0"
           />
         )}
-        <div className="flex flex-col gap-3 sm:flex-row sm:items-start sm:justify-between">
+        <div className="flex min-w-0 flex-1 flex-col gap-3 sm:flex-row sm:items-start sm:justify-between">
           <div className="min-w-0">
             <p className="text-sm font-semibold tracking-wide text-accent-700 uppercase">
               A build shared on Headroom
