@@ -100,6 +100,18 @@ test('the owner shares a build, a stranger reads it at phone width, a new addres
   await expect(phone.getByText(buildName)).toHaveCount(0);
   expect((await phone.request.get(`/api${firstPath}`)).status()).toBe(404);
 
+  // A link preview reads the HTML the server sends, with no script: the built shell carries
+  // the build's Open Graph tags and asks search engines to keep away.
+  const shell = await phone.request.get(secondPath);
+  expect(shell.status()).toBe(200);
+  expect(shell.headers()['x-robots-tag']).toContain('noindex');
+  expect(shell.headers()['cache-control']).toBe('no-cache');
+  const html = await shell.text();
+  expect(html).toContain(`<meta property="og:title" content="${buildName}" />`);
+  expect(html).toMatch(/<meta name="robots" content="noindex/);
+  expect(html).toContain('<div id="root">');
+  expect(html).not.toContain(vendor);
+
   expect((await phone.goto(secondPath))?.status()).toBe(200);
   await expect(phone.getByRole('heading', { level: 1, name: buildName })).toBeVisible();
 
