@@ -5,6 +5,7 @@
  * on the owner's copy when asked.
  */
 import { expect, test, type Page } from '@playwright/test';
+import sharp from 'sharp';
 import { paths } from '../src/config/paths';
 import { ensureDemo, signedInState } from './demo';
 import { postJson, signUpThroughApi } from './helpers';
@@ -13,6 +14,8 @@ test.describe.configure({ timeout: 120_000 });
 
 const buildName = 'Late Shift Hauler';
 const vendor = 'Backroom Parts Counter';
+const publicCaption = 'Turbo bolted in';
+const privateCaption = 'Receipt from the counter';
 
 /** Money as the sheet and the ledger write it: "$1,234.56". */
 const moneyPattern = /\$\s?\d/;
@@ -36,16 +39,35 @@ test('the owner shares a build, a stranger reads it at phone width, a new addres
     targetPowerHp: 600,
     targetPowerBasis: 'crank',
   });
-  await postJson(api, origin, `/api/builds/${build.id}/parts`, {
-    category: 'turbocharger',
-    name: 'Drop-in turbo',
-    vendor,
-    status: 'installed',
-    unitPriceCents: 184_900,
-    notes: 'paid in two parts',
-    ratingValue: 80,
-    ratingUnit: 'lb-per-min',
-  });
+  const { part } = await postJson<{ part: { id: string } }>(
+    api,
+    origin,
+    `/api/builds/${build.id}/parts`,
+    {
+      category: 'turbocharger',
+      name: 'Drop-in turbo',
+      vendor,
+      status: 'installed',
+      unitPriceCents: 184_900,
+      notes: 'paid in two parts',
+      ratingValue: 80,
+      ratingUnit: 'lb-per-min',
+    },
+  );
+  // Two photos of the turbo: one the owner will mark public, one that stays private.
+  for (const [caption, background] of [
+    [publicCaption, '#3a5a78'],
+    [privateCaption, '#7a3a3a'],
+  ] as const) {
+    const photo = await sharp({ create: { width: 160, height: 120, channels: 3, background } })
+      .jpeg()
+      .toBuffer();
+    const uploaded = await api.post(`/api/builds/${build.id}/parts/${part.id}/photos`, {
+      headers: { Origin: origin },
+      multipart: { caption, photos: { name: 'photo.jpg', mimeType: 'image/jpeg', buffer: photo } },
+    });
+    expect(uploaded.status(), await uploaded.text()).toBe(201);
+  }
   await api.dispose();
 
   const owner = await browser.newContext({ storageState });
@@ -66,6 +88,15 @@ test('the owner shares a build, a stranger reads it at phone width, a new addres
   await expect(address).toHaveValue(/\/shared\/[A-Za-z0-9_-]{43}$/);
   const firstPath = new URL(await address.inputValue()).pathname;
 
+  // Photos stay private until marked: the owner marks one public.
+  const photoSaved = page.waitForResponse(
+    (r) => r.request().method() === 'PUT' && /\/share\/photos\//.test(r.url()),
+  );
+  await page.getByRole('checkbox', { name: `Public: ${publicCaption}` }).check();
+  await photoSaved;
+  await expect(page.getByRole('checkbox', { name: `Public: ${privateCaption}` })).not.toBeChecked();
+  await expect(page.getByRole('radio', { name: `Preview photo: ${publicCaption}` })).toBeChecked();
+
   // A stranger: a fresh browser, no session, a phone's width.
   const stranger = await browser.newContext({ viewport: { width: 390, height: 844 } });
   const phone = await stranger.newPage();
@@ -74,7 +105,10 @@ test('the owner shares a build, a stranger reads it at phone width, a new addres
   await expect(phone.getByRole('heading', { level: 1, name: buildName })).toBeVisible();
   await expect(phone.getByText('Drop-in turbo').first()).toBeVisible();
   await expect(phone.getByRole('heading', { name: 'Power estimate' })).toBeVisible();
+  await expect(phone.getByRole('img', { name: publicCaption }).first()).toBeVisible();
+  await expect(phone.getByRole('img', { name: privateCaption })).toHaveCount(0);
   const text = await phone.locator('main').innerText();
+  expect(text).not.toContain(privateCaption);
   expect(text).not.toMatch(moneyPattern);
   expect(text).not.toContain(vendor);
   expect(text).not.toContain('paid in two parts');

@@ -20,13 +20,31 @@ export async function setPhotoPublic({
   return data.share;
 }
 
+/** The box ticks at once (the settings are updated in the cache) and unticks if the server refuses. */
 export const useSetPhotoPublic = (buildId: string) => {
   const queryClient = useQueryClient();
+  const { queryKey } = getShareQueryOptions(buildId);
   return useMutation({
     mutationFn: (input: { photoId: string; isPublic: boolean }) =>
       setPhotoPublic({ buildId, ...input }),
+    onMutate: async ({ photoId, isPublic }) => {
+      await queryClient.cancelQueries({ queryKey });
+      const before = queryClient.getQueryData(queryKey);
+      if (before) {
+        const others = before.publicPhotoIds.filter((id) => id !== photoId);
+        queryClient.setQueryData(queryKey, {
+          ...before,
+          publicPhotoIds: isPublic ? [...others, photoId] : others,
+          coverPhotoId: !isPublic && before.coverPhotoId === photoId ? null : before.coverPhotoId,
+        });
+      }
+      return { before };
+    },
+    onError: (_error, _input, context) => {
+      if (context?.before) queryClient.setQueryData(queryKey, context.before);
+    },
     onSuccess: (share) => {
-      queryClient.setQueryData(getShareQueryOptions(buildId).queryKey, share);
+      queryClient.setQueryData(queryKey, share);
     },
   });
 };

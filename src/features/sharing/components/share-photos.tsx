@@ -19,7 +19,6 @@ export function SharePhotos({ buildId, share }: { buildId: string; share: ShareS
   const update = useUpdateShare(buildId);
   const isPublic = new Set(share.publicPhotoIds);
   const cover = share.coverPhotoId ?? share.publicPhotoIds[0] ?? null;
-  const busy = (id: string) => mark.isPending && mark.variables?.photoId === id;
 
   return (
     <Section
@@ -75,7 +74,6 @@ export function SharePhotos({ buildId, share }: { buildId: string; share: ShareS
                       type="checkbox"
                       className="size-5 shrink-0 accent-accent-600"
                       checked={isPublic.has(photo.id)}
-                      disabled={busy(photo.id)}
                       aria-label={`Public: ${name}`}
                       onChange={(event) =>
                         mark.mutate({ photoId: photo.id, isPublic: event.target.checked })
