@@ -38,6 +38,7 @@ const parts = (c: PageContext) => b.parts.getHref(c.buildId);
 const install = (c: PageContext) => b.install.getHref(c.buildId);
 const step = (c: PageContext) => b.step.getHref(c.buildId, c.stepId);
 const photos = (c: PageContext) => b.photos.getHref(c.buildId);
+const timeline = (c: PageContext) => b.timeline.getHref(c.buildId);
 
 // prettier-ignore
 export const pages: readonly PageCheck[] = [
@@ -59,6 +60,9 @@ export const pages: readonly PageCheck[] = [
   { name: 'delete-build dialog', path: overview, roles: owner, dialog: { button: 'Delete build', name: /^Delete “/ } },
   { name: 'edit build', path: (c) => b.edit.getHref(c.buildId), roles: owner },
   { name: 'notices', path: (c) => b.notices.getHref(c.buildId), roles: members },
+  { name: 'timeline', path: timeline, roles: members },
+  { name: 'edit-milestone dialog', path: timeline, roles: owner, dialog: { button: /^Change “/, name: 'Change the milestone' } },
+  { name: 'remove-milestone dialog', path: timeline, roles: owner, dialog: { button: /^Remove “/, name: 'Remove this milestone?' } },
 
   { name: 'parts ledger', path: parts, roles: members },
   { name: 'add-part dialog', path: parts, roles: owner, dialog: { button: 'Add part', name: 'Add a part' } },

@@ -6,6 +6,7 @@ import { startMailCatcher, type MailCatcher } from './lib/mail-catcher';
 import { createMailer } from './lib/mailer';
 import { createFileWorker } from './features/files';
 import { createMailWorker } from './features/mail';
+import { createDigestWorker } from './features/timeline';
 import { createStorage, describeStorage } from './lib/stores';
 
 const config = loadConfig();
@@ -48,6 +49,9 @@ mailWorker.start();
 // Files of deleted rows that could not be removed at once are retried here.
 const fileWorker = createFileWorker({ knex: db.knex, storage, logger });
 fileWorker.start();
+// The weekly timeline digest: queued once per member and week, whichever process gets there first.
+const digestWorker = createDigestWorker({ knex: db.knex, logger });
+digestWorker.start();
 
 const server = app.listen(config.port, config.host, () => {
   logger.info(`Headroom is listening on http://${config.host}:${config.port}`);
@@ -67,6 +71,7 @@ async function stop(signal: string) {
   // Queued mail stays in PostgreSQL; a pass under way finishes first.
   await mailWorker.stop();
   await fileWorker.stop();
+  await digestWorker.stop();
   storage.close?.();
   mailer.close();
   await catcher?.close();

@@ -37,6 +37,12 @@ import {
   shareSettingsRouter,
   sharedRouter,
 } from './features/sharing/sharing.router';
+import {
+  calendarFeedRouter,
+  calendarFeedsRouter,
+  milestonesRouter,
+  timelineRouter,
+} from './features/timeline/timeline.router';
 
 /** `anonymous`: served before the session is read (no cookie lookup), e.g. the health check. */
 export type Mount = { path: string; router: Router; anonymous?: boolean };
@@ -48,6 +54,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: '/health', router: healthRouter(deps), anonymous: true },
     // A shared build's public page: no session is read, nothing is writable.
     { path: '/shared', router: sharedRouter(deps), anonymous: true },
+    // Phone calendars fetch a feed with its secret token and no session.
+    { path: '/calendar-feeds', router: calendarFeedsRouter(deps), anonymous: true },
     { path: '/auth/password-reset', router: passwordResetRouter(deps) },
     { path: '/auth', router: authRouter(deps) },
     { path: '/me', router: meRouter() },
@@ -75,6 +83,9 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/dyno-runs`, router: dynoRunsRouter(deps) },
     { path: `${b}/share`, router: shareSettingsRouter(deps) },
     { path: `${b}/sheet`, router: buildSheetRouter(deps) },
+    { path: `${b}/timeline`, router: timelineRouter(deps) },
+    { path: `${b}/milestones`, router: milestonesRouter(deps) },
+    { path: `${b}/calendar-feed`, router: calendarFeedRouter(deps) },
   ];
 }
 

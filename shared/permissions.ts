@@ -63,6 +63,14 @@ export const permissions = {
   'dyno:write': ['owner', 'crew', 'shop'],
   'dyno:assign': ['owner', 'crew'],
   'dyno:delete': ownerOnly,
+  // Timeline. Every member reads it (a shop: the target and the parts sent to it); the owner
+  // sets its buffer, pace and time zone, and keeps the milestones, which shops do not see.
+  'timeline:read': everyone,
+  'timeline:settings': ownerOnly,
+  'milestones:read': ['owner', 'crew', 'viewer'],
+  'milestones:write': ownerOnly,
+  // Each member makes, replaces and stops their own calendar feed.
+  'calendar:own-feed': everyone,
   // Invite by e-mail, list, resend and revoke invitations.
   'invitations:manage': ownerOnly,
   // Each member chooses, for themself only, which notices they receive.

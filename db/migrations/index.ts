@@ -14,6 +14,7 @@ import * as m0050 from './20261202005000_create_file_deletions';
 import * as m0051 from './20261202005100_create_invitation_sends';
 import * as m0060 from './20261202006000_create_bench_sheets';
 import * as m0070 from './20261202007000_create_dyno_sessions';
+import * as m0090 from './20261202009000_create_timeline';
 import * as m0095 from './20261202009500_create_build_shares';
 import * as m0096 from './20261202009600_add_public_to_photos';
 
@@ -39,6 +40,7 @@ const migrations: Record<string, Migration> = {
   '20261202005100_create_invitation_sends': m0051,
   '20261202006000_create_bench_sheets': m0060,
   '20261202007000_create_dyno_sessions': m0070,
+  '20261202009000_create_timeline': m0090,
   '20261202009500_create_build_shares': m0095,
   '20261202009600_add_public_to_photos': m0096,
 };

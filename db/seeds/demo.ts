@@ -9,6 +9,7 @@ import { createLocalDiskStorage, type Storage } from '../../server/lib/storage';
 import { seedBench } from './bench';
 import { seedDyno } from './dyno';
 import { seedInstallLog } from './install-log';
+import { seedTimeline } from './timeline';
 
 export const demoPassword = 'headroom-demo';
 
@@ -70,7 +71,7 @@ function demoParts(): DemoPart[] {
       core_charge_cents: 120_000,
       ordered_on: day(-24),
       sent_out_on: day(-20),
-      turnaround_days: 14,
+      turnaround_days: 21,
       shop: true,
       rating_value: 250,
       rating_unit: 'mm3-per-stroke',
@@ -192,6 +193,20 @@ function demoParts(): DemoPart[] {
       vendor: 'Northgate Fab',
       status: 'planned',
       unit_price_cents: 54_000,
+    },
+    {
+      // The demo's one real threat on the timeline: due two days before the dyno day.
+      category: 'air-intake',
+      name: 'Front-mount intercooler, bar-and-plate',
+      vendor: 'Low Sun Coolers',
+      part_number: 'LSC-FMIC-35',
+      status: 'ordered',
+      unit_price_cents: 124_900,
+      shipping_cents: 8_500,
+      tax_cents: 8_743,
+      ordered_on: day(-5),
+      expected_on: day(169),
+      notes: "Backordered at the maker. The vendor's new date is two days before the dyno day.",
     },
     {
       category: 'air-intake',
@@ -412,6 +427,7 @@ export async function seedDemo(knex: Knex, opts: { storage?: Storage } = {}) {
       target_event: 'Coyote Flats spring dyno day',
       budget_cents: 2_950_000,
       currency: 'USD',
+      time_zone: 'America/Denver',
     })
     .returning('id');
 
@@ -433,5 +449,6 @@ export async function seedDemo(knex: Knex, opts: { storage?: Storage } = {}) {
   await seedInstallLog(knex, { buildId: build.id, userIds: ids }, storage);
   await seedBench(knex, { buildId: build.id, userIds: ids, day }, storage);
   await seedDyno(knex, { buildId: build.id, userIds: ids }, storage);
+  await seedTimeline(knex, { buildId: build.id, userIds: ids, day });
   return { buildId: build.id as string, userIds: ids };
 }

@@ -3,6 +3,7 @@ import { roles } from '../permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
 import { emailSchema } from './auth';
 import { hasAtMostDecimals } from './precision';
+import { timeZoneSchema } from './time-zone';
 
 export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
 import { aspirations, powerBases } from '../builds/vocabulary';
@@ -75,6 +76,8 @@ export const buildFieldsSchema = z.object({
   targetEvent: trimmed(200, 'Event').optional(),
   budgetCents: centsSchema.optional(),
   currency: currencySchema.optional(),
+  /** The IANA zone the build's days are counted in; a new build takes the owner's browser's. */
+  timeZone: timeZoneSchema.optional(),
 });
 
 export const createBuildInputSchema = buildFieldsSchema.strict();
@@ -107,6 +110,8 @@ export type Build = {
   targetEvent: string;
   budgetCents?: number;
   currency: (typeof currencies)[number];
+  /** Null until chosen: the timeline counts in UTC meanwhile. */
+  timeZone: string | null;
   id: string;
   myRole: (typeof roles)[number];
   memberCount: number;

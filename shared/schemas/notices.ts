@@ -8,6 +8,7 @@ export const noticeKinds = [
   'step-signed-off',
   'torque-out-of-spec',
   'bench-sheet-from-shop',
+  'timeline-digest',
 ] as const;
 export type NoticeKind = (typeof noticeKinds)[number];
 
@@ -17,6 +18,7 @@ export const noticeKindLabels: Record<NoticeKind, string> = {
   'step-signed-off': 'Install step signed off',
   'torque-out-of-spec': 'Torque reading out of spec',
   'bench-sheet-from-shop': 'Bench sheet from a shop',
+  'timeline-digest': 'Weekly timeline digest',
 };
 
 export const noticeKindDescriptions: Record<NoticeKind, string> = {
@@ -26,6 +28,18 @@ export const noticeKindDescriptions: Record<NoticeKind, string> = {
   'torque-out-of-spec': 'A torque reading fell outside the spec’s tolerance',
   'bench-sheet-from-shop':
     'A shop added, changed or removed an injector bench sheet (sent to the owner only)',
+  'timeline-digest':
+    'Each Monday morning: the countdown to the target date and what threatens it. Off until you switch it on',
+};
+
+/** Whether a kind is on for a member who never chose: every notice but the weekly digest. */
+export const noticeKindDefaults: Record<NoticeKind, boolean> = {
+  'part-received': true,
+  'part-back-from-shop': true,
+  'step-signed-off': true,
+  'torque-out-of-spec': true,
+  'bench-sheet-from-shop': true,
+  'timeline-digest': false,
 };
 
 /**
@@ -40,13 +54,15 @@ export const noticeAudience: Record<NoticeKind, readonly Role[]> = {
   'torque-out-of-spec': ['owner', 'crew', 'viewer'],
   // The owner checks the shop's work; the shop that acted hears nothing of its own change.
   'bench-sheet-from-shop': ['owner'],
+  // Every role; a shop's digest names only the parts sent to it.
+  'timeline-digest': ['owner', 'crew', 'shop', 'viewer'],
 };
 
 const onOff = z.boolean({ message: 'Choose on or off' });
 
 /**
  * PUT /api/builds/:buildId/notice-preferences: the whole set; a kind left out
- * goes back to its default (on).
+ * goes back to its default (noticeKindDefaults).
  */
 export const noticePreferencesInputSchema = z
   .object({
@@ -55,6 +71,7 @@ export const noticePreferencesInputSchema = z
     'step-signed-off': onOff.optional(),
     'torque-out-of-spec': onOff.optional(),
     'bench-sheet-from-shop': onOff.optional(),
+    'timeline-digest': onOff.optional(),
   } satisfies Record<NoticeKind, z.ZodType>)
   .strict();
 export type NoticePreferencesInput = z.infer<typeof noticePreferencesInputSchema>;

@@ -47,6 +47,10 @@ const EstimateRoute = lazy(() =>
   import('./routes/builds/estimate').then((m) => ({ default: m.EstimateRoute })),
 );
 
+const TimelineRoute = lazy(() =>
+  import('./routes/builds/timeline').then((m) => ({ default: m.TimelineRoute })),
+);
+
 const PartsRoute = lazy(() =>
   import('./routes/builds/parts').then((m) => ({ default: m.PartsRoute })),
 );
@@ -133,6 +137,7 @@ const router = createBrowserRouter([
                       { path: 'install', element: <InstallRoute /> },
                       { path: 'install/steps/:stepId', element: <StepRoute /> },
                       { path: 'photos', element: <PhotosRoute /> },
+                      { path: 'timeline', element: <TimelineRoute /> },
                       { path: 'parts', element: <PartsRoute /> },
                       { path: 'budget', element: <BudgetRoute /> },
                       { path: 'send-outs', element: <SendOutsRoute /> },

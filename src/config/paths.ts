@@ -56,6 +56,7 @@ export const paths = {
       getHref: (buildId: string, partId: string) =>
         `/builds/${encodeURIComponent(buildId)}/parts?part=${encodeURIComponent(partId)}`,
     },
+    timeline: section('timeline'),
     budget: section('budget'),
     sendOuts: section('send-outs'),
     estimate: section('estimate'),

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { noticeKinds } from '../../shared/schemas/notices';
+import { noticeKindDefaults } from '../../shared/schemas/notices';
 import { notify } from '../../server/features/notices/notices.service';
 import { useTestApp } from '../helpers/app';
 import { buildWithCast, addMember, signUp } from '../helpers/factories';
@@ -189,13 +189,14 @@ describe('notify() for other features (install log)', () => {
 });
 
 describe('notice preferences', () => {
-  it('start all on, and each member changes only their own', async () => {
+  it('start all on but the weekly digest, and each member changes only their own', async () => {
     const { owner, crew, shop, viewer, build } = await cast();
     const url = `/api/builds/${build.id}/notice-preferences`;
     for (const m of [owner, crew, shop, viewer]) {
       const res = await m.agent.get(url);
       expect(res.status).toBe(200);
-      expect(res.body.preferences).toEqual(Object.fromEntries(noticeKinds.map((k) => [k, true])));
+      expect(res.body.preferences).toEqual(noticeKindDefaults);
+      expect(res.body.preferences['timeline-digest']).toBe(false);
     }
     const put = await crew.agent
       .put(url)
@@ -207,11 +208,15 @@ describe('notice preferences', () => {
       'step-signed-off': false,
       'torque-out-of-spec': true,
       'bench-sheet-from-shop': true,
+      'timeline-digest': false,
     });
     expect((await crew.agent.get(url)).body.preferences['step-signed-off']).toBe(false);
     expect((await viewer.agent.get(url)).body.preferences['step-signed-off']).toBe(true);
-    // PUT is the whole set: what is left out goes back on.
-    expect((await crew.agent.put(url).send({})).body.preferences['step-signed-off']).toBe(true);
+    // PUT is the whole set: what is left out goes back to its default.
+    const on = await crew.agent.put(url).send({ 'timeline-digest': true });
+    expect(on.body.preferences['timeline-digest']).toBe(true);
+    expect(on.body.preferences['step-signed-off']).toBe(true);
+    expect((await crew.agent.put(url).send({})).body.preferences['timeline-digest']).toBe(false);
   });
 
   it('refuses unknown kinds and values that are not on/off', async () => {

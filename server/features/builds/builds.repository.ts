@@ -21,6 +21,7 @@ const columns = {
   targetEvent: 'target_event',
   budgetCents: 'budget_cents',
   currency: 'currency',
+  timeZone: 'time_zone',
 } as const satisfies Record<keyof CreateBuildInput, string>;
 
 type Row = Record<string, unknown> & {

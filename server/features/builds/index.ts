@@ -1,2 +1,2 @@
 /** The builds feature's public surface. */
-export { get } from './builds.service';
+export { get, update } from './builds.service';

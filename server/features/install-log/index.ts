@@ -13,3 +13,9 @@ export const getVisibleStep = (knex: Knex, buildId: string, rawStepId: string, c
 
 /** The whole log in full, for the build sheet. */
 export { installRecord } from './record';
+/** Each job's steps done and left, and the parts unfinished steps need: for the timeline. */
+export {
+  listJobProgress,
+  listPartsNeededByOpenSteps,
+  type JobProgress,
+} from './progress.repository';

@@ -1,8 +1,18 @@
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/permissions';
-import type { NoticeKind } from '../../../shared/schemas/notices';
+import { noticeKindDefaults, type NoticeKind } from '../../../shared/schemas/notices';
 
 export type Recipient = { user_id: string; email: string; role: Role };
+
+/** A member's choice of a kind: their own row, or the kind's default when they never chose. */
+function chose(knex: Knex, kind: NoticeKind) {
+  const row = knex('notice_preferences as p')
+    .whereRaw('p.build_id = m.build_id and p.user_id = m.user_id')
+    .where({ 'p.kind': kind, 'p.enabled': !noticeKindDefaults[kind] });
+  // Kinds that are on unless switched off, and kinds that are off unless switched on.
+  return (q: Knex.QueryBuilder) =>
+    noticeKindDefaults[kind] ? q.whereNotExists(row) : q.whereExists(row);
+}
 
 /**
  * Members who should hear about a notice: those of the given roles plus the
@@ -22,15 +32,30 @@ export async function recipients(
       if (audience.shopUserId)
         w.orWhere((s) => s.where('m.role', 'shop').andWhere('m.user_id', audience.shopUserId!));
     })
-    .whereNotExists(
-      knex('notice_preferences as p')
-        .whereRaw('p.build_id = m.build_id and p.user_id = m.user_id')
-        .where({ 'p.kind': kind, 'p.enabled': false }),
-    )
+    .modify(chose(knex, kind))
     .orderBy('u.email')
     .select('m.user_id', 'u.email', 'm.role');
   if (audience.actorUserId) q.whereNot('m.user_id', audience.actorUserId);
   return q;
+}
+
+export type Subscriber = Recipient & { build_id: string };
+
+/**
+ * Every member, across builds, who has a kind on, of the roles that hear it: for notices
+ * sent on a schedule (the weekly digest) rather than on a change.
+ */
+export async function subscribers(
+  knex: Knex,
+  kind: NoticeKind,
+  roles: readonly Role[],
+): Promise<Subscriber[]> {
+  return knex('build_members as m')
+    .join('users as u', 'u.id', 'm.user_id')
+    .whereIn('m.role', roles as Role[])
+    .modify(chose(knex, kind))
+    .orderBy([{ column: 'm.build_id' }, { column: 'u.email' }])
+    .select('m.build_id', 'm.user_id', 'u.email', 'm.role');
 }
 
 export async function buildName(knex: Knex, buildId: string): Promise<string | undefined> {
@@ -41,7 +66,7 @@ export async function displayName(knex: Knex, userId: string): Promise<string | 
   return (await knex('users').where({ id: userId }).first('display_name'))?.display_name;
 }
 
-/** The kinds a member switched off or on explicitly; missing kinds are on. */
+/** The kinds a member switched off or on explicitly; missing kinds take their default. */
 export async function preferences(knex: Knex, buildId: string, userId: string) {
   const rows: { kind: string; enabled: boolean }[] = await knex('notice_preferences')
     .where({ build_id: buildId, user_id: userId })

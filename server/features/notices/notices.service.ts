@@ -4,7 +4,7 @@
  * the notice is queued exactly when the change is committed.
  *
  * Rules kept here: each member receives only the kinds they have left on
- * (default: all); the person who acted hears nothing of their own action; a
+ * (default: all but the weekly digest); the person who acted hears nothing of their own action; a
  * shop hears only about what concerns its own parts, when the caller names it; and a
  * notice never carries money — callers must not put any in subject or text.
  */
@@ -12,6 +12,7 @@ import type { Knex } from 'knex';
 import { roleLabels } from '../../../shared/permissions';
 import {
   noticeAudience,
+  noticeKindDefaults,
   noticeKindLabels,
   noticeKinds,
   type NoticeKind,
@@ -68,6 +69,16 @@ export async function notify(
   return people.length;
 }
 
+/** Members who have a kind on, with their build: for notices sent on a schedule. */
+export async function subscribers(knex: Knex, kind: NoticeKind) {
+  return (await repo.subscribers(knex, kind, noticeAudience[kind])).map((s) => ({
+    buildId: s.build_id,
+    userId: s.user_id,
+    email: s.email,
+    role: s.role,
+  }));
+}
+
 /** The name of whoever acted, for a notice's text. */
 export async function actorName(knex: Knex, userId: string | null): Promise<string> {
   return (userId && (await repo.displayName(knex, userId))) || 'Someone';
@@ -78,7 +89,7 @@ export async function getPreferences(
   buildId: string,
   userId: string,
 ): Promise<NoticePreferences> {
-  const prefs = Object.fromEntries(noticeKinds.map((k) => [k, true])) as NoticePreferences;
+  const prefs = { ...noticeKindDefaults } as NoticePreferences;
   for (const row of await repo.preferences(knex, buildId, userId)) {
     if ((noticeKinds as readonly string[]).includes(row.kind))
       prefs[row.kind as NoticeKind] = row.enabled;
@@ -86,14 +97,17 @@ export async function getPreferences(
   return prefs;
 }
 
-/** Replaces the member's choices; a kind left out goes back to on. */
+/** Replaces the member's choices; a kind left out goes back to its default. */
 export async function setPreferences(
   knex: Knex,
   buildId: string,
   userId: string,
   input: NoticePreferencesInput,
 ) {
-  const choices = noticeKinds.map((kind) => ({ kind, enabled: input[kind] !== false }));
+  const choices = noticeKinds.map((kind) => ({
+    kind,
+    enabled: input[kind] ?? noticeKindDefaults[kind],
+  }));
   await repo.savePreferences(knex, buildId, userId, choices);
   return getPreferences(knex, buildId, userId);
 }

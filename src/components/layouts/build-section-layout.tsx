@@ -1,6 +1,7 @@
 import { NavLink, Outlet, useParams } from 'react-router-dom';
 import {
   Activity,
+  CalendarClock,
   Camera,
   ClipboardList,
   Droplets,
@@ -32,6 +33,7 @@ type Tab = {
  */
 const tabs: Tab[] = [
   { label: 'Overview', href: paths.builds.overview.getHref, icon: LayoutDashboard, end: true },
+  { label: 'Timeline', href: paths.builds.timeline.getHref, icon: CalendarClock },
   { label: 'Parts', href: paths.builds.parts.getHref, icon: Package },
   { label: 'Send-outs', href: paths.builds.sendOuts.getHref, icon: Truck },
   { label: 'Budget', href: paths.builds.budget.getHref, icon: PiggyBank, needs: 'budget:read' },
@@ -44,7 +46,10 @@ const tabs: Tab[] = [
   { label: 'Share', href: paths.builds.share.getHref, icon: Share2, needs: 'share:manage' },
 ];
 
-/** Every /builds/:buildId/* page: a row of section tabs over the page. */
+/**
+ * Every /builds/:buildId/* page: a row of section tabs over the page. On a phone the row scrolls
+ * sideways; from tablet width it wraps, so no tab is ever out of sight.
+ */
 export function BuildSectionLayout() {
   const { buildId = '' } = useParams();
   const build = useBuild(buildId);
@@ -58,7 +63,7 @@ export function BuildSectionLayout() {
           aria-label="Build sections"
           className="-mx-4 mb-5 overflow-x-auto border-b border-rule px-4 sm:mx-0 sm:px-0 print:hidden"
         >
-          <ul className="flex min-w-max">
+          <ul className="flex min-w-max sm:min-w-0 sm:flex-wrap">
             {visible.map((t) => (
               <li key={t.label}>
                 <NavLink

@@ -14,6 +14,7 @@ import { DynoProgressSection } from '../../../features/dyno/components/dyno-prog
 import { RoleBadge } from '../../../components/ui/role-badge';
 import { MembersPanel } from '../../../features/members/components/members-panel';
 import { InvitationsPanel } from '../../../features/invitations/components/invitations-panel';
+import { TimelineSummary } from '../../../features/timeline/components/timeline-summary';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { ButtonLink } from '../../../components/ui/button';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -66,6 +67,7 @@ export function BuildOverviewRoute() {
       <div className="grid gap-5 lg:grid-cols-2">
         <div className="flex flex-col gap-5">
           <TargetSection build={b} />
+          <TimelineSummary buildId={b.id} />
           <DynoProgressSection build={b} />
         </div>
         <div className="flex flex-col gap-5">

@@ -3,6 +3,7 @@ import { paths } from '../../../config/paths';
 import { useCreateBuild } from '../../../features/builds/api/create-build';
 import { BuildForm, newBuildDefaults } from '../../../features/builds/components/build-form';
 import { PageHeader } from '../../../components/layouts/page-header';
+import { browserTimeZone } from '../../../lib/time-zone';
 
 /** "/builds/new" — whoever starts a build owns it. */
 export function NewBuildRoute() {
@@ -25,7 +26,8 @@ export function NewBuildRoute() {
         submitLabel="Create build"
         cancelHref={paths.builds.list.getHref()}
         onSubmit={async (values) => {
-          const build = await createBuild.mutateAsync(values);
+          // The build counts its days in the owner's own time zone until they choose another.
+          const build = await createBuild.mutateAsync({ ...values, timeZone: browserTimeZone() });
           navigate(paths.builds.overview.getHref(build.id));
         }}
       />

@@ -35,7 +35,7 @@ export function BuildCard({ build }: { build: Build }) {
             <span className="truncate">{build.targetEvent}</span>
           </span>
         )}
-        <Countdown date={build.targetDate} className="ml-auto" />
+        <Countdown date={build.targetDate} timeZone={build.timeZone} className="ml-auto" />
       </div>
     </article>
   );

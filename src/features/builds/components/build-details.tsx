@@ -7,7 +7,6 @@ import { can } from '../../../../shared/permissions';
 import { formatIsoDate, formatMoney, formatNumber } from '../../../../shared/format';
 import { Section } from '../../../components/ui/card';
 import { paths } from '../../../config/paths';
-import { Countdown } from './countdown';
 import { engineFacts, powerText, vehicleLine } from './build-text';
 
 function Fact({ term, children }: { term: string; children: ReactNode }) {
@@ -92,10 +91,8 @@ export function TargetSection({ build }: { build: Build }) {
         </Fact>
         <Fact term="Target date">
           {build.targetDate ? (
-            <span className="flex flex-wrap items-center gap-2">
-              <time dateTime={build.targetDate}>{formatIsoDate(build.targetDate)}</time>
-              <Countdown date={build.targetDate} />
-            </span>
+            // The countdown is the Timeline card's, counted on the server in the build's zone.
+            <time dateTime={build.targetDate}>{formatIsoDate(build.targetDate)}</time>
           ) : (
             <span className="text-muted">No date set</span>
           )}

@@ -1,12 +1,24 @@
 import { CalendarDays } from 'lucide-react';
-import { countdownLabel, daysUntil } from '../../../../shared/format';
+import { daysBetween, fallbackTimeZone, todayIn } from '../../../../shared/dates';
+import { countdownLabel } from '../../../../shared/format';
 import { Badge } from '../../../components/ui/badge';
 
-/** How far away the target date is: "42 days to go", "Today", "3 days past". */
-export function Countdown({ date, className }: { date: string | null; className?: string }) {
+/**
+ * How far away the target date is: "42 days to go", "Today", "3 days past" — counted from
+ * today in the build's time zone, with the same function as the server's timeline.
+ */
+export function Countdown({
+  date,
+  timeZone,
+  className,
+}: {
+  date: string | null;
+  timeZone: string | null;
+  className?: string;
+}) {
   if (!date) return null;
-  const days = daysUntil(date);
-  if (days === null) return null;
+  const days = daysBetween(todayIn(timeZone ?? fallbackTimeZone), date);
+  if (Number.isNaN(days)) return null;
   const tone = days < 0 ? 'over' : days <= 14 ? 'tight' : 'neutral';
   return (
     <Badge tone={tone} className={className}>

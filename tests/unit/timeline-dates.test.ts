@@ -1,0 +1,84 @@
+/**
+ * The build's calendar: "today" in its time zone and whole-day counts, checked
+ * around America/Denver's spring change of 2027. Source of the zone's rules: the
+ * IANA time zone database (America/Denver: MST, UTC−7; MDT, UTC−6 from 02:00 on
+ * the second Sunday of March — 14 March 2027 — under the US Energy Policy Act of
+ * 2005), as shipped with the JavaScript engine's ICU.
+ */
+import { describe, expect, it } from 'vitest';
+import {
+  addDays,
+  canonicalTimeZone,
+  daysBetween,
+  isIsoDate,
+  isTimeZone,
+  todayIn,
+  wallClock,
+  weekOf,
+} from '../../shared/dates';
+
+const denver = 'America/Denver';
+
+describe("today in the build's time zone", () => {
+  it('is the previous day in Denver until local midnight, before the change (UTC−7)', () => {
+    // IANA tz database: 2027-03-14T06:59:59Z is 23:59:59 MST on 13 March.
+    expect(todayIn(denver, new Date('2027-03-14T06:59:59Z'))).toBe('2027-03-13');
+    expect(todayIn(denver, new Date('2027-03-14T07:00:00Z'))).toBe('2027-03-14');
+    expect(todayIn('UTC', new Date('2027-03-14T06:59:59Z'))).toBe('2027-03-14');
+  });
+
+  it('turns at 06:00 UTC once daylight time has begun (UTC−6)', () => {
+    // IANA tz database: 02:00 MST on 14 March 2027 becomes 03:00 MDT (09:00Z).
+    expect(wallClock(new Date('2027-03-14T08:59:00Z'), denver)).toMatchObject({ hour: 1 });
+    expect(wallClock(new Date('2027-03-14T09:00:00Z'), denver)).toMatchObject({ hour: 3 });
+    expect(todayIn(denver, new Date('2027-03-15T05:59:59Z'))).toBe('2027-03-14');
+    expect(todayIn(denver, new Date('2027-03-15T06:00:00Z'))).toBe('2027-03-15');
+  });
+
+  it('gives the ISO weekday and hour of the wall clock', () => {
+    // 15 March 2027 is a Monday (proleptic Gregorian calendar); 08:00 MDT is 14:00Z.
+    expect(wallClock(new Date('2027-03-15T14:00:00Z'), denver)).toEqual({
+      date: '2027-03-15',
+      hour: 8,
+      minute: 0,
+      weekday: 1,
+    });
+  });
+});
+
+describe('counting days', () => {
+  it('counts whole days across the 23-hour day of the change', () => {
+    expect(daysBetween('2027-03-10', '2027-03-20')).toBe(10);
+    expect(daysBetween('2027-03-14', '2027-03-15')).toBe(1);
+    expect(daysBetween('2027-03-20', '2027-03-13')).toBe(-7);
+    expect(addDays('2027-03-13', 1)).toBe('2027-03-14');
+    expect(addDays('2027-03-20', -7)).toBe('2027-03-13');
+    expect(addDays('2028-02-28', 1)).toBe('2028-02-29');
+  });
+
+  it('names a week by its Monday (ISO 8601 weeks)', () => {
+    expect(weekOf('2027-03-14')).toBe('2027-03-08'); // a Sunday ends the week
+    expect(weekOf('2027-03-15')).toBe('2027-03-15');
+    expect(weekOf('2027-01-01')).toBe('2026-12-28'); // a week across the new year
+  });
+
+  it('knows real calendar dates', () => {
+    expect(isIsoDate('2028-02-29')).toBe(true);
+    expect(isIsoDate('2027-02-29')).toBe(false);
+    expect(isIsoDate('2027-3-1')).toBe(false);
+  });
+});
+
+describe('time zone names', () => {
+  it('takes IANA names and fixes their case from the engine’s list', () => {
+    expect(isTimeZone(denver)).toBe(true);
+    expect(canonicalTimeZone('america/denver')).toBe(denver);
+    expect(canonicalTimeZone('UTC')).toBe('UTC');
+  });
+
+  it('refuses unknown zones, offsets and junk', () => {
+    for (const bad of ['Mars/Olympus', '+01:00', '', 'America/Denver ', 'x'.repeat(80)]) {
+      expect(isTimeZone(bad), bad).toBe(false);
+    }
+  });
+});
