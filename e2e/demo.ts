@@ -6,7 +6,8 @@
  * against the same database) find it by the demo owner's address and reuse it.
  */
 import { request } from '@playwright/test';
-import knexFactory from 'knex';
+import { randomBytes } from 'node:crypto';
+import knexFactory, { type Knex } from 'knex';
 import { knexConfig } from '../db/knexfile';
 import { demoAccounts, demoPassword, seedDemo } from '../db/seeds/demo';
 import type { Role } from '../shared/permissions';
@@ -24,6 +25,8 @@ export type Demo = {
   laterBenchSheetId: string;
   /** The dyno day (not assigned to the demo shop). */
   dynoSessionId: string;
+  /** The address token of the demo build's public page, switched on with one photo public. */
+  shareToken: string;
 };
 
 const demoBuildName = 'Gravel Hauler';
@@ -72,16 +75,38 @@ async function seedOrFind(): Promise<Demo> {
     const session = await knex('dyno_sessions')
       .where({ build_id: build!.id })
       .first<{ id: string }>('id');
+    const shareToken = await shareDemo(knex, build!.id);
     return {
       buildId: build!.id,
       stepId: step.id,
       benchSheetId: sheets[0].id,
       laterBenchSheetId: sheets[sheets.length - 1].id,
       dynoSessionId: session.id,
+      shareToken,
     };
   } finally {
     await knex.destroy();
   }
+}
+
+/**
+ * Switches the demo build's public page on (every section, names hidden) with its oldest photo
+ * public, as the owner would on the Share page; a page already shared keeps its address.
+ */
+async function shareDemo(knex: Knex, buildId: string): Promise<string> {
+  await knex('build_shares')
+    .insert({ build_id: buildId, token: randomBytes(32).toString('base64url'), enabled: true })
+    .onConflict('build_id')
+    .merge({ enabled: true });
+  const photo = await knex('photos')
+    .where({ build_id: buildId })
+    .orderBy('created_at')
+    .first<{ id: string } | undefined>('id');
+  if (photo) await knex('photos').where({ id: photo.id }).update({ is_public: true });
+  const share = await knex('build_shares')
+    .where({ build_id: buildId })
+    .first<{ token: string }>('token');
+  return share.token;
 }
 
 /** Cookies of a demo member signed in through the API, for `browser.newContext({ storageState })`. */

@@ -72,7 +72,7 @@ test('at phone width every section is one tap away and the current one is always
   await owner.goto(`/builds/${build.id}`);
   const nav = owner.getByRole('navigation', { name: 'Build sections' });
   const current = nav.locator('[aria-current="page"]');
-  expect(await expectAllInView(owner)).toBe(11);
+  expect(await expectAllInView(owner)).toBe(13);
   await expect(current).toHaveText('Overview');
 
   // Install, the crew's main section, is one tap from anywhere, and stays marked below it.
@@ -97,19 +97,19 @@ test('at phone width every section is one tap away and the current one is always
   await expect(focused).toHaveText('Send-outs');
   expect(await focused.evaluate((e) => getComputedStyle(e).outlineStyle)).toBe('solid');
 
-  // Room for the sections still to come (sharing and two more): with three more, all
-  // fourteen still fit the phone's width without scrolling.
+  // Room for sections still to come: with three more, all sixteen still fit the phone's
+  // width without scrolling.
   await owner.goto(`/builds/${build.id}`);
   await nav.evaluate((el) => {
     const list = el.querySelector('ul')!;
-    for (const name of ['Sharing', 'Documents', 'Towing']) {
+    for (const name of ['Documents', 'Towing', 'Tuning']) {
       const li = list.lastElementChild!.cloneNode(true) as HTMLElement;
       li.querySelector('span')!.textContent = name;
       li.querySelector('a')!.setAttribute('href', `#${name}`);
       list.appendChild(li);
     }
   });
-  expect(await expectAllInView(owner)).toBe(14);
+  expect(await expectAllInView(owner)).toBe(16);
   await context.close();
 });
 
@@ -136,7 +136,7 @@ test('a viewer at phone width gets every section it may open, whole; a desktop g
   // one marked on its page.
   await viewer.goto(`/builds/${build.id}`);
   const nav = viewer.getByRole('navigation', { name: 'Build sections' });
-  expect(await expectAllInView(viewer)).toBe(10);
+  expect(await expectAllInView(viewer)).toBe(11);
   await expect(nav.getByRole('link', { name: 'Budget' })).toHaveCount(0);
   for (const name of ['Dyno', 'Photos', 'Estimate']) {
     await nav.getByRole('link', { name, exact: true }).tap();
@@ -144,14 +144,14 @@ test('a viewer at phone width gets every section it may open, whole; a desktop g
     await expect(nav.locator('[aria-current="page"]')).toBeInViewport({ ratio: 1 });
   }
 
-  // A desktop: the eleven sections in one row, none cut short, nothing scrolling.
+  // A desktop: the owner's thirteen sections in one row, none cut short, nothing scrolling.
   await owner.goto(`/builds/${build.id}/budget`);
   const wide = owner.getByRole('navigation', { name: 'Build sections' });
   const links = wide.getByRole('link');
-  await expect(links).toHaveCount(11);
+  await expect(links).toHaveCount(13);
   await expect(wide.locator('[aria-current="page"]')).toHaveText('Budget');
   const tops = new Set<number>();
-  for (let i = 0; i < 11; i++) {
+  for (let i = 0; i < 13; i++) {
     tops.add(Math.round((await links.nth(i).boundingBox())!.y));
     const label = links.nth(i).locator('span');
     expect(await label.evaluate((e) => e.scrollWidth <= e.clientWidth)).toBe(true);

@@ -49,6 +49,9 @@ export const pages: readonly PageCheck[] = [
   { name: 'reset password', path: (c) => c.links.reset, roles: guest },
   { name: 'invitation', path: (c) => c.links.invitation, roles: guest },
   { name: 'page not found', path: () => '/no-such-page', roles: guest },
+  { name: 'public build page', path: (c) => paths.shared.page.getHref(c.shareToken), roles: guest },
+  { name: 'public build sheet', path: (c) => paths.shared.sheet.getHref(c.shareToken), roles: guest },
+  { name: 'build not shared', path: () => paths.shared.page.getHref('x'.repeat(43)), roles: guest },
 
   { name: 'builds list', path: () => b.list.getHref(), roles: members },
   { name: 'account', path: () => paths.account.getHref(), roles: members },
@@ -90,6 +93,10 @@ export const pages: readonly PageCheck[] = [
   { name: 'new-dyno-session dialog', path: (c) => b.dyno.getHref(c.buildId), roles: hands, dialog: { button: 'New dyno session', name: 'New dyno session' } },
   // The demo's dyno day is not assigned to the demo shop, which therefore cannot open it.
   { name: 'dyno session', path: (c) => b.dynoSession.getHref(c.buildId, c.dynoSessionId), roles: ['owner', 'crew', 'viewer'] },
+  { name: 'build sheet', path: (c) => b.sheet.getHref(c.buildId), roles: ['owner', 'crew', 'viewer'] },
+  { name: 'build sheet with money', path: (c) => b.sheet.getHref(c.buildId, true), roles: owner },
+  { name: 'share settings', path: (c) => b.share.getHref(c.buildId), roles: owner },
+  { name: 'new-address dialog', path: (c) => b.share.getHref(c.buildId), roles: owner, dialog: { button: 'New address', name: 'Give the page a new address?' } },
   { name: 'edit-dyno-session dialog', path: (c) => b.dynoSession.getHref(c.buildId, c.dynoSessionId), roles: hands, dialog: { button: 'Edit session', name: 'Edit the dyno session' } },
 ];
 

@@ -21,6 +21,7 @@ import { loadSession } from './middleware/require-auth';
 import type { AppDeps } from './lib/deps';
 import { devMailRouter } from './features/mail/dev-mail.router';
 import { findRole } from './features/members';
+import { sharedPageShell } from './features/sharing';
 import { apiRoutes, listRoutes } from './routes';
 
 /** Builds the Express app. Never listens: server/index.ts and the tests do that. */
@@ -107,6 +108,8 @@ export function createApp(opts: {
   const distDir = opts.config.clientDir;
   if (opts.config.serveClient && fs.existsSync(path.join(distDir, 'index.html'))) {
     app.use(express.static(distDir, { index: false, maxAge: '1h' }));
+    // A shared build's page: its link-preview tags written into the shell (previews run no script).
+    app.get(['/shared/:token', '/shared/:token/sheet'], ...sharedPageShell(deps));
     // Client-side routes: every other GET gets the app shell.
     app.get(/.*/, (_req, res) => res.sendFile(path.join(distDir, 'index.html')));
   }

@@ -30,6 +30,12 @@ const envSchema = z.object({
   ACCOUNT_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   /** Open estimates (the landing page's calculator) per client per minute. */
   ESTIMATE_RATE_LIMIT: z.coerce.number().int().min(1).default(120),
+  /**
+   * Public build pages (the HTML and its data) per client address per minute, and their
+   * photos: generous, as a whole event's wifi can be one address.
+   */
+  SHARED_PAGE_RATE_LIMIT: z.coerce.number().int().min(1).default(300),
+  SHARED_PHOTO_RATE_LIMIT: z.coerce.number().int().min(1).default(1200),
   /** Invitation mails one owner may send, and one build may receive, per hour and per day. */
   INVITATIONS_PER_HOUR: z.coerce.number().int().min(1).default(20),
   INVITATIONS_PER_DAY: z.coerce.number().int().min(1).default(50),
@@ -99,6 +105,8 @@ export type AppConfig = {
   authRateLimit: number;
   accountRateLimit: number;
   estimateRateLimit: number;
+  sharedPageRateLimit: number;
+  sharedPhotoRateLimit: number;
   invitationLimits: { perHour: number; perDay: number };
   /** Period of the overdue-at-the-shop pass (parts.overdue.ts). */
   overduePollMs: number;
@@ -171,6 +179,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     authRateLimit: e.AUTH_RATE_LIMIT,
     accountRateLimit: e.ACCOUNT_RATE_LIMIT,
     estimateRateLimit: e.ESTIMATE_RATE_LIMIT,
+    sharedPageRateLimit: e.SHARED_PAGE_RATE_LIMIT,
+    sharedPhotoRateLimit: e.SHARED_PHOTO_RATE_LIMIT,
     invitationLimits: { perHour: e.INVITATIONS_PER_HOUR, perDay: e.INVITATIONS_PER_DAY },
     overduePollMs: e.OVERDUE_POLL_MS,
     rateLimitPrefix: 'rl:',

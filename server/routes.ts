@@ -35,6 +35,11 @@ import { noticePreferencesRouter } from './features/notices/notices.router';
 import { partsCsvRouter, partsRouter } from './features/parts/parts.router';
 import { photosRouter, subjectPhotosRouter } from './features/photos/photos.router';
 import {
+  buildSheetRouter,
+  shareSettingsRouter,
+  sharedRouter,
+} from './features/sharing/sharing.router';
+import {
   calendarFeedRouter,
   calendarFeedsRouter,
   milestonesRouter,
@@ -50,6 +55,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
   const b = '/builds/:buildId';
   return [
     { path: '/health', router: healthRouter(deps), anonymous: true },
+    // A shared build's public page: no session is read, nothing is writable.
+    { path: '/shared', router: sharedRouter(deps), anonymous: true },
     // Phone calendars fetch a feed with its secret token and no session.
     { path: '/calendar-feeds', router: calendarFeedsRouter(deps), anonymous: true },
     { path: '/auth/password-reset', router: passwordResetRouter(deps) },
@@ -80,6 +87,8 @@ export function apiRoutes(deps: AppDeps): Mount[] {
     { path: `${b}/bench-sheets`, router: benchSheetsRouter(deps) },
     { path: `${b}/dyno-sessions`, router: dynoSessionsRouter(deps) },
     { path: `${b}/dyno-runs`, router: dynoRunsRouter(deps) },
+    { path: `${b}/share`, router: shareSettingsRouter(deps) },
+    { path: `${b}/sheet`, router: buildSheetRouter(deps) },
     { path: `${b}/timeline`, router: timelineRouter(deps) },
     { path: `${b}/milestones`, router: milestonesRouter(deps) },
     { path: `${b}/calendar-feed`, router: calendarFeedRouter(deps) },

@@ -77,6 +77,10 @@ export const permissions = {
   'invitations:manage': ownerOnly,
   // Each member chooses, for themself only, which notices they receive.
   'notices:own-preferences': everyone,
+  // The public page: switched on and off, its address renewed, what it shows and which photos.
+  'share:manage': ownerOnly,
+  // The printable build sheet of the whole build. Not a shop: it sees only the parts sent to it.
+  'sheet:read': ['owner', 'crew', 'viewer'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof permissions;

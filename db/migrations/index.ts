@@ -20,6 +20,8 @@ import * as m0082 from './20261202008200_add_step_caution_choices';
 import * as m0083 from './20261202008300_create_part_overdue_notices';
 import * as m0084 from './20261202008400_create_email_changes';
 import * as m0090 from './20261202009000_create_timeline';
+import * as m0095 from './20261202009500_create_build_shares';
+import * as m0096 from './20261202009600_add_public_to_photos';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -49,6 +51,8 @@ const migrations: Record<string, Migration> = {
   '20261202008300_create_part_overdue_notices': m0083,
   '20261202008400_create_email_changes': m0084,
   '20261202009000_create_timeline': m0090,
+  '20261202009500_create_build_shares': m0095,
+  '20261202009600_add_public_to_photos': m0096,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -94,6 +94,19 @@ const DynoRoute = lazy(() =>
 const DynoSessionRoute = lazy(() =>
   import('./routes/builds/dyno-session').then((m) => ({ default: m.DynoSessionRoute })),
 );
+const ShareRoute = lazy(() =>
+  import('./routes/builds/share').then((m) => ({ default: m.ShareRoute })),
+);
+const BuildSheetRoute = lazy(() =>
+  import('./routes/builds/build-sheet').then((m) => ({ default: m.BuildSheetRoute })),
+);
+// A shared build's page and sheet: no sign-in, nothing writable.
+const SharedBuildRoute = lazy(() =>
+  import('./routes/shared/shared-build').then((m) => ({ default: m.SharedBuildRoute })),
+);
+const SharedSheetRoute = lazy(() =>
+  import('./routes/shared/shared-sheet').then((m) => ({ default: m.SharedSheetRoute })),
+);
 
 const router = createBrowserRouter([
   {
@@ -110,6 +123,8 @@ const router = createBrowserRouter([
           { path: paths.auth.resetPassword.path, element: <ResetPasswordRoute /> },
           { path: paths.auth.invite.path, element: <InviteRoute /> },
           { path: paths.auth.confirmEmail.path, element: <ConfirmEmailRoute /> },
+          { path: paths.shared.page.path, element: <SharedBuildRoute /> },
+          { path: paths.shared.sheet.path, element: <SharedSheetRoute /> },
           {
             element: <RequireAuth />,
             children: [
@@ -143,6 +158,8 @@ const router = createBrowserRouter([
                       { path: 'bench/sheets/:sheetId/edit', element: <BenchEntryRoute /> },
                       { path: 'dyno', element: <DynoRoute /> },
                       { path: 'dyno/:sessionId', element: <DynoSessionRoute /> },
+                      { path: 'share', element: <ShareRoute /> },
+                      { path: 'sheet', element: <BuildSheetRoute /> },
                     ],
                   },
                 ],

@@ -32,6 +32,17 @@ export const paths = {
     },
   },
   account: { path: '/account', getHref: () => '/account' },
+  /** A build's public page and its printable sheet: no sign-in needed. */
+  shared: {
+    page: {
+      path: '/shared/:token',
+      getHref: (token: string) => `/shared/${encodeURIComponent(token)}`,
+    },
+    sheet: {
+      path: '/shared/:token/sheet',
+      getHref: (token: string) => `/shared/${encodeURIComponent(token)}/sheet`,
+    },
+  },
   builds: {
     list: { path: '/builds', getHref: () => '/builds' },
     new: { path: '/builds/new', getHref: () => '/builds/new' },
@@ -89,6 +100,14 @@ export const paths = {
       },
     },
     dyno: section('dyno'),
+    /** The owner's sharing settings: the public page's switch, what it shows, its photos. */
+    share: section('share'),
+    /** The printable build sheet (its own layout, for paper). */
+    sheet: {
+      path: '/builds/:buildId/sheet',
+      getHref: (buildId: string, money = false) =>
+        `/builds/${encodeURIComponent(buildId)}/sheet${money ? '?money=1' : ''}`,
+    },
     dynoSession: {
       path: '/builds/:buildId/dyno/:sessionId',
       getHref: (buildId: string, sessionId: string, search = '') =>

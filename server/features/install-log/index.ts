@@ -11,6 +11,8 @@ export const visibleSteps = (knex: Knex, buildId: string, caller: Caller) =>
 export const getVisibleStep = (knex: Knex, buildId: string, rawStepId: string, caller: Caller) =>
   loadStep({ knex, buildId, caller }, rawStepId);
 
+/** The whole log in full, for the build sheet. */
+export { installRecord } from './record';
 /** Each job's steps done and left, and the parts unfinished steps need: for the timeline. */
 export {
   listJobProgress,

@@ -1,2 +1,2 @@
 /** The members feature's public surface. */
-export { addMember, findRole } from './members.service';
+export { addMember, anOwnerId, findRole, names } from './members.service';

@@ -65,3 +65,17 @@ export const findRole = (knex: Knex, buildId: string, userId: string) =>
 /** Adds a member inside the caller's transaction; false when they already are one. */
 export const addMember = (knex: Knex, buildId: string, userId: string, role: Role) =>
   repo.insertMember(knex, buildId, userId, role);
+
+/** An owner of the build, or undefined when the build does not exist. */
+export async function anOwnerId(knex: Knex, buildId: string): Promise<string | undefined> {
+  const owner = (await repo.listMembers(knex, buildId)).find((m) => m.role === 'owner');
+  return owner?.userId;
+}
+
+/** Names and roles only, for a page that shows who is on the build (never their e-mail). */
+export async function names(knex: Knex, buildId: string) {
+  return (await repo.listMembers(knex, buildId)).map((m) => ({
+    name: m.displayName,
+    role: m.role,
+  }));
+}

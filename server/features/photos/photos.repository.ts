@@ -170,3 +170,29 @@ export async function updateCaption(knex: Knex, photoId: string, caption: string
 export async function deletePhoto(knex: Knex, photoId: string) {
   return knex('photos').where({ id: photoId }).delete();
 }
+
+// ---------------------------------------------------------------- public photos (sharing)
+
+/** The build's photos the owner marked public, oldest first (the order of the work). */
+export async function listPublicPhotos(knex: Knex, buildId: string) {
+  const rows: PhotoRow[] = await base(knex, buildId)
+    .where('ph.is_public', true)
+    .orderBy([{ column: 'ph.created_at' }, { column: 'ph.id' }]);
+  return rows.map(toPhoto);
+}
+
+/** A photo of the build, only when it is marked public. */
+export async function findPublicPhoto(knex: Knex, buildId: string, photoId: string) {
+  const row: PhotoRow | undefined = await base(knex, buildId)
+    .where({ 'ph.id': photoId, 'ph.is_public': true })
+    .first();
+  return row ? toPhoto(row) : undefined;
+}
+
+/** Marks a photo of the build public or private; false when there is no such photo. */
+export async function setPublic(knex: Knex, buildId: string, photoId: string, isPublic: boolean) {
+  const changed = await knex('photos')
+    .where({ id: photoId, build_id: buildId })
+    .update({ is_public: isPublic, updated_at: knex.fn.now() });
+  return changed > 0;
+}

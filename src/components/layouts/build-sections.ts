@@ -15,6 +15,8 @@ import {
   LayoutDashboard,
   Package,
   PiggyBank,
+  Printer,
+  Share2,
   Truck,
   type LucideIcon,
 } from 'lucide-react';
@@ -44,4 +46,7 @@ export const buildSections: BuildSection[] = [
   { label: 'Photos', href: paths.builds.photos.getHref, icon: Camera },
   { label: 'Dyno', href: paths.builds.dyno.getHref, icon: Activity },
   { label: 'Notices', href: paths.builds.notices.getHref, icon: BellRing },
+  // The printable sheet (not for a shop) and the public page's settings (the owner's).
+  { label: 'Build sheet', href: paths.builds.sheet.getHref, icon: Printer, needs: 'sheet:read' },
+  { label: 'Share', href: paths.builds.share.getHref, icon: Share2, needs: 'share:manage' },
 ];

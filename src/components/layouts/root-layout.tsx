@@ -38,7 +38,7 @@ function Header() {
     pathname === paths.auth.signUp.path;
   const user = me.data;
   return (
-    <header className="bg-ink text-white">
+    <header className="bg-ink text-white print:hidden">
       <div className="mx-auto flex min-h-16 max-w-5xl items-center justify-between gap-3 px-4">
         <Link
           to={user ? paths.builds.list.getHref() : paths.home.getHref()}
@@ -94,7 +94,10 @@ export function RootLayout() {
         Skip to content
       </a>
       <Header />
-      <main id="main" className="mx-auto w-full max-w-5xl flex-1 px-4 py-6 sm:py-8">
+      <main
+        id="main"
+        className="mx-auto w-full max-w-5xl flex-1 px-4 py-6 sm:py-8 print:max-w-none print:p-0"
+      >
         <Suspense fallback={<PageSpinner />}>
           <Outlet />
         </Suspense>

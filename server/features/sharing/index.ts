@@ -1,0 +1,2 @@
+/** The sharing feature's public surface: the public page's HTML shell, mounted by the app. */
+export { sharedPageShell } from './sharing.shell';
