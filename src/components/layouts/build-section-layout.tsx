@@ -21,7 +21,7 @@ export function BuildSectionLayout() {
   return (
     <>
       {build.isSuccess && (
-        <nav aria-label="Build sections" className="mb-5 border-b border-rule pb-3">
+        <nav aria-label="Build sections" className="mb-5 border-b border-rule pb-3 print:hidden">
           <ul className="grid grid-cols-4 gap-1.5 sm:grid-cols-6 lg:auto-cols-fr lg:grid-flow-col lg:grid-cols-none">
             {visible.map((s) => (
               <li key={s.label} className="min-w-0">

@@ -47,6 +47,6 @@ export const buildSections: BuildSection[] = [
   { label: 'Dyno', href: paths.builds.dyno.getHref, icon: Activity },
   { label: 'Notices', href: paths.builds.notices.getHref, icon: BellRing },
   // The printable sheet (not for a shop) and the public page's settings (the owner's).
-  { label: 'Build sheet', href: paths.builds.sheet.getHref, icon: Printer, needs: 'sheet:read' },
+  { label: 'Sheet', href: paths.builds.sheet.getHref, icon: Printer, needs: 'sheet:read' },
   { label: 'Share', href: paths.builds.share.getHref, icon: Share2, needs: 'share:manage' },
 ];
