@@ -8,7 +8,7 @@ import { createLocalDiskStorage } from '../../server/lib/storage';
 import { addDays, todayIn } from '../../shared/dates';
 import type { Timeline } from '../../shared/schemas/timeline';
 import { useTestApp } from '../helpers/app';
-import { buildWithCast, createBuild, moneyKeys, signUp } from '../helpers/factories';
+import { addMember, buildWithCast, createBuild, moneyKeys, signUp } from '../helpers/factories';
 
 const app = useTestApp();
 
@@ -23,10 +23,7 @@ async function scenario() {
   const { owner, shop, build } = cast;
   const base = `/api/builds/${build.id}`;
   const otherShop = await signUp(app, 'othershop');
-  await owner.agent
-    .post(`${base}/members`)
-    .send({ email: otherShop.email, role: 'shop' })
-    .expect(201);
+  await addMember(owner, build.id, otherShop, 'shop');
   const today = todayIn('America/Denver');
   const day = (n: number) => addDays(today, n);
   await owner.agent
