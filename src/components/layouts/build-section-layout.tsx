@@ -22,7 +22,7 @@ export function BuildSectionLayout() {
     <>
       {build.isSuccess && (
         <nav aria-label="Build sections" className="mb-5 border-b border-rule pb-3 print:hidden">
-          <ul className="grid grid-cols-4 gap-1.5 sm:grid-cols-6 lg:auto-cols-fr lg:grid-flow-col lg:grid-cols-none">
+          <ul className="grid grid-cols-4 gap-1.5 sm:grid-cols-6 lg:auto-cols-fr lg:gap-1 lg:grid-flow-col lg:grid-cols-none">
             {visible.map((s) => (
               <li key={s.label} className="min-w-0">
                 <NavLink
@@ -30,7 +30,7 @@ export function BuildSectionLayout() {
                   end={s.end}
                   className={({ isActive }) =>
                     cn(
-                      'flex min-h-12 flex-col items-center justify-center gap-0.5 rounded-md border px-1 py-1 text-center text-[13px] leading-tight font-semibold sm:text-sm',
+                      'flex min-h-12 flex-col items-center justify-center gap-0.5 rounded-md border px-1 py-1 text-center text-[13px] leading-tight font-semibold sm:text-sm lg:px-0.5 lg:text-[13px]',
                       isActive
                         ? 'border-ink bg-ink text-white'
                         : 'border-rule bg-sheet text-ink-2 hover:border-rule-strong hover:text-ink',
