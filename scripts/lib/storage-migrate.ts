@@ -92,19 +92,28 @@ export async function migrateStorage(opts: {
     }
   };
 
-  let next = 0;
-  const worker = async () => {
-    while (next < keys.length) {
-      const key = keys[next++];
-      try {
-        await one(key);
-      } catch (err) {
-        const error = err instanceof Error ? err.message : String(err);
-        report.failed.push({ key, error });
-        log(`FAILED ${key}: ${error}`);
+  // A failure may be passing (a dropped connection, a store busy for a moment): every key
+  // that failed is tried once more, one at a time, before it is reported.
+  const failed: string[] = [];
+  const attempt = async (key: string, last: boolean) => {
+    try {
+      await one(key);
+    } catch (err) {
+      const error = err instanceof Error ? err.message : String(err);
+      if (!last) {
+        failed.push(key);
+        log(`retrying later ${key}: ${error}`);
+        return;
       }
+      report.failed.push({ key, error });
+      log(`FAILED ${key}: ${error}`);
     }
   };
+  let next = 0;
+  const worker = async () => {
+    while (next < keys.length) await attempt(keys[next++], false);
+  };
   await Promise.all(Array.from({ length: Math.max(1, opts.concurrency ?? 4) }, worker));
+  for (const key of failed.sort()) await attempt(key, true);
   return report;
 }

@@ -104,7 +104,7 @@ describe('storage:migrate', () => {
   it('removes local files only when asked, and only those whose copy reads back whole', async () => {
     const { local, files } = await localStore('m3');
     const report = await migrateStorage({ from: local, to: store, removeLocal: true });
-    expect(report.removed.sort()).toEqual(Object.keys(files).sort());
+    expect(report.removed.sort(), JSON.stringify(report.failed)).toEqual(Object.keys(files).sort());
     const left: string[] = [];
     for await (const k of local.list()) left.push(k);
     expect(left).toEqual([]);
@@ -119,6 +119,26 @@ describe('storage:migrate', () => {
     let count = 0;
     for await (const _ of other.list()) count++;
     expect(count).toBe(4);
+  });
+
+  it('tries a failed copy once more before reporting it', async () => {
+    const { local, files } = await localStore('retry');
+    // A store whose first write of each key is refused, as a busy store's might be.
+    const refused = new Set<string>();
+    const flaky = {
+      ...store,
+      put: async (key: string, body: Buffer, type: string) => {
+        if (!refused.has(key)) {
+          refused.add(key);
+          throw new Error('store busy');
+        }
+        return store.put(key, body, type);
+      },
+    };
+    const report = await migrateStorage({ from: local, to: flaky, removeLocal: true });
+    expect(report.failed).toEqual([]);
+    expect(report.copied.sort()).toEqual(Object.keys(files).sort());
+    expect(report.removed.sort()).toEqual(Object.keys(files).sort());
   });
 
   it('stores each file with the type its extension names', () => {
