@@ -1,5 +1,11 @@
 import { expect, test } from '@playwright/test';
-import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
+import {
+  inviteFromOverview,
+  password,
+  signInThroughPage,
+  signUpThroughPage,
+  uniqueEmail,
+} from './helpers';
 import { linkTo, waitForMail } from './mail';
 
 test('an owner signs up, starts a build, invites crew; the crew member sees it without money', async ({
@@ -33,10 +39,7 @@ test('an owner signs up, starts a build, invites crew; the crew member sees it w
 
   // One way to add people: an invitation by e-mail, whether or not they have an account.
   await expect(page.getByRole('form', { name: 'Add someone' })).toHaveCount(0);
-  await page.getByLabel('Address to invite').fill(crewEmail);
-  await page.getByLabel('Invite as').selectOption('crew');
-  await page.getByRole('button', { name: 'Send invitation' }).click();
-  await expect(page.getByText(`Invitation sent to ${crewEmail}`)).toBeVisible();
+  await inviteFromOverview(page, crewEmail, 'crew');
   const buildUrl = page.url();
   const mail = await waitForMail(page.request, crewEmail, /invited to a build on Headroom/);
   await ownerContext.close();

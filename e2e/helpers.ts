@@ -46,3 +46,18 @@ export async function signUpThroughApi(baseURL: string, displayName: string, pre
   await postJson(api, baseURL, '/api/auth/sign-up', { email, password, displayName });
   return { api, email, storageState: await api.storageState() };
 }
+
+/**
+ * The owner invites someone from the build's overview: opens the dialog, sends, waits for the
+ * confirmation and closes it again.
+ */
+export async function inviteFromOverview(page: Page, email: string, role: string) {
+  await page.getByRole('button', { name: 'Invite someone' }).click();
+  const dialog = page.getByRole('dialog', { name: 'Invite someone' });
+  await dialog.getByLabel('Address to invite').fill(email);
+  await dialog.getByLabel('Invite as').selectOption(role);
+  await dialog.getByRole('button', { name: 'Send invitation' }).click();
+  await expect(dialog.getByText(`Invitation sent to ${email}`)).toBeVisible();
+  await dialog.getByRole('button', { name: 'Close' }).click();
+  await expect(dialog).toBeHidden();
+}

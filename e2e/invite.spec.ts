@@ -1,5 +1,11 @@
 import { expect, test, type Page } from '@playwright/test';
-import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
+import {
+  inviteFromOverview,
+  password,
+  signInThroughPage,
+  signUpThroughPage,
+  uniqueEmail,
+} from './helpers';
 import { linkTo, waitForMail } from './mail';
 
 async function startBuild(page: Page, name: string) {
@@ -13,10 +19,7 @@ async function startBuild(page: Page, name: string) {
 }
 
 async function invite(page: Page, email: string, role: string) {
-  await page.getByLabel('Address to invite').fill(email);
-  await page.getByLabel('Invite as').selectOption(role);
-  await page.getByRole('button', { name: 'Send invitation' }).click();
-  await expect(page.getByText(`Invitation sent to ${email}`)).toBeVisible();
+  await inviteFromOverview(page, email, role);
   await expect(
     page.getByRole('list', { name: 'Pending invitations' }).getByText(email),
   ).toBeVisible();

@@ -208,13 +208,14 @@ test('the overview shows every role what happened lately, without money, and one
   await expect(lately.getByText('Today')).toBeVisible();
   expect(await viewer.locator('body').innerText()).not.toMatch(/\$|649|18,000/);
   // No way for a viewer to add anyone.
-  await expect(viewer.getByRole('button', { name: 'Send invitation' })).toHaveCount(0);
+  await expect(viewer.getByRole('button', { name: 'Invite someone' })).toHaveCount(0);
 
   // The owner has exactly one way to add people: the invitation by e-mail.
   await owner.goto(`/builds/${build.id}`);
   await expect(owner.getByRole('heading', { name: 'Invite by e-mail' })).toBeVisible();
   await expect(owner.getByRole('form', { name: 'Add someone' })).toHaveCount(0);
   await expect(owner.getByRole('button', { name: 'Add member' })).toHaveCount(0);
+  await owner.getByRole('button', { name: 'Invite someone' }).click();
   await expect(owner.getByRole('form', { name: 'Send an invitation' })).toHaveCount(1);
   await ownerContext.close();
   await viewerContext.close();

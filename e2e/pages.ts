@@ -57,6 +57,7 @@ export const pages: readonly PageCheck[] = [
   { name: 'account', path: () => paths.account.getHref(), roles: members },
   { name: 'new build', path: () => b.new.getHref(), roles: members },
   { name: 'overview and members', path: overview, roles: members },
+  { name: 'invite dialog', path: overview, roles: owner, dialog: { button: 'Invite someone', name: 'Invite someone' } },
   { name: 'remove-member dialog', path: overview, roles: owner, dialog: { button: /^Remove /, name: /^Remove / } },
   { name: 'delete-build dialog', path: overview, roles: owner, dialog: { button: 'Delete build', name: /^Delete “/ } },
   { name: 'edit build', path: (c) => b.edit.getHref(c.buildId), roles: owner },

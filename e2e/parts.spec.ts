@@ -1,6 +1,12 @@
 import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
-import { password, signInThroughPage, signUpThroughPage, uniqueEmail } from './helpers';
+import {
+  inviteFromOverview,
+  password,
+  signInThroughPage,
+  signUpThroughPage,
+  uniqueEmail,
+} from './helpers';
 import { linkTo, waitForMail } from './mail';
 
 type NewPart = { name: string; category: string; status: string; price: string };
@@ -47,9 +53,7 @@ test('the owner builds a ledger, moves a part in its row and the budget follows;
   await expect(page.getByRole('heading', { level: 1, name: 'Salt Flat Shuttle' })).toBeVisible();
 
   // The crew member joins through an invitation, the one way in.
-  await page.getByLabel('Address to invite').fill(crewEmail);
-  await page.getByLabel('Invite as').selectOption('crew');
-  await page.getByRole('button', { name: 'Send invitation' }).click();
+  await inviteFromOverview(page, crewEmail, 'crew');
   const mail = await waitForMail(page.request, crewEmail, /invited to a build on Headroom/);
   const crewJoin = await browser.newContext();
   const joinPage = await crewJoin.newPage();

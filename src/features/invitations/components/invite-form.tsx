@@ -69,6 +69,8 @@ export function InviteForm({ buildId }: { buildId: string }) {
               {...c}
               {...register('email')}
               type="email"
+              // Opened in a dialog for this one thing: the address is what comes first.
+              autoFocus
               autoComplete="off"
               inputMode="email"
               placeholder="name@example.com"
