@@ -72,6 +72,8 @@ for (const viewport of widths) {
       let ctx: PageContext;
 
       test.beforeAll(async ({ browser }, testInfo) => {
+        // Seeding the demo and waiting for two mails can outlast one test's minute.
+        test.setTimeout(180_000);
         const baseURL = testInfo.project.use.baseURL!;
         const demo = await ensureDemo();
         // Only signed-out pages need the mailed links; one pair serves both widths.

@@ -12,7 +12,11 @@ export type CaughtMail = {
   links: string[];
 };
 
-/** Waits (the server's worker polls every 200 ms here) for the newest mail to `to` whose subject matches. */
+/**
+ * Waits (the server's worker polls every 200 ms here) for the newest mail to `to` whose subject
+ * matches. A ceiling, not a speed check: one CI run's first mail, sent while the demo was being
+ * seeded at the start of the run, took longer than 15 s to arrive.
+ */
 export async function waitForMail(
   request: APIRequestContext,
   to: string,
@@ -29,7 +33,7 @@ export async function waitForMail(
         );
         return Boolean(found);
       },
-      { message: `a mail to ${to} with subject ${subject}`, timeout: 15_000 },
+      { message: `a mail to ${to} with subject ${subject}`, timeout: 45_000 },
     )
     .toBe(true);
   return found!;
