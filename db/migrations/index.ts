@@ -22,6 +22,8 @@ import * as m0084 from './20261202008400_create_email_changes';
 import * as m0090 from './20261202009000_create_timeline';
 import * as m0095 from './20261202009500_create_build_shares';
 import * as m0096 from './20261202009600_add_public_to_photos';
+import * as m0100 from './20261203010000_create_idempotency_keys';
+import * as m0101 from './20261203010100_add_reading_taken_at';
 
 type Migration = { up: (knex: Knex) => Promise<void>; down: (knex: Knex) => Promise<void> };
 
@@ -53,6 +55,8 @@ const migrations: Record<string, Migration> = {
   '20261202009000_create_timeline': m0090,
   '20261202009500_create_build_shares': m0095,
   '20261202009600_add_public_to_photos': m0096,
+  '20261203010000_create_idempotency_keys': m0100,
+  '20261203010100_add_reading_taken_at': m0101,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -262,6 +262,26 @@ export const createReadingInputSchema = z
       .min(1, { message: 'Stages start at 1' })
       .max(10, { message: 'At most 10 stages' })
       .optional(),
+    /**
+     * When the reading was taken on the device, for one sent late from the offline queue:
+     * at most a couple of minutes ahead of the server's clock and no older than a queued
+     * write may wait (the service checks both). Left out: taken as it arrives.
+     */
+    takenAt: z.iso.datetime({ offset: true, message: 'A date and time' }).optional(),
+    /**
+     * The fastener's target as the device saw it when the reading was taken: a reading
+     * sent late is refused (409) when the target has changed since, rather than judged
+     * against a target the crew never saw.
+     */
+    expectedTarget: z
+      .object({
+        targetValue: z.number({ message: 'A number' }),
+        targetUnit: z.enum(torqueUnits, { message: 'Choose lbf·ft, lbf·in or N·m' }),
+        toleranceType: z.enum(toleranceTypes, { message: 'Choose ± amount or ± %' }),
+        toleranceValue: z.number({ message: 'A number' }),
+      })
+      .strict()
+      .optional(),
   })
   .strict();
 export type CreateReadingInput = z.infer<typeof createReadingInputSchema>;
@@ -312,7 +332,10 @@ export type TorqueReading = {
   calibration: Calibration | null;
   note: string;
   recordedBy: Person | null;
+  /** When it reached the server. */
   recordedAt: string;
+  /** When it was taken on the device (the same as recordedAt unless it was sent late). */
+  takenAt: string;
   /** Set when a later reading for the same position replaced this one. */
   supersededById: string | null;
   supersededAt: string | null;

@@ -21,6 +21,7 @@ import { presentReading, presentSpec } from './fasteners.present';
 import * as repo from './fasteners.repository';
 import { notifyTorqueOutOfSpec } from './install-log.notices';
 import { lockOrdering } from './ordering.repository';
+import { checkTakenAt, checkTargetUnchanged } from './late-readings';
 import * as readingsRepo from './readings.repository';
 import * as stepsRepo from './steps.repository';
 
@@ -189,6 +190,7 @@ export async function recordReading(
     );
   }
   checkStage(spec, input);
+  const takenAt = checkTakenAt(input.takenAt);
   const kind = input.retorque ? 'retorque' : 'install';
   if (kind === 'retorque' && !asksRetorque(spec)) {
     throw new ValidationError('This fastener asks for no re-torque check', {
@@ -206,6 +208,9 @@ export async function recordReading(
         'Re-torque checks come after the step is signed off',
       );
     }
+    if (input.expectedTarget) {
+      await checkTargetUnchanged(trx, buildId, spec.id, input.expectedTarget);
+    }
     const result = await readingsRepo.insertReading(trx, {
       specId: spec.id,
       position: input.position,
@@ -219,6 +224,7 @@ export async function recordReading(
       wrenchCalibrationDueOn: wrench.dueOn,
       note: input.note ?? '',
       userId: caller.userId,
+      takenAt,
     });
     if (kind === 'install') await stepsRepo.markUnderWay(trx, step.id);
     const { verdict } = judgeTorque(input, spec);

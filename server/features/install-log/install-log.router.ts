@@ -14,6 +14,7 @@ import {
 } from '../../../shared/schemas/install-log';
 import type { AppDeps } from '../../lib/deps';
 import { ValidationError } from '../../lib/errors';
+import { idempotentScoped } from '../../lib/idempotency';
 import { param, scoped } from '../../lib/scope';
 import { validate } from '../../middleware/validate';
 import * as checklist from './checklist.service';
@@ -161,7 +162,10 @@ export function checklistRouter(deps: AppDeps) {
   return router;
 }
 
-/** Mounted at /api/builds/:buildId/fasteners. Readings are never edited: a new one supersedes the current one. */
+/**
+ * Mounted at /api/builds/:buildId/fasteners. Readings are never edited: a new one supersedes
+ * the current one. Recording one takes an Idempotency-Key (the offline queue sends it).
+ */
 export function fastenersRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
   const { read, write, remove, knex } = access(deps);
@@ -188,7 +192,7 @@ export function fastenersRouter(deps: AppDeps) {
     '/:specId/readings',
     write,
     validate({ body: createReadingInputSchema }),
-    scoped(knex, (s, req) => fasteners.recordReading(s, id(req), req.body), 201),
+    idempotentScoped(knex, (s, req) => fasteners.recordReading(s, id(req), req.body)),
   );
   return router;
 }

@@ -19,6 +19,7 @@ type ReadingRow = {
   recorded_by: string | null;
   recorded_by_name: string | null;
   recorded_at: Date;
+  taken_at: Date | null;
   superseded_by_id: string | null;
   superseded_at: Date | null;
 };
@@ -41,12 +42,14 @@ function toReading(r: ReadingRow) {
             dueOn: r.wrench_calibration_due_on,
             overdue:
               r.wrench_calibration_due_on != null &&
-              r.recorded_at.toISOString().slice(0, 10) > r.wrench_calibration_due_on,
+              (r.taken_at ?? r.recorded_at).toISOString().slice(0, 10) >
+                r.wrench_calibration_due_on,
           }
         : null,
     note: r.note,
     recordedBy: person(r.recorded_by, r.recorded_by_name),
     recordedAt: r.recorded_at.toISOString(),
+    takenAt: (r.taken_at ?? r.recorded_at).toISOString(),
     supersededById: r.superseded_by_id,
     supersededAt: iso(r.superseded_at),
   };
@@ -96,6 +99,8 @@ export async function insertReading(
     wrenchCalibrationDueOn: string | null;
     note: string;
     userId: string;
+    /** Device time of a reading sent late; null when taken as it arrives. */
+    takenAt: string | null;
   },
 ) {
   // Mark the old one first: the unique index allows one current reading at a time.
@@ -121,6 +126,7 @@ export async function insertReading(
       wrench_calibration_due_on: input.wrenchCalibrationDueOn,
       note: input.note,
       recorded_by: input.userId,
+      taken_at: input.takenAt,
     })
     .returning('id');
   if (previous.length) {

@@ -1,3 +1,5 @@
+import { createHash } from 'node:crypto';
+import { createReadStream } from 'node:fs';
 import fs from 'node:fs/promises';
 import { Router, type Request, type RequestHandler } from 'express';
 import multer from 'multer';
@@ -9,6 +11,7 @@ import {
   type PhotoSize,
 } from '../../../shared/schemas/photos';
 import type { AppDeps } from '../../lib/deps';
+import { answerOnce } from '../../lib/idempotency';
 import { sendStoredFile } from '../../lib/stored-file';
 import { receiveUpload } from '../../lib/uploads';
 import { assertNoNul, validate } from '../../middleware/validate';
@@ -39,6 +42,17 @@ function receivePhotos(deps: AppDeps): RequestHandler {
           ? `Send up to ${maxPhotosPerUpload} photos at a time in the "${photoUploadField}" field`
           : `The upload was refused: ${err.message}`,
   }));
+}
+
+/** The uploaded files' contents, for telling a repeat of an upload from another upload. */
+async function filesDigest(files: { path: string }[]) {
+  const hashes: string[] = [];
+  for (const f of files) {
+    const hash = createHash('sha256');
+    for await (const chunk of createReadStream(f.path)) hash.update(chunk as Buffer);
+    hashes.push(hash.digest('hex'));
+  }
+  return hashes.join(',');
 }
 
 async function removeTemp(req: Request) {
@@ -132,15 +146,24 @@ export function subjectPhotosRouter(deps: AppDeps, subject: 'stepId' | 'partId')
       assertNoNul(req.body);
       const fields = uploadPhotoFieldsSchema.parse({ ...req.body });
       const files = (Array.isArray(req.files) ? req.files : []) as service.UploadedFile[];
-      const photos = await service.upload(
-        ctx,
-        build(req),
-        caller(req),
-        target(req),
-        files,
-        fields.caption ?? '',
+      // With an Idempotency-Key (the offline queue), the same photos sent twice are stored once.
+      await answerOnce(
+        knex,
+        req,
+        res,
+        201,
+        async (db) => ({
+          photos: await service.upload(
+            { ...ctx, knex: db },
+            build(req),
+            caller(req),
+            target(req),
+            files,
+            fields.caption ?? '',
+          ),
+        }),
+        () => filesDigest(files),
       );
-      res.status(201).json({ photos });
     } finally {
       await removeTemp(req);
     }
