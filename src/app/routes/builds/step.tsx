@@ -1,47 +1,31 @@
-import { useEffect, useState } from 'react';
-import { useLocation, useNavigate, useParams } from 'react-router-dom';
-import {
-  ArrowDown,
-  ArrowUp,
-  ChevronLeft,
-  ChevronRight,
-  Pencil,
-  Plus,
-  Ruler,
-  Trash2,
-} from 'lucide-react';
+import { useEffect } from 'react';
+import { useLocation, useParams } from 'react-router-dom';
 import { can } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
-import type { FastenerSpec, Step } from '../../../../shared/schemas/install-log';
+import type { Step } from '../../../../shared/schemas/install-log';
 import type { Photo } from '../../../../shared/schemas/photos';
 import { paths } from '../../../config/paths';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { Alert } from '../../../components/ui/alert';
 import { Button, ButtonLink } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { ErrorState, NotFoundState } from '../../../components/ui/states';
 import { isApiError } from '../../../lib/api-client';
 import { useUser } from '../../../lib/auth';
+import { formatWhen } from '../../../lib/dates';
 import { useBuild } from '../../../features/builds/api/get-build';
-import { useCreateFastener } from '../../../features/install-log/api/create-fastener';
-import { useDeleteFastener } from '../../../features/install-log/api/delete-fastener';
-import { useDeleteStep } from '../../../features/install-log/api/delete-step';
 import { useJobs } from '../../../features/install-log/api/get-jobs';
 import { useStep } from '../../../features/install-log/api/get-step';
-import { useUpdateFastener } from '../../../features/install-log/api/update-fastener';
 import { useUpdateStep } from '../../../features/install-log/api/update-step';
 import { CautionList } from '../../../features/install-log/components/cautions';
 import { Checklist } from '../../../features/install-log/components/checklist';
-import { FastenerCard } from '../../../features/install-log/components/fastener-card';
-import { FastenerForm } from '../../../features/install-log/components/fastener-form';
 import { LinkedParts } from '../../../features/install-log/components/linked-parts';
-import { Modal } from '../../../components/ui/modal';
 import { SignOffPanel } from '../../../features/install-log/components/sign-off-panel';
-import { StepForm } from '../../../features/install-log/components/step-form';
+import { StepChangePanel } from '../../../features/install-log/components/step-change-panel';
+import { StepNav } from '../../../features/install-log/components/step-nav';
 import { StepStatusBadge } from '../../../features/install-log/components/step-status';
-import { fastenerMode, stepPlace } from '../../../features/install-log/lib/step-place';
-import { formatWhen } from '../../../lib/dates';
+import { StepTorquePanel } from '../../../features/install-log/components/step-torque-panel';
+import { stepPlace } from '../../../features/install-log/lib/step-place';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { BuildLoadError } from './build-states';
 
@@ -106,21 +90,7 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
   useScrollOnOpen(step.id);
   const me = useUser();
   const jobs = useJobs(build.id);
-  const navigate = useNavigate();
   const updateStep = useUpdateStep();
-  // Separate mutations, so each shows its own progress and error.
-  const editStep = useUpdateStep();
-  const moveStep = useUpdateStep();
-  const deleteStep = useDeleteStep();
-  const createFastener = useCreateFastener();
-  const updateFastener = useUpdateFastener();
-  const deleteFastener = useDeleteFastener();
-  const [addingSpec, setAddingSpec] = useState(false);
-  const [editingSpec, setEditingSpec] = useState<FastenerSpec | null>(null);
-  const [deletingSpec, setDeletingSpec] = useState<FastenerSpec | null>(null);
-  const [editingStep, setEditingStep] = useState(false);
-  const [confirmingDelete, setConfirmingDelete] = useState(false);
-  const [moved, setMoved] = useState('');
 
   const role = build.myRole;
   const canWrite = can(role, 'install:write');
@@ -133,16 +103,6 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
   const index = job?.steps.findIndex((s) => s.id === step.id) ?? -1;
   const prev = job && index > 0 ? job.steps[index - 1] : undefined;
   const next = job && index >= 0 && index < job.steps.length - 1 ? job.steps[index + 1] : undefined;
-  // Moving needs the job's step count, and another step to swap with.
-  const stepCount = job && index >= 0 ? job.steps.length : 0;
-
-  function move(position: number) {
-    setMoved('');
-    moveStep.mutate(
-      { buildId: build.id, stepId: step.id, input: { position } },
-      { onSuccess: (s) => setMoved(`Moved to step ${s.position} of ${stepCount}.`) },
-    );
-  }
 
   const canCaption = (photo: Photo) =>
     can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id);
@@ -217,57 +177,15 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
           canDelete={canDelete && !locked}
         />
 
-        <section aria-labelledby="torque-title" className="flex flex-col gap-3">
-          <div className="flex flex-wrap items-center justify-between gap-2">
-            <h2 id="torque-title" className="flex items-center gap-2 text-xl font-bold">
-              <Ruler aria-hidden className="size-5 text-ink-3" />
-              Torque
-            </h2>
-            {editable && (
-              <Button
-                variant="secondary"
-                className="min-h-12!"
-                icon={<Plus aria-hidden className="size-5" />}
-                onClick={() => setAddingSpec(true)}
-              >
-                Add a fastener spec
-              </Button>
-            )}
-          </div>
-          {step.fasteners.length === 0 ? (
-            <p className="rounded-lg border border-dashed border-rule-strong bg-sheet/70 px-4 py-4 text-muted">
-              No torque specs on this step.
-              {editable &&
-                ' Add one for each set of fasteners, copied from the service information.'}
-            </p>
-          ) : (
-            step.fasteners.map((spec) => (
-              <FastenerCard
-                key={spec.id}
-                buildId={build.id}
-                spec={spec}
-                mode={fastenerMode(step, spec, canWrite)}
-                calibrationMonths={build.wrenchCalibrationMonths}
-                onEdit={
-                  editable
-                    ? () => {
-                        updateFastener.reset();
-                        setEditingSpec(spec);
-                      }
-                    : undefined
-                }
-                onDelete={
-                  canDelete && !locked
-                    ? () => {
-                        deleteFastener.reset();
-                        setDeletingSpec(spec);
-                      }
-                    : undefined
-                }
-              />
-            ))
-          )}
-        </section>
+        <StepTorquePanel
+          buildId={build.id}
+          step={step}
+          calibrationMonths={build.wrenchCalibrationMonths}
+          canWrite={canWrite}
+          editable={editable}
+          canDeleteSpecs={canDelete && !locked}
+          canOverride={isOwner}
+        />
 
         <SignOffPanel step={step} canSignOff={canWrite} canOverride={isOwner} />
 
@@ -279,211 +197,17 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
           canDelete={can(role, 'photos:delete')}
         />
 
-        {(canWrite || canDelete) && (
-          <section
-            aria-labelledby="change-step-title"
-            className="flex flex-col gap-3 rounded-lg border border-rule bg-sheet px-4 py-3 sm:px-5"
-          >
-            <h2 id="change-step-title" className="text-lg font-bold">
-              Change this step
-            </h2>
-            <div className="flex flex-wrap gap-2">
-              {canWrite && (
-                <Button
-                  variant="secondary"
-                  className="min-h-12!"
-                  icon={<Pencil aria-hidden className="size-5" />}
-                  onClick={() => setEditingStep(true)}
-                >
-                  Edit name and what to do
-                </Button>
-              )}
-              {canWrite && stepCount > 1 && (
-                <>
-                  <Button
-                    variant="secondary"
-                    className="min-h-12!"
-                    icon={<ArrowUp aria-hidden className="size-5" />}
-                    disabled={step.position <= 1 || moveStep.isPending}
-                    onClick={() => move(step.position - 1)}
-                  >
-                    Move earlier
-                  </Button>
-                  <Button
-                    variant="secondary"
-                    className="min-h-12!"
-                    icon={<ArrowDown aria-hidden className="size-5" />}
-                    disabled={step.position >= stepCount || moveStep.isPending}
-                    onClick={() => move(step.position + 1)}
-                  >
-                    Move later
-                  </Button>
-                </>
-              )}
-              {canDelete && (
-                <Button
-                  variant="secondary"
-                  className="min-h-12! text-over!"
-                  icon={<Trash2 aria-hidden className="size-5" />}
-                  onClick={() => {
-                    deleteStep.reset();
-                    setConfirmingDelete(true);
-                  }}
-                >
-                  Delete this step
-                </Button>
-              )}
-            </div>
-            <p role="status" className="text-[15px] text-ink-2 empty:hidden">
-              {moved}
-            </p>
-            {moveStep.isError && <Alert tone="error">{moveStep.error.message}</Alert>}
-          </section>
-        )}
-
-        {(prev || next) && (
-          <nav aria-label="Other steps of this job" className="grid grid-cols-2 gap-2">
-            {prev ? (
-              <ButtonLink
-                to={paths.builds.step.getHref(build.id, prev.id)}
-                variant="secondary"
-                className="min-h-14! justify-start! text-left whitespace-normal!"
-                icon={<ChevronLeft aria-hidden className="size-5 shrink-0" />}
-              >
-                <span className="min-w-0">
-                  <span className="block text-sm font-normal text-muted">Previous step</span>
-                  <span className="line-clamp-2">{prev.title}</span>
-                </span>
-              </ButtonLink>
-            ) : (
-              <span />
-            )}
-            {next && (
-              <ButtonLink
-                to={paths.builds.step.getHref(build.id, next.id)}
-                variant="secondary"
-                className="min-h-14! justify-end! text-right whitespace-normal!"
-              >
-                <span className="min-w-0">
-                  <span className="block text-sm font-normal text-muted">Next step</span>
-                  <span className="line-clamp-2">{next.title}</span>
-                </span>
-                <ChevronRight aria-hidden className="size-5 shrink-0" />
-              </ButtonLink>
-            )}
-          </nav>
-        )}
-      </div>
-
-      <Modal
-        open={addingSpec}
-        title="Add a fastener spec"
-        description={step.title}
-        onClose={() => setAddingSpec(false)}
-        busy={createFastener.isPending}
-      >
-        <FastenerForm
-          onCancel={() => setAddingSpec(false)}
-          onSubmit={async (input) => {
-            await createFastener.mutateAsync({ buildId: build.id, stepId: step.id, input });
-            setAddingSpec(false);
-          }}
+        <StepChangePanel
+          buildId={build.id}
+          step={step}
+          jobTitle={job?.title}
+          stepCount={job && index >= 0 ? job.steps.length : 0}
+          canWrite={canWrite}
+          canDelete={canDelete}
         />
-      </Modal>
 
-      <Modal
-        open={editingSpec !== null}
-        title="Edit the fastener spec"
-        description={editingSpec?.name}
-        onClose={() => setEditingSpec(null)}
-        busy={updateFastener.isPending}
-      >
-        {editingSpec && (
-          <FastenerForm
-            spec={editingSpec}
-            canOverride={isOwner}
-            onCancel={() => setEditingSpec(null)}
-            onSubmit={async (input) => {
-              await updateFastener.mutateAsync({
-                buildId: build.id,
-                specId: editingSpec.id,
-                input,
-              });
-              setEditingSpec(null);
-            }}
-          />
-        )}
-      </Modal>
-
-      <Modal
-        open={editingStep}
-        title="Edit the step"
-        description={job?.title}
-        onClose={() => setEditingStep(false)}
-        busy={editStep.isPending}
-      >
-        {editingStep && (
-          <StepForm
-            step={step}
-            parts={undefined}
-            submitLabel="Save the step"
-            onCancel={() => setEditingStep(false)}
-            onSubmit={async (input) => {
-              await editStep.mutateAsync({ buildId: build.id, stepId: step.id, input });
-              setEditingStep(false);
-            }}
-          />
-        )}
-      </Modal>
-
-      <ConfirmDialog
-        open={confirmingDelete}
-        title="Delete this step?"
-        confirmLabel="Delete the step"
-        pending={deleteStep.isPending}
-        onClose={() => setConfirmingDelete(false)}
-        onConfirm={() =>
-          deleteStep.mutate(
-            { buildId: build.id, stepId: step.id },
-            {
-              onSuccess: () => {
-                setConfirmingDelete(false);
-                void navigate(paths.builds.install.getHref(build.id), { replace: true });
-              },
-            },
-          )
-        }
-      >
-        “{step.title}” goes with its checklist, torque specs, readings and photos
-        {locked ? ', and its sign-off' : ''}. This cannot be undone.
-        {deleteStep.isError && (
-          <p role="alert" className="mt-2 font-semibold text-over">
-            {deleteStep.error.message}
-          </p>
-        )}
-      </ConfirmDialog>
-
-      <ConfirmDialog
-        open={deletingSpec !== null}
-        title="Delete this fastener spec?"
-        confirmLabel="Delete the spec"
-        pending={deleteFastener.isPending}
-        onClose={() => setDeletingSpec(null)}
-        onConfirm={() => {
-          if (!deletingSpec) return;
-          deleteFastener.mutate(
-            { buildId: build.id, stepId: step.id, specId: deletingSpec.id },
-            { onSuccess: () => setDeletingSpec(null) },
-          );
-        }}
-      >
-        “{deletingSpec?.name}” goes with every reading recorded against it.
-        {deleteFastener.isError && (
-          <p role="alert" className="mt-2 font-semibold text-over">
-            {deleteFastener.error.message}
-          </p>
-        )}
-      </ConfirmDialog>
+        <StepNav buildId={build.id} prev={prev} next={next} />
+      </div>
     </>
   );
 }
