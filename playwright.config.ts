@@ -25,6 +25,8 @@ export default defineConfig({
   use: {
     baseURL,
     trace: 'retain-on-failure',
+    // The service worker (offline app shell) only where a spec allows it: e2e/offline.spec.ts.
+    serviceWorkers: 'block',
     screenshot: 'only-on-failure',
     launchOptions: {
       executablePath: chromium,

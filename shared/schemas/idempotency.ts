@@ -5,11 +5,8 @@
  */
 import { z } from 'zod';
 
-export const idempotencyKeyHeader = 'Idempotency-Key';
+export { idempotencyKeepDays, idempotencyKeyHeader } from '../idempotency';
 
 export const idempotencyKeySchema = z.uuid({
   message: 'Send a UUID (a new one for each write, the same one when sending it again)',
 });
-
-/** How long the server keeps a key, and so how long a queued write may wait to be sent. */
-export const idempotencyKeepDays = 7;

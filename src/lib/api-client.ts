@@ -34,6 +34,8 @@ type RequestOptions = {
   method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
   body?: unknown;
   signal?: AbortSignal;
+  /** Extra request headers (the offline queue's Idempotency-Key). */
+  headers?: Record<string, string>;
   /** Sign-in and /api/me answer 401 as a normal outcome, not as "your session ended". */
   expectUnauthorized?: boolean;
 };
@@ -86,7 +88,7 @@ async function readError(response: Response): Promise<ApiError> {
 /** The one place the client talks HTTP. JSON in, JSON out, the session rides in the cookie. */
 export async function apiRequest<T>(path: string, options: RequestOptions = {}): Promise<T> {
   const { method = 'GET', body, signal, expectUnauthorized = false } = options;
-  const headers: Record<string, string> = { Accept: 'application/json' };
+  const headers: Record<string, string> = { Accept: 'application/json', ...options.headers };
   if (body !== undefined) headers['Content-Type'] = 'application/json';
 
   let response: Response;

@@ -5,6 +5,8 @@ import type { User } from '../../shared/schemas/auth';
 import { getMeQueryOptions, useMe } from '../features/auth/api/get-me';
 import { paths } from '../config/paths';
 import { PageSpinner } from '../components/ui/spinner';
+import { leaveDevice } from './offline-cache';
+import { currentQueue } from './offline-queue';
 import { ErrorState } from '../components/ui/states';
 
 const meKey = getMeQueryOptions().queryKey;
@@ -61,6 +63,9 @@ export function useEndSession() {
   const queryClient = useQueryClient();
   const navigate = useNavigate();
   return useCallback(() => {
+    // Saved data goes with the user, unless writes still wait: they stay for their next sign-in.
+    const { userId, items } = currentQueue();
+    if (userId) void leaveDevice(userId, items.length > 0);
     // The router renders route changes in a transition, so the guard on the page being left
     // may still see the user vanish; the flag tells it not to add a ?next= back to that page.
     signedOutOnPurpose = true;

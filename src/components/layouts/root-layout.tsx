@@ -1,26 +1,50 @@
-import { Suspense } from 'react';
+import { Suspense, useState } from 'react';
 import { Link, Outlet, ScrollRestoration, useLocation } from 'react-router-dom';
 import { LogOut, UserRound } from 'lucide-react';
 import { useMe } from '../../features/auth/api/get-me';
 import { useSignOut } from '../../features/auth/api/sign-out';
 import { paths } from '../../config/paths';
+import { currentQueue } from '../../lib/offline-queue';
 import { Button, ButtonLink } from '../ui/button';
+import { ConfirmDialog } from '../ui/confirm-dialog';
 import { Wordmark } from '../ui/logo';
 import { PageSpinner } from '../ui/spinner';
+import { OfflineStatus } from './offline-status';
 
 function SignOutButton() {
   const signOut = useSignOut();
+  const [waiting, setWaiting] = useState(0);
   return (
-    <Button
-      variant="on-ink"
-      size="sm"
-      pending={signOut.isPending}
-      icon={<LogOut aria-hidden className="size-4" />}
-      onClick={() => signOut.mutate()}
-      title={signOut.isError ? 'Sign-out failed; try again' : undefined}
-    >
-      Sign out
-    </Button>
+    <>
+      <Button
+        variant="on-ink"
+        size="sm"
+        pending={signOut.isPending}
+        icon={<LogOut aria-hidden className="size-4" />}
+        onClick={() => {
+          // Entries still waiting on this phone: ask before leaving them.
+          const n = currentQueue().items.length;
+          if (n) setWaiting(n);
+          else signOut.mutate();
+        }}
+        title={signOut.isError ? 'Sign-out failed; try again' : undefined}
+      >
+        Sign out
+      </Button>
+      <ConfirmDialog
+        open={waiting > 0}
+        title="Sign out with entries waiting?"
+        confirmLabel="Sign out anyway"
+        tone="primary"
+        pending={signOut.isPending}
+        onClose={() => setWaiting(0)}
+        onConfirm={() => signOut.mutate(undefined, { onSettled: () => setWaiting(0) })}
+      >
+        {waiting === 1 ? '1 entry has' : `${waiting} entries have`} not reached Headroom yet. They
+        stay on this phone and are sent when you sign in again with this account, never with
+        another.
+      </ConfirmDialog>
+    </>
   );
 }
 
@@ -94,6 +118,7 @@ export function RootLayout() {
         Skip to content
       </a>
       <Header />
+      <OfflineStatus />
       <main
         id="main"
         className="mx-auto w-full max-w-5xl flex-1 px-4 py-6 sm:py-8 print:max-w-none print:p-0"

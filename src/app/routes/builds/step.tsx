@@ -25,6 +25,7 @@ import { StepChangePanel } from '../../../features/install-log/components/step-c
 import { StepNav } from '../../../features/install-log/components/step-nav';
 import { StepStatusBadge } from '../../../features/install-log/components/step-status';
 import { StepTorquePanel } from '../../../features/install-log/components/step-torque-panel';
+import { WaitingEntries } from '../../../features/install-log/components/waiting-entries';
 import { stepPlace } from '../../../features/install-log/lib/step-place';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
 import { BuildLoadError } from './build-states';
@@ -34,10 +35,11 @@ export function StepRoute() {
   const { buildId = '', stepId = '' } = useParams();
   const build = useBuild(buildId);
   if (build.isPending) return <PageSpinner label="Loading the build…" />;
-  if (build.isError) {
+  // Without signal, the copy saved on the device stands even when refreshing it failed.
+  if (build.isError && !build.data) {
     return <BuildLoadError error={build.error} onRetry={() => void build.refetch()} />;
   }
-  return <StepLoader build={build.data} stepId={stepId} />;
+  return <StepLoader build={build.data!} stepId={stepId} />;
 }
 
 function StepLoader({ build, stepId }: { build: Build; stepId: string }) {
@@ -48,7 +50,7 @@ function StepLoader({ build, stepId }: { build: Build; stepId: string }) {
     </ButtonLink>
   );
   if (step.isPending) return <PageSpinner label="Loading the step…" />;
-  if (step.isError) {
+  if (step.isError && (!step.data || (isApiError(step.error) && step.error.status === 404))) {
     if (isApiError(step.error) && step.error.status === 404) {
       return (
         <>
@@ -69,7 +71,7 @@ function StepLoader({ build, stepId }: { build: Build; stepId: string }) {
       />
     );
   }
-  return <StepPage build={build} step={step.data} />;
+  return <StepPage build={build} step={step.data!} />;
 }
 
 /**
@@ -137,6 +139,8 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
 
       <div className="flex flex-col gap-5">
         <CautionList cautions={step.cautions} />
+
+        <WaitingEntries stepId={step.id} />
 
         {locked && step.signOff && (
           <Alert

@@ -1,10 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { idempotencyKeyHeader } from '../../../../shared/idempotency';
 import type {
   CreateReadingInput,
   FastenerSpec,
   TorqueReading,
 } from '../../../../shared/schemas/install-log';
-import { api } from '../../../lib/api-client';
+import { api, isApiError } from '../../../lib/api-client';
+import { enqueue, isOffline, type QueuedWrite } from '../../../lib/offline-queue';
 import { invalidateInstallLog, invalidateReadings, setCachedFastener } from './invalidate';
 import { installBase, seg } from './paths';
 
@@ -17,29 +19,66 @@ export type RecordedReading = {
   fastener: FastenerSpec;
 };
 
-/** Records a torque reading; a correction is simply a new reading for the same position. */
+/** Kept on the device, waiting for the network (lib/offline-queue sends it). */
+export type QueuedReading = { queued: QueuedWrite };
+
+export const isQueued = (r: RecordedReading | QueuedReading): r is QueuedReading => 'queued' in r;
+
+/**
+ * Records a torque reading; a correction is simply a new reading for the same position.
+ * Without signal it is kept on the device with the time it was taken, and sent later.
+ */
 export async function recordReading({
   buildId,
+  stepId,
   specId,
   input,
+  label,
 }: {
   buildId: string;
   /** The step the spec belongs to, for the cache. */
   stepId: string;
   specId: string;
   input: CreateReadingInput;
-}): Promise<RecordedReading> {
-  return api.post<RecordedReading>(
-    `${installBase(buildId)}/fasteners/${seg(specId)}/readings`,
-    input,
-  );
+  /** The reading in words, for the list of entries waiting to be sent. */
+  label: string;
+}): Promise<RecordedReading | QueuedReading> {
+  const path = `${installBase(buildId)}/fasteners/${seg(specId)}/readings`;
+  const keep = async (body: CreateReadingInput, key?: string) => ({
+    queued: await enqueue({
+      key,
+      buildId,
+      stepId,
+      kind: 'reading',
+      method: 'POST',
+      path,
+      body,
+      label,
+    }),
+  });
+  if (isOffline()) return keep({ ...input, takenAt: new Date().toISOString() });
+  const key = crypto.randomUUID();
+  try {
+    return await api.post<RecordedReading>(path, input, {
+      headers: { [idempotencyKeyHeader]: key },
+    });
+  } catch (error) {
+    // The signal dropped mid-request: it may have arrived, so the same key and body go
+    // again from the queue (a repeat is stored once).
+    if (isApiError(error) && error.status === 0) return keep(input, key);
+    throw error;
+  }
 }
 
 export const useRecordReading = () => {
   const queryClient = useQueryClient();
   return useMutation({
+    // Runs without signal too: it keeps the write on the device itself (lib/offline-queue).
+    networkMode: 'always',
     mutationFn: recordReading,
-    onSuccess: async ({ fastener }, { buildId, specId }) => {
+    onSuccess: async (result, { buildId, specId }) => {
+      if (isQueued(result)) return;
+      const { fastener } = result;
       // The verdict shows the moment the server answers; the rest of the step catches up.
       setCachedFastener(queryClient, buildId, fastener);
       await Promise.all([

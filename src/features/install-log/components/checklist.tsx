@@ -59,6 +59,7 @@ function ChecklistRow({
                   stepId: item.stepId,
                   itemId: item.id,
                   input: { done: e.target.checked },
+                  label: item.label,
                 },
                 { onSettled: () => setGoing(null) },
               );

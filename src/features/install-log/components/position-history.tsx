@@ -3,7 +3,7 @@ import type { FastenerSpec } from '../../../../shared/schemas/install-log';
 import { Spinner } from '../../../components/ui/spinner';
 import { cn } from '../../../components/ui/cn';
 import { useReadings } from '../api/get-readings';
-import { readingConverted, torque } from '../lib/format';
+import { readingConverted, torque, readingWhen } from '../lib/format';
 import { formatWhen } from '../../../lib/dates';
 import { CalibrationFlag, VerdictBadge } from './reading-line';
 
@@ -81,7 +81,7 @@ export function PositionHistory({
               )}
             </p>
             <p className="text-sm">
-              {r.recordedBy?.name ?? 'Someone'}, {formatWhen(r.recordedAt)}
+              {r.recordedBy?.name ?? 'Someone'}, {readingWhen(r, formatWhen)}
               {r.wrench && <> · {r.wrench}</>}
             </p>
             {!replaced && <CalibrationFlag reading={r} />}

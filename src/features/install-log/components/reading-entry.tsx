@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -10,7 +10,8 @@ import {
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
 import { isApiError } from '../../../lib/api-client';
-import { useRecordReading, type RecordedReading } from '../api/record-reading';
+import { isQueued, useRecordReading, type RecordedReading } from '../api/record-reading';
+import { formatTorque } from '../../../../shared/install-log/torque';
 import { parseDecimal, unitLabel } from '../lib/format';
 
 const schema = createReadingInputSchema.pick({ value: true, unit: true, note: true });
@@ -61,6 +62,7 @@ export function ReadingEntry({
 }) {
   const record = useRecordReading();
   const id = useId();
+  const [kept, setKept] = useState('');
   const inputRef = useRef<HTMLInputElement | null>(null);
   const {
     register,
@@ -78,11 +80,14 @@ export function ReadingEntry({
   }, [autoFocus]);
 
   const submit = handleSubmit(async (values) => {
+    setKept('');
+    const unit = values.unit as TorqueUnit;
     try {
       const result = await record.mutateAsync({
         buildId,
         stepId: spec.stepId,
         specId: spec.id,
+        label: `${spec.name} ${label}${stage ? `, stage ${stage}` : ''}${kind === 'retorque' ? ' (re-check)' : ''}: ${formatTorque(values.value, unit)}`,
         input: {
           position,
           value: values.value,
@@ -91,9 +96,21 @@ export function ReadingEntry({
           note: values.note || undefined,
           retorque: kind === 'retorque' || undefined,
           stage: stage ?? undefined,
+          // Judged against the target shown here: a changed target refuses it, never silently.
+          expectedTarget: {
+            targetValue: spec.targetValue,
+            targetUnit: spec.targetUnit,
+            toleranceType: spec.toleranceType,
+            toleranceValue: spec.toleranceValue,
+          },
         },
       });
       reset({ value: undefined, unit: values.unit, note: '' });
+      if (isQueued(result)) {
+        setKept(`${formatTorque(values.value, unit)} kept on this phone: waiting to send.`);
+        if (kind !== 'first') onCancel?.();
+        return;
+      }
       onRecorded(result);
     } catch (error) {
       const fields = isApiError(error) ? (error.fields ?? {}) : {};
@@ -168,10 +185,17 @@ export function ReadingEntry({
       </span>
     </Button>
   );
-  const errorLine = error && (
-    <p id={errorId} role="alert" className="text-[15px] font-semibold text-over">
-      {error}
-    </p>
+  const errorLine = (
+    <>
+      {error && (
+        <p id={errorId} role="alert" className="text-[15px] font-semibold text-over">
+          {error}
+        </p>
+      )}
+      <p role="status" className="text-[15px] font-semibold text-ink-2 empty:hidden">
+        {kept}
+      </p>
+    </>
   );
 
   // A first reading (or re-check) is one row: value, unit, Record.

@@ -3,7 +3,7 @@ import { formatIsoDate } from '../../../../shared/format';
 import { verdictLabels, type Verdict } from '../../../../shared/install-log/torque';
 import type { FastenerSpec, TorqueReading } from '../../../../shared/schemas/install-log';
 import { cn } from '../../../components/ui/cn';
-import { deviationText, readingConverted, torque } from '../lib/format';
+import { deviationText, readingConverted, torque, readingWhen } from '../lib/format';
 import { formatWhen } from '../../../lib/dates';
 
 const verdictIcons = { 'in-spec': Check, under: ArrowDown, over: ArrowUp } as const;
@@ -61,7 +61,7 @@ export function ReadingLine({
       </p>
       {deviation && <p className="mt-0.5 text-[15px] font-semibold text-[#7d1f17]">{deviation}</p>}
       <p className="mt-0.5 text-sm text-muted">
-        {reading.recordedBy?.name ?? 'Someone'}, {formatWhen(reading.recordedAt)}
+        {reading.recordedBy?.name ?? 'Someone'}, {readingWhen(reading, formatWhen)}
         {reading.wrench && <> · {reading.wrench}</>}
       </p>
       <CalibrationFlag reading={reading} />

@@ -91,3 +91,17 @@ export function parseDecimal(value: unknown): number | undefined {
 export function parseDecimalOrNull(value: unknown): number | null {
   return parseDecimal(value) ?? null;
 }
+
+/**
+ * When a reading was taken, and when it arrived if it was sent late from the offline queue
+ * ("taken 12 Mar, 10:42, arrived 11:15"); a reading that arrived within a minute reads as one time.
+ */
+export function readingWhen(
+  reading: Pick<TorqueReading, 'takenAt' | 'recordedAt'>,
+  when: (iso: string) => string,
+): string {
+  const late = Date.parse(reading.recordedAt) - Date.parse(reading.takenAt) > 60_000;
+  return late
+    ? `taken ${when(reading.takenAt)}, arrived ${when(reading.recordedAt)}`
+    : when(reading.recordedAt);
+}

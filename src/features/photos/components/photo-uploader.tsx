@@ -5,7 +5,9 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
 import { isApiError } from '../../../lib/api-client';
+import { isOffline } from '../../../lib/offline-queue';
 import { useUploadPhoto, type PhotoTarget } from '../api/upload-photo';
+import { keepPhotoOffline } from '../lib/keep-offline';
 
 type ItemState = 'ready' | 'waiting' | 'uploading' | 'processing' | 'done' | 'failed';
 
@@ -60,6 +62,7 @@ export function PhotoUploader({
   const [items, setItems] = useState<Item[]>([]);
   const [sending, setSending] = useState(false);
   const [done, setDone] = useState<number | null>(null);
+  const [kept, setKept] = useState(0);
   const itemsRef = useRef(items);
   useEffect(() => {
     itemsRef.current = items;
@@ -109,9 +112,17 @@ export function PhotoUploader({
     setDone(null);
     for (const item of queue) patch(item.key, { state: 'waiting', error: undefined, progress: 0 });
     let ok = 0;
+    let keptHere = 0;
     for (const item of queue) {
       patch(item.key, { state: 'uploading' });
       try {
+        // No signal: resized and kept on the phone with the step's waiting entries.
+        if (isOffline() && 'stepId' in target) {
+          await keepPhotoOffline(buildId, target, item.file, item.caption.trim());
+          patch(item.key, { state: 'done', progress: 1 });
+          keptHere += 1;
+          continue;
+        }
         await upload.mutateAsync({
           buildId,
           target,
@@ -141,6 +152,7 @@ export function PhotoUploader({
       return list.filter((i) => i.state !== 'done');
     });
     setDone(ok);
+    setKept(keptHere);
   }
 
   const ready = items.filter((i) => i.state === 'ready').length;
@@ -176,6 +188,11 @@ export function PhotoUploader({
         </p>
       </div>
 
+      {done !== null && kept > 0 && (
+        <Alert tone="ok">
+          {kept === 1 ? 'Photo kept' : `${kept} photos kept`} on this phone: waiting to send.
+        </Alert>
+      )}
       {done !== null && done > 0 && (
         <Alert tone="ok">{done === 1 ? 'Photo added.' : `${done} photos added.`}</Alert>
       )}

@@ -1,0 +1,211 @@
+/**
+ * The garage with no signal (issue 17). The crew, at phone width, opens a step while online;
+ * the network goes (the context offline, and the service worker's own requests blocked too,
+ * which offline does not cover); two readings and a photo are recorded and kept on the
+ * phone, a reload still shows the step and the entries waiting, and when the network returns
+ * they arrive once, in order, judged by the server. A reading whose target the owner changed
+ * meanwhile comes back refused, with the message, and stays for the crew to copy or discard.
+ */
+import { expect, test, type BrowserContext, type Page } from '@playwright/test';
+import sharp from 'sharp';
+import { signUpThroughPage, uniqueEmail } from './helpers';
+import { joinByInvitation } from './mail';
+
+const phone = { width: 390, height: 844 };
+
+test.use({ serviceWorkers: 'allow' });
+
+async function call<T>(page: Page, method: 'post' | 'patch', url: string, data: unknown) {
+  const res = await page.request[method](url, {
+    data,
+    headers: { Origin: new URL(page.url()).origin },
+  });
+  expect(res.ok(), `${method} ${url}: ${await res.text()}`).toBe(true);
+  return (await res.json()) as T;
+}
+
+const spec = (name: string, count: number) => ({
+  name,
+  count,
+  targetValue: 30,
+  targetUnit: 'lbf-ft',
+  toleranceType: 'percent',
+  toleranceValue: 10,
+  threadCondition: 'oiled',
+  specSource: "Maker's service manual (test entry)",
+});
+
+/** The network gone: pages and the service worker's own fetches alike. */
+async function goOffline(context: BrowserContext) {
+  await context.setOffline(true);
+  await context.route('**/*', (route) => route.abort('internetdisconnected'));
+}
+
+async function goOnline(context: BrowserContext) {
+  await context.unrouteAll({ behavior: 'ignoreErrors' });
+  await context.setOffline(false);
+}
+
+/** Whether the step's title is in the query cache saved on the device. */
+function savedCacheHas(page: Page, text: string) {
+  return page.evaluate(async (needle) => {
+    const user = localStorage.getItem('headroom-user');
+    if (!user) return false;
+    const db = await new Promise<IDBDatabase>((resolve, reject) => {
+      const open = indexedDB.open(`headroom-cache-${user}`);
+      open.onsuccess = () => resolve(open.result);
+      open.onerror = () => reject(open.error);
+    });
+    if (!db.objectStoreNames.contains('cache')) return false;
+    const keys = await new Promise<unknown[]>((resolve) => {
+      const req = db.transaction('cache').objectStore('cache').getAll();
+      req.onsuccess = () => resolve(req.result);
+    });
+    db.close();
+    return keys.some((v) => typeof v === 'string' && v.includes(needle));
+  }, text);
+}
+
+test('the crew records readings and a photo without signal; they arrive once, in order', async ({
+  browser,
+}) => {
+  test.setTimeout(180_000);
+  const crewEmail = uniqueEmail('crew');
+  const ownerContext = await browser.newContext({ viewport: phone });
+  const owner = await ownerContext.newPage();
+  await signUpThroughPage(owner, 'Odile Pemberton', uniqueEmail('owner'));
+  const crewContext = await browser.newContext({ viewport: phone, hasTouch: true });
+  const crew = await crewContext.newPage();
+  await signUpThroughPage(crew, 'Teodor Brandt', crewEmail);
+
+  const { build } = await call<{ build: { id: string } }>(owner, 'post', '/api/builds', {
+    name: 'Back Forty Hauler',
+    cylinders: 6,
+    aspiration: 'single-turbo',
+    targetPowerHp: 650,
+    targetPowerBasis: 'crank',
+  });
+  const api = `/api/builds/${build.id}`;
+  await joinByInvitation(owner, crew, { buildId: build.id, email: crewEmail, role: 'crew' });
+  const { job } = await call<{ job: { id: string } }>(owner, 'post', `${api}/jobs`, {
+    title: 'Valve train',
+  });
+  const { step } = await call<{ step: { id: string } }>(
+    owner,
+    'post',
+    `${api}/jobs/${job.id}/steps`,
+    {
+      title: 'Fit the rocker arms',
+    },
+  );
+  const rockers = (
+    await call<{ fastener: { id: string } }>(
+      owner,
+      'post',
+      `${api}/steps/${step.id}/fasteners`,
+      spec('Rocker arm bolts', 2),
+    )
+  ).fastener;
+  const covers = (
+    await call<{ fastener: { id: string } }>(
+      owner,
+      'post',
+      `${api}/steps/${step.id}/fasteners`,
+      spec('Valve cover bolts', 1),
+    )
+  ).fastener;
+
+  // ---- Online: the crew opens the step; the app shell and the step are kept on the phone.
+  const stepUrl = `/builds/${build.id}/install/steps/${step.id}`;
+  await crew.goto(stepUrl);
+  await expect(crew.getByRole('heading', { level: 1, name: 'Fit the rocker arms' })).toBeVisible();
+  await expect(crew.getByTestId('offline-status')).toContainText('Online');
+  await crew.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await expect.poll(() => crew.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+  await expect.poll(() => savedCacheHas(crew, 'Fit the rocker arms')).toBe(true);
+
+  // ---- No signal.
+  await goOffline(crewContext);
+  await expect(crew.getByTestId('offline-status')).toContainText('Offline');
+  const rockerCard = crew.getByRole('region', { name: /Rocker arm bolts/ });
+  await rockerCard.getByLabel('Torque at #1').fill('31');
+  await rockerCard.getByRole('button', { name: 'Record #1' }).click();
+  await expect(
+    rockerCard.getByText('31 lbf·ft kept on this phone: waiting to send.'),
+  ).toBeVisible();
+  await rockerCard.getByLabel('Torque at #2').fill('36');
+  await rockerCard.getByRole('button', { name: 'Record #2' }).click();
+  const coverCard = crew.getByRole('region', { name: /Valve cover bolts/ });
+  await coverCard.getByLabel('Torque at #1').fill('30');
+  await coverCard.getByRole('button', { name: 'Record #1' }).click();
+
+  const photo = await sharp({
+    create: { width: 2400, height: 1800, channels: 3, background: { r: 70, g: 90, b: 110 } },
+  })
+    .jpeg()
+    .toBuffer();
+  await crew.getByLabel('Add photos').setInputFiles({
+    name: 'rockers.jpg',
+    mimeType: 'image/jpeg',
+    buffer: photo,
+  });
+  await crew.getByLabel('Caption for rockers.jpg').fill('Rockers in, before the covers');
+  await crew.getByRole('button', { name: 'Upload 1 photo' }).click();
+  await expect(crew.getByText('Photo kept on this phone: waiting to send.')).toBeVisible();
+
+  // ---- A reload without signal: the step opens from the phone, the entries still wait.
+  await crew.reload();
+  await expect(crew.getByRole('heading', { level: 1, name: 'Fit the rocker arms' })).toBeVisible();
+  const waiting = crew.getByRole('region', { name: 'On this phone' });
+  await expect(waiting.getByTestId('waiting-entry')).toHaveText([
+    /Rocker arm bolts #1: 31 lbf·ft · waiting to send/,
+    /Rocker arm bolts #2: 36 lbf·ft · waiting to send/,
+    /Valve cover bolts #1: 30 lbf·ft · waiting to send/,
+    /Photo rockers\.jpg \(“Rockers in, before the covers”\) · waiting to send/,
+  ]);
+  await expect(crew.getByTestId('offline-status')).toContainText('4 entries waiting to send');
+
+  // Meanwhile the owner changes the valve cover bolts' target.
+  await call(owner, 'patch', `${api}/fasteners/${covers.id}`, { targetValue: 25 });
+
+  // ---- The network returns: sent in order, once, judged by the server.
+  await goOnline(crewContext);
+  await expect(waiting.getByTestId('waiting-entry')).toHaveCount(0, { timeout: 30_000 });
+  const first = rockerCard.getByRole('listitem', { name: 'Position 1' });
+  const second = rockerCard.getByRole('listitem', { name: 'Position 2' });
+  await expect(first.getByText('In spec')).toBeVisible();
+  await expect(second.getByText('Over spec')).toBeVisible();
+  await expect(crew.getByTestId('offline-status')).toContainText(/Online.*last sent/);
+  const gallery = crew.getByRole('list', { name: 'Photos of this step' });
+  await expect(gallery.getByRole('img', { name: 'Rockers in, before the covers' })).toBeVisible();
+
+  const { readings } = await (
+    await crew.request.get(`${api}/fasteners/${rockers.id}/readings`)
+  ).json();
+  expect(readings).toHaveLength(2);
+  const byPosition = (p: number) => readings.find((r: { position: number }) => r.position === p);
+  expect(byPosition(1).verdict).toBe('in-spec');
+  expect(byPosition(2).verdict).toBe('over');
+  expect(Date.parse(byPosition(1).recordedAt)).toBeLessThan(Date.parse(byPosition(2).recordedAt));
+  // Each keeps the time it was taken on the phone, before it arrived.
+  expect(Date.parse(byPosition(1).takenAt)).toBeLessThan(Date.parse(byPosition(1).recordedAt));
+  const photos = (await (await crew.request.get(`${api}/steps/${step.id}/photos`)).json()).photos;
+  expect(photos).toHaveLength(1);
+  // Resized on the phone to the web size before it was kept.
+  expect(photos[0].original.width).toBeLessThanOrEqual(1600);
+
+  // ---- The conflict: refused with the server's message, kept to copy or discard.
+  await expect(
+    waiting.getByText(/Not saved: The target of Valve cover bolts changed/),
+  ).toBeVisible();
+  const covered = await (await crew.request.get(`${api}/fasteners/${covers.id}/readings`)).json();
+  expect(covered.readings).toHaveLength(0);
+  await expect(crew.getByTestId('offline-status')).toContainText('1 entry refused');
+  await waiting.getByRole('button', { name: 'Discard' }).click();
+  await expect(waiting).toHaveCount(0);
+
+  await crewContext.close();
+  await ownerContext.close();
+});

@@ -1,0 +1,62 @@
+import { useEffect } from 'react';
+import { onlineManager, useQueryClient } from '@tanstack/react-query';
+import { CloudOff, Wifi } from 'lucide-react';
+import { useMe } from '../../features/auth/api/get-me';
+import { formatWhen } from '../../lib/dates';
+import { lastUser, persistCacheFor } from '../../lib/offline-cache';
+import { openQueue, useOfflineQueue } from '../../lib/offline-queue';
+
+/**
+ * Follows the signed-in user: their saved cache and their queue of waiting writes (another
+ * user's are never opened, so never sent under this session).
+ */
+function useOfflineUser(userId: string | null) {
+  const queryClient = useQueryClient();
+  useEffect(() => {
+    if (userId && lastUser() && lastUser() !== userId) {
+      // The cache restored at start belonged to the previous user of this device.
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== 'me' });
+    }
+    void persistCacheFor(userId);
+    void openQueue(userId);
+  }, [queryClient, userId]);
+}
+
+const entries = (n: number) => `${n} ${n === 1 ? 'entry' : 'entries'}`;
+
+/** One line under the header: online or offline, what waits to be sent, when something was last sent. */
+export function OfflineStatus() {
+  const me = useMe();
+  const userId = me.data?.id ?? null;
+  useOfflineUser(userId);
+  const { online, items, lastSentAt, sending } = useOfflineQueue();
+  useEffect(() => onlineManager.setOnline(online), [online]);
+  if (!userId) return null;
+  const refused = items.filter((i) => i.problem).length;
+  const waiting = items.length - refused;
+  const parts = [
+    online ? 'Online' : 'Offline: new entries are kept on this phone',
+    waiting ? `${entries(waiting)} waiting to send` : '',
+    refused ? `${entries(refused)} refused: see the step` : '',
+    sending ? 'sending…' : '',
+    lastSentAt ? `last sent ${formatWhen(lastSentAt)}` : '',
+  ].filter(Boolean);
+  return (
+    <div
+      className={`print:hidden ${online ? 'bg-sheet text-ink-2' : 'bg-tight-soft text-ink'} border-b border-rule`}
+    >
+      <p
+        role="status"
+        data-testid="offline-status"
+        className="mx-auto flex max-w-5xl items-center gap-2 px-4 py-1 text-sm"
+      >
+        {online ? (
+          <Wifi aria-hidden className="size-4 shrink-0" />
+        ) : (
+          <CloudOff aria-hidden className="size-4 shrink-0" />
+        )}
+        <span>{parts.join(' · ')}</span>
+      </p>
+    </div>
+  );
+}
