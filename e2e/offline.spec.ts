@@ -155,6 +155,14 @@ test('the crew records readings and a photo without signal; they arrive once, in
   await crew.getByRole('button', { name: 'Upload 1 photo' }).click();
   await expect(crew.getByText('Photo kept on this phone: waiting to send.')).toBeVisible();
 
+  // Signing out with entries waiting asks first (and says they stay for this account only).
+  await crew.getByRole('button', { name: 'Sign out' }).click();
+  const ask = crew.getByRole('dialog', { name: 'Sign out with entries waiting?' });
+  await expect(ask).toContainText('4 entries have not reached Headroom yet');
+  await expect(ask).toContainText('never with another');
+  await ask.getByRole('button', { name: 'Cancel' }).click();
+  await expect(ask).toHaveCount(0);
+
   // ---- A reload without signal: the step opens from the phone, the entries still wait.
   await crew.reload();
   await expect(crew.getByRole('heading', { level: 1, name: 'Fit the rocker arms' })).toBeVisible();
