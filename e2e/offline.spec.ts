@@ -1,7 +1,7 @@
 /**
  * The garage with no signal (issue 17). The crew, at phone width, opens a step while online;
  * the network goes (the context offline, and the service worker's own requests blocked too,
- * which offline does not cover); two readings and a photo are recorded and kept on the
+ * which offline does not cover); readings, a checklist tick and a photo are recorded and kept on the
  * phone, a reload still shows the step and the entries waiting, and when the network returns
  * they arrive once, in order, judged by the server. A reading whose target the owner changed
  * meanwhile comes back refused, with the message, and stays for the crew to copy or discard.
@@ -115,6 +115,10 @@ test('the crew records readings and a photo without signal; they arrive once, in
     )
   ).fastener;
 
+  await call(owner, 'post', `${api}/steps/${step.id}/checklist`, {
+    label: 'Pushrods seated in their cups',
+  });
+
   // ---- Online: the crew opens the step; the app shell and the step are kept on the phone.
   const stepUrl = `/builds/${build.id}/install/steps/${step.id}`;
   await crew.goto(stepUrl);
@@ -141,6 +145,9 @@ test('the crew records readings and a photo without signal; they arrive once, in
   await coverCard.getByLabel('Torque at #1').fill('30');
   await coverCard.getByRole('button', { name: 'Record #1' }).click();
 
+  await crew.getByRole('checkbox', { name: /Pushrods seated in their cups/ }).check();
+  await expect(crew.getByRole('checkbox', { name: /Pushrods seated/ })).toBeChecked();
+
   const photo = await sharp({
     create: { width: 2400, height: 1800, channels: 3, background: { r: 70, g: 90, b: 110 } },
   })
@@ -158,7 +165,7 @@ test('the crew records readings and a photo without signal; they arrive once, in
   // Signing out with entries waiting asks first (and says they stay for this account only).
   await crew.getByRole('button', { name: 'Sign out' }).click();
   const ask = crew.getByRole('dialog', { name: 'Sign out with entries waiting?' });
-  await expect(ask).toContainText('4 entries have not reached Headroom yet');
+  await expect(ask).toContainText('5 entries have not reached Headroom yet');
   await expect(ask).toContainText('never with another');
   await ask.getByRole('button', { name: 'Cancel' }).click();
   await expect(ask).toHaveCount(0);
@@ -171,9 +178,10 @@ test('the crew records readings and a photo without signal; they arrive once, in
     /Rocker arm bolts #1: 31 lbf·ft · waiting to send/,
     /Rocker arm bolts #2: 36 lbf·ft · waiting to send/,
     /Valve cover bolts #1: 30 lbf·ft · waiting to send/,
+    /Ticked: Pushrods seated in their cups · waiting to send/,
     /Photo rockers\.jpg \(“Rockers in, before the covers”\) · waiting to send/,
   ]);
-  await expect(crew.getByTestId('offline-status')).toContainText('4 entries waiting to send');
+  await expect(crew.getByTestId('offline-status')).toContainText('5 entries waiting to send');
 
   // Meanwhile the owner changes the valve cover bolts' target.
   await call(owner, 'patch', `${api}/fasteners/${covers.id}`, { targetValue: 25 });
@@ -199,6 +207,8 @@ test('the crew records readings and a photo without signal; they arrive once, in
   expect(Date.parse(byPosition(1).recordedAt)).toBeLessThan(Date.parse(byPosition(2).recordedAt));
   // Each keeps the time it was taken on the phone, before it arrived.
   expect(Date.parse(byPosition(1).takenAt)).toBeLessThan(Date.parse(byPosition(1).recordedAt));
+  const { step: after } = await (await crew.request.get(`${api}/steps/${step.id}`)).json();
+  expect(after.checklist[0]).toMatchObject({ done: true, doneBy: { name: 'Teodor Brandt' } });
   const photos = (await (await crew.request.get(`${api}/steps/${step.id}/photos`)).json()).photos;
   expect(photos).toHaveLength(1);
   // Resized on the phone to the web size before it was kept.
