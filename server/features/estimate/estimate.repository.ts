@@ -23,20 +23,24 @@ export type StoredAssumptions = {
   tightMarginPct: number;
 };
 
+/** The target from a builds row: one read here, or the row that came with the session. */
+export function targetOf(row: Record<string, unknown>): BuildTarget {
+  return {
+    powerHp: row.target_power_hp as number,
+    basis: row.target_power_basis as BuildTarget['basis'],
+    torqueLbft: row.target_torque_lbft as number | null,
+    cylinders: row.cylinders as number,
+  };
+}
+
 export async function findBuildTarget(
   knex: Knex,
   buildId: string,
 ): Promise<BuildTarget | undefined> {
-  const row = await knex('builds')
+  const row: Record<string, unknown> | undefined = await knex('builds')
     .where({ id: buildId })
     .first('target_power_hp', 'target_power_basis', 'target_torque_lbft', 'cylinders');
-  if (!row) return undefined;
-  return {
-    powerHp: row.target_power_hp,
-    basis: row.target_power_basis,
-    torqueLbft: row.target_torque_lbft,
-    cylinders: row.cylinders,
-  };
+  return row && targetOf(row);
 }
 
 export async function findAssumptions(

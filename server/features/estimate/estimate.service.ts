@@ -11,6 +11,7 @@ import {
 import { convertBsfc } from '../../../shared/units/convert';
 import { partCategoryLabels } from '../../../shared/schemas/parts';
 import { ConflictError, NotFoundError } from '../../lib/errors';
+import type { BuildRowJson } from '../../lib/sessions.repository';
 import * as repo from './estimate.repository';
 
 /** The default assumptions, as the schema fills them in for an empty body. */
@@ -98,14 +99,16 @@ export function anonymiseForShop(parts: repo.RatedPart[], shopUserId: string): E
  * A stored build's estimate: its target and cylinders, its saved assumptions
  * (or the defaults) and its rated parts that have not been sent back.
  * viewer.shopUserId set: the caller is a shop member (see anonymiseForShop).
+ * buildRow: the build's row when the session brought it (no statement for the target).
  */
 export async function estimateBuild(
   knex: Knex,
   buildId: string,
   viewer: { shopUserId?: string } = {},
+  buildRow?: BuildRowJson,
 ): Promise<EstimateResult> {
   const [target, saved, parts] = await Promise.all([
-    repo.findBuildTarget(knex, buildId),
+    buildRow ? repo.targetOf(buildRow) : repo.findBuildTarget(knex, buildId),
     getAssumptions(knex, buildId),
     repo.listRatedParts(knex, buildId),
   ]);
