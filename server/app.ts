@@ -46,7 +46,9 @@ export function createApp(opts: {
   // gzip for the client's files and large JSON (photo bytes are JPEG already and are skipped).
   // A smaller answer reaches the browser in the first round trip anyway (TCP's initial window
   // is about 14 KB), so gzip would only cost CPU: a zlib stream for every answer.
-  app.use(compression({ threshold: '8kb' }));
+  // The health check ({ok}, polled by monitors) skips it: its wrapping alone costs more than the answer.
+  const compress = compression({ threshold: '8kb' });
+  app.use((req, res, next) => (req.url === '/api/health' ? next() : compress(req, res, next)));
   app.set('trust proxy', opts.config.trustProxy ? 1 : false);
   app.use(
     helmet({

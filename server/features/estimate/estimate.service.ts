@@ -14,9 +14,10 @@ import { ConflictError, NotFoundError } from '../../lib/errors';
 import type { BuildRowJson } from '../../lib/sessions.repository';
 import * as repo from './estimate.repository';
 
-/** The default assumptions, as the schema fills them in for an empty body. */
+/** The default assumptions, as the schema fills them in for an empty body (parsed once). */
+const defaultAssumptions = assumptionsInputSchema.parse({});
 function defaults(): Assumptions {
-  return assumptionsInputSchema.parse({});
+  return { ...defaultAssumptions };
 }
 
 /**
