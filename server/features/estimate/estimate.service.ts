@@ -52,7 +52,10 @@ function toStored(a: Assumptions): repo.StoredAssumptions {
 
 /** The build's saved assumptions, or the defaults (isDefault) when the owner has saved none. */
 export async function getAssumptions(knex: Knex, buildId: string): Promise<AssumptionsResponse> {
-  const row = await repo.findAssumptions(knex, buildId);
+  return assumptionsFrom(await repo.findAssumptions(knex, buildId));
+}
+
+function assumptionsFrom(row: repo.StoredAssumptions | undefined): AssumptionsResponse {
   return row
     ? { assumptions: fromStored(row), isDefault: false }
     : { assumptions: defaults(), isDefault: true };
@@ -108,11 +111,12 @@ export async function estimateBuild(
   viewer: { shopUserId?: string } = {},
   buildRow?: BuildRowJson,
 ): Promise<EstimateResult> {
-  const [target, saved, parts] = await Promise.all([
+  const [target, inputs] = await Promise.all([
     buildRow ? repo.targetOf(buildRow) : repo.findBuildTarget(knex, buildId),
-    getAssumptions(knex, buildId),
-    repo.listRatedParts(knex, buildId),
+    repo.findEstimateInputs(knex, buildId),
   ]);
+  const saved = assumptionsFrom(inputs.assumptions);
+  const parts = inputs.parts;
   if (!target) throw new NotFoundError('Build not found');
   // Targets are refused below 0.1 hp on the way in; a row stored before that rule may still
   // hold 0, from which nothing can be worked out. Say so instead of failing.
