@@ -9,6 +9,7 @@
  *
  *   npm run bench:api                       all endpoints, 50 connections, 5 s a run, 2 rounds
  *   npm run bench:api -- --connections 200 --duration 30 --rounds 1 --only parts
+ *   npm run bench:api -- --only jobs --cpu-prof /tmp/prof   the server's CPU profile, written when it stops
  */
 import { fork, spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
@@ -20,6 +21,7 @@ import { knexConfig } from '../db/knexfile';
 import { seedDemo } from '../db/seeds/demo';
 import { createLocalDiskStorage } from '../server/lib/storage';
 import { createPgCluster, freePort } from './lib/pg-cluster';
+import { clusterPids, cpuMsOf, rssOf } from './bench/proc';
 
 const { values: opts } = parseArgs({
   options: {
@@ -27,17 +29,13 @@ const { values: opts } = parseArgs({
     duration: { type: 'string', default: '5' },
     rounds: { type: 'string', default: '2' },
     only: { type: 'string' },
+    'cpu-prof': { type: 'string' },
   },
 });
 const connections = Math.min(1000, Number(opts.connections));
 const duration = Math.min(120, Number(opts.duration));
 const rounds = Math.min(10, Number(opts.rounds));
 const root = path.resolve(import.meta.dirname, '..');
-
-function rssOf(pid: number): number {
-  const status = fs.readFileSync(`/proc/${pid}/status`, 'utf8');
-  return Number(/VmRSS:\s+(\d+)/.exec(status)?.[1] ?? 0) / 1024;
-}
 
 async function waitFor(url: string) {
   for (let i = 0; i < 300; i++) {
@@ -51,16 +49,43 @@ async function waitFor(url: string) {
   throw new Error(`${url} never answered`);
 }
 
-type Result = { rps: number; p50: number; p99: number; errors: number; non2xx: number };
+type Result = {
+  rps: number;
+  p50: number;
+  p99: number;
+  errors: number;
+  non2xx: number;
+  /** CPU time per request, in µs: the app process's, and PostgreSQL's (all its processes). */
+  appUs: number;
+  pgUs: number;
+};
 
-async function run(url: string, headers: Record<string, string>): Promise<Result> {
+/** CPU ms of each pid now, so a run can take the difference (new backends start from 0). */
+function cpuSnapshot(pids: number[]) {
+  return new Map(pids.map((pid) => [pid, cpuMsOf([pid])]));
+}
+function cpuSince(before: Map<number, number>, pids: number[]) {
+  return pids.reduce((ms, pid) => ms + cpuMsOf([pid]) - (before.get(pid) ?? 0), 0);
+}
+
+async function run(
+  url: string,
+  headers: Record<string, string>,
+  appPid: number,
+  pgPort: number,
+): Promise<Result> {
+  const app = cpuMsOf([appPid]);
+  const pg = cpuSnapshot(clusterPids(pgPort));
   const r = await autocannon({ url, connections, duration, headers, pipelining: 1 });
+  const requests = r.requests.total || 1;
   return {
     rps: r.requests.average,
     p50: r.latency.p50,
     p99: r.latency.p99,
     errors: r.errors + r.timeouts,
     non2xx: r.non2xx,
+    appUs: ((cpuMsOf([appPid]) - app) * 1000) / requests,
+    pgUs: (cpuSince(pg, clusterPids(pgPort)) * 1000) / requests,
   };
 }
 
@@ -76,7 +101,9 @@ try {
   await knex.destroy();
 
   const [appPort, floorPort, mailPort] = [await freePort(), await freePort(), await freePort()];
-  const server = spawn('node', ['--import', 'tsx', 'server/index.ts'], {
+  const pgPort = Number(new URL(cluster.url).port);
+  const profile = opts['cpu-prof'] ? ['--cpu-prof', `--cpu-prof-dir=${opts['cpu-prof']}`] : [];
+  const server = spawn('node', [...profile, '--import', 'tsx', 'server/index.ts'], {
     cwd: root,
     env: {
       ...process.env,
@@ -139,44 +166,78 @@ try {
     const runs: Result[] = [];
     const floors: Result[] = [];
     for (let i = 0; i < rounds; i++) {
-      floors.push(await run(`http://127.0.0.1:${floorPort}/floor`, {}));
-      runs.push(await run(base + p, headers));
+      floors.push(await run(`http://127.0.0.1:${floorPort}/floor`, {}, floor.pid!, pgPort));
+      runs.push(await run(base + p, headers, server.pid!, pgPort));
       peakRss = Math.max(peakRss, rssOf(server.pid!));
     }
     floorRuns.push(...floors);
     table.push({ name, runs, floor: floors });
   }
   const pad = (s: string | number, n: number) => String(s).padStart(n);
-  console.log(
-    `${'endpoint'.padEnd(10)}${pad('req/s', 9)}${pad('p50 ms', 9)}${pad('p99 ms', 9)}${pad('p50×floor', 11)}${pad('p99×floor', 11)}${pad('errors', 8)}${pad('non-2xx', 9)}`,
-  );
-  const fl = {
-    rps: median(floorRuns.map((r) => r.rps)),
-    p50: median(floorRuns.map((r) => r.p50)),
-    p99: median(floorRuns.map((r) => r.p99)),
-  };
-  console.log(
-    `${'floor'.padEnd(10)}${pad(Math.round(fl.rps), 9)}${pad(fl.p50, 9)}${pad(fl.p99, 9)}${pad('1.0', 11)}${pad('1.0', 11)}${pad(0, 8)}${pad(0, 9)}`,
-  );
-  for (const row of table) {
-    const rps = median(row.runs.map((r) => r.rps));
-    const p50 = median(row.runs.map((r) => r.p50));
-    const p99 = median(row.runs.map((r) => r.p99));
-    // Against the floor runs made next to these ones, so a busy machine shifts both alike.
-    const f50 = median(row.floor.map((r) => r.p50)) || 1;
-    const f99 = median(row.floor.map((r) => r.p99)) || 1;
-    const errors = row.runs.reduce((n, r) => n + r.errors, 0);
-    const non2xx = row.runs.reduce((n, r) => n + r.non2xx, 0);
+  const line = (name: string, c: (string | number)[]) =>
     console.log(
-      `${row.name.padEnd(10)}${pad(Math.round(rps), 9)}${pad(p50, 9)}${pad(p99, 9)}${pad((p50 / f50).toFixed(1), 11)}${pad((p99 / f99).toFixed(1), 11)}${pad(errors, 8)}${pad(non2xx, 9)}`,
+      name.padEnd(10) + c.map((v, i) => pad(v, [9, 9, 9, 11, 11, 8, 9, 10, 10][i])).join(''),
     );
+  line('endpoint', [
+    'req/s',
+    'p50 ms',
+    'p99 ms',
+    'p50×floor',
+    'p99×floor',
+    'errors',
+    'non-2xx',
+    'app µs',
+    'pg µs',
+  ]);
+  const med = (rs: Result[], k: keyof Result) => median(rs.map((r) => r[k]));
+  line('floor', [
+    Math.round(med(floorRuns, 'rps')),
+    med(floorRuns, 'p50'),
+    med(floorRuns, 'p99'),
+    '1.0',
+    '1.0',
+    0,
+    0,
+    Math.round(med(floorRuns, 'appUs')),
+    Math.round(med(floorRuns, 'pgUs')),
+  ]);
+  for (const row of table) {
+    const p50 = med(row.runs, 'p50');
+    const p99 = med(row.runs, 'p99');
+    // Against the floor runs made next to these ones, so a busy machine shifts both alike.
+    const f50 = med(row.floor, 'p50') || 1;
+    const f99 = med(row.floor, 'p99') || 1;
+    line(row.name, [
+      Math.round(med(row.runs, 'rps')),
+      p50,
+      p99,
+      (p50 / f50).toFixed(1),
+      (p99 / f99).toFixed(1),
+      row.runs.reduce((n, r) => n + r.errors, 0),
+      row.runs.reduce((n, r) => n + r.non2xx, 0),
+      Math.round(med(row.runs, 'appUs')),
+      Math.round(med(row.runs, 'pgUs')),
+    ]);
   }
+  console.log(
+    "\napp µs, pg µs: CPU time per request of the app process (the floor's for the floor row) and of PostgreSQL",
+  );
   console.log(
     `\nserver memory (RSS): ${rssStart.toFixed(0)} MB at start, ${peakRss.toFixed(0)} MB at most, ${rssOf(server.pid!).toFixed(0)} MB at the end\n`,
   );
   fs.rmSync(storageDir, { recursive: true, force: true });
 } finally {
   for (const c of children) c.kill('SIGTERM');
-  await new Promise((r) => setTimeout(r, 500));
+  // The server writes its CPU profile as it exits.
+  await Promise.all(
+    children.map((c) =>
+      c.exitCode === null
+        ? Promise.race([
+            new Promise((r) => c.once('exit', r)),
+            new Promise((r) => setTimeout(r, 5000)),
+          ])
+        : null,
+    ),
+  );
   cluster.remove();
 }

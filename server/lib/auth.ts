@@ -21,6 +21,13 @@ declare module 'lucia' {
 
 export type SessionUser = { id: string; email: string; displayName: string };
 
+/** The caller's role on the build in the path, found with the session, and that build's row. */
+export type SessionMembership = {
+  buildId: string;
+  role: Role | null;
+  build: sessionsRepo.BuildRowJson | null;
+};
+
 const sessionTerm = new TimeSpan(30, 'd');
 
 // OWASP's argon2id baseline (19 MiB, 2 passes, 1 lane); @node-rs/argon2 defaults to argon2id.
@@ -93,7 +100,7 @@ export function createSessions(pool: pg.Pool) {
      * Reads the cookie and validates the session with lucia's rules (expired:
      * deleted and the cookie cleared; in its second half: extended to a full
      * term and the cookie renewed), in one statement that also brings the
-     * user's role on `buildId` when the request is about a build.
+     * user's role on `buildId` when the request is about a build, and the build.
      */
     async resume(
       req: Request,
@@ -102,7 +109,7 @@ export function createSessions(pool: pg.Pool) {
     ): Promise<{
       user: SessionUser;
       sessionId: string;
-      membership: { buildId: string; role: Role | null } | null;
+      membership: SessionMembership | null;
     } | null> {
       const id = lucia.readSessionCookie(req.headers.cookie ?? '');
       if (!id) return null;
@@ -120,7 +127,7 @@ export function createSessions(pool: pg.Pool) {
       return {
         user: { id: row.user_id, email: row.email, displayName: row.display_name },
         sessionId: id,
-        membership: buildId ? { buildId, role: row.role } : null,
+        membership: buildId ? { buildId, role: row.role, build: row.build } : null,
       };
     },
 

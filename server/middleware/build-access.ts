@@ -20,12 +20,10 @@ export function createBuildAccess(knex: Knex, findRole: FindRole): BuildAccess {
     if (!parsed.success) throw new NotFoundError('Build not found');
     // Usually found with the session already (one statement for both); asked here otherwise.
     const known = req.sessionMembership;
-    const role =
-      known && known.buildId === parsed.data.toLowerCase()
-        ? (known.role ?? undefined)
-        : await findRole(knex, parsed.data, req.user.id);
+    const found = known && known.buildId === parsed.data.toLowerCase();
+    const role = found ? (known.role ?? undefined) : await findRole(knex, parsed.data, req.user.id);
     if (!role) throw new NotFoundError('Build not found');
-    req.membership = { buildId: parsed.data, role };
+    req.membership = { buildId: parsed.data, role, build: (found && known.build) || undefined };
     res.locals.hideMoney = !can(role, 'money:read');
     if (!can(role, action)) throw new ForbiddenError();
     next();

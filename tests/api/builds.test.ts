@@ -9,6 +9,9 @@ import {
   signUp,
 } from '../helpers/factories';
 
+import { findBuildForUser } from '../../server/features/builds/builds.repository';
+import { stripMoney } from '../../server/lib/money-filter';
+
 const app = useTestApp();
 
 describe('POST /api/builds', () => {
@@ -107,6 +110,22 @@ describe('GET /api/builds/:buildId', () => {
   it('answers 401 when signed out, whether or not the build exists', async () => {
     const { build } = await buildWithCast(app);
     expect((await app.agent().get(`/api/builds/${build.id}`)).status).toBe(401);
+  });
+
+  it('reads the build from the row that came with the session exactly as from its own query', async () => {
+    const { owner, crew, build } = await buildWithCast(app);
+    // Every kind of column: text, numeric, a date, money, timestamps with microseconds.
+    await owner.agent.patch(`/api/builds/${build.id}`).send({
+      displacementLiters: 6.65,
+      targetDate: '2027-05-01',
+      targetTorqueLbft: 1450.5,
+      budgetCents: 1_234_567_89,
+    });
+    const direct = (userId: string) => findBuildForUser(app.db.knex, build.id, userId);
+    const o = await owner.agent.get(`/api/builds/${build.id}`);
+    expect(o.body.build).toEqual(await direct(owner.id));
+    const c = await crew.agent.get(`/api/builds/${build.id}`);
+    expect(c.body.build).toEqual(stripMoney(await direct(crew.id)));
   });
 });
 

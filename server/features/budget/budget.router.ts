@@ -6,7 +6,8 @@ import * as service from './budget.service';
 export function budgetRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
   router.get('/', deps.access('budget:read'), async (req, res) => {
-    res.json({ budget: await service.get(deps.db.knex, req.membership!.buildId, req.user!.id) });
+    const m = req.membership!;
+    res.json({ budget: await service.get(deps.db.knex, m.buildId, req.user!.id, m) });
   });
   return router;
 }

@@ -5,9 +5,11 @@ import { NotFoundError } from '../../lib/errors';
 import * as builds from '../builds';
 import * as parts from '../parts';
 
-export async function get(knex: Knex, buildId: string, userId: string) {
-  const build = await builds.get(knex, buildId, userId).catch(() => undefined);
+export async function get(knex: Knex, buildId: string, userId: string, known?: builds.KnownBuild) {
+  const [build, all] = await Promise.all([
+    builds.get(knex, buildId, userId, known).catch(() => undefined),
+    parts.listAll(knex, buildId),
+  ]);
   if (!build) throw new NotFoundError('Build not found');
-  const all = await parts.listAll(knex, buildId);
   return computeBudget(all, build.budgetCents ?? 0, build.currency);
 }

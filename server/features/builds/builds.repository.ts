@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/permissions';
 import type { Build, CreateBuildInput, UpdateBuildInput } from '../../../shared/schemas/builds';
+import type { BuildRowJson } from '../../lib/sessions.repository';
 
 /** camelCase field → snake_case column, for every field an owner can write. */
 const columns = {
@@ -76,6 +77,19 @@ export async function listBuildsForUser(knex: Knex, userId: string) {
 export async function findBuildForUser(knex: Knex, buildId: string, userId: string) {
   const row: Row | undefined = await selectForUser(knex, userId).where('b.id', buildId).first();
   return row ? toBuild(row) : undefined;
+}
+
+/**
+ * The build from the row that came with the session (to_jsonb of the builds row,
+ * timestamps as text), exactly as findBuildForUser gives it, without a statement.
+ */
+export function buildFromJson(json: BuildRowJson, role: Role): Build {
+  return toBuild({
+    ...json,
+    role,
+    created_at: new Date(json.created_at as string),
+    updated_at: new Date(json.updated_at as string),
+  });
 }
 
 export async function insertBuild(knex: Knex, input: CreateBuildInput): Promise<string> {

@@ -17,7 +17,8 @@ export function buildsRouter(deps: AppDeps) {
     res.status(201).json({ build: await service.create(knex, req.user!.id, req.body) });
   });
   router.get('/:buildId', deps.access('build:read'), async (req, res) => {
-    res.json({ build: await service.get(knex, req.membership!.buildId, req.user!.id) });
+    const m = req.membership!;
+    res.json({ build: await service.get(knex, m.buildId, req.user!.id, m) });
   });
   router.patch(
     '/:buildId',

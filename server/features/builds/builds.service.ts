@@ -1,8 +1,9 @@
 import type { Knex } from 'knex';
-import { can } from '../../../shared/permissions';
+import { can, type Role } from '../../../shared/permissions';
 import type { CreateBuildInput, UpdateBuildInput } from '../../../shared/schemas/builds';
 import { stripMoney } from '../../lib/money-filter';
 import { NotFoundError } from '../../lib/errors';
+import type { BuildRowJson } from '../../lib/sessions.repository';
 import type { Logger } from '../../lib/logger';
 import type { Storage } from '../../lib/storage';
 import * as files from '../files';
@@ -15,7 +16,12 @@ export async function listMine(knex: Knex, userId: string) {
   return builds.map((b) => (can(b.myRole, 'money:read') ? b : stripMoney(b)));
 }
 
-export async function get(knex: Knex, buildId: string, userId: string) {
+/** What the access check may already hold: the caller's role and the build's row (lib/request.ts). */
+export type KnownBuild = { role: Role; build?: BuildRowJson };
+
+/** The build as `userId` sees it; read from `known` when the session brought its row. */
+export async function get(knex: Knex, buildId: string, userId: string, known?: KnownBuild) {
+  if (known?.build) return repo.buildFromJson(known.build, known.role);
   const build = await repo.findBuildForUser(knex, buildId, userId);
   if (!build) throw new NotFoundError('Build not found');
   return build;

@@ -23,19 +23,37 @@ export type StoredAssumptions = {
   tightMarginPct: number;
 };
 
+/** The target from a builds row: one read here, or the row that came with the session. */
+export function targetOf(row: Record<string, unknown>): BuildTarget {
+  return {
+    powerHp: row.target_power_hp as number,
+    basis: row.target_power_basis as BuildTarget['basis'],
+    torqueLbft: row.target_torque_lbft as number | null,
+    cylinders: row.cylinders as number,
+  };
+}
+
 export async function findBuildTarget(
   knex: Knex,
   buildId: string,
 ): Promise<BuildTarget | undefined> {
-  const row = await knex('builds')
+  const row: Record<string, unknown> | undefined = await knex('builds')
     .where({ id: buildId })
     .first('target_power_hp', 'target_power_basis', 'target_torque_lbft', 'cylinders');
-  if (!row) return undefined;
+  return row && targetOf(row);
+}
+
+type AssumptionsRow = Record<string, unknown> & { bsfc_entry_unit: BsfcUnit };
+
+function toStoredAssumptions(row: AssumptionsRow): StoredAssumptions {
   return {
-    powerHp: row.target_power_hp,
-    basis: row.target_power_basis,
-    torqueLbft: row.target_torque_lbft,
-    cylinders: row.cylinders,
+    bsfcLbPerHpH: row.bsfc_lb_per_hp_h as number,
+    bsfcEntryUnit: row.bsfc_entry_unit,
+    afr: row.afr as number,
+    fuelDensityKgPerL: row.fuel_density_kg_per_l as number,
+    drivetrainLossPct: row.drivetrain_loss_pct as number,
+    peakRpm: row.peak_rpm as number,
+    tightMarginPct: row.tight_margin_pct as number,
   };
 }
 
@@ -43,17 +61,10 @@ export async function findAssumptions(
   knex: Knex,
   buildId: string,
 ): Promise<StoredAssumptions | undefined> {
-  const row = await knex('build_assumptions').where({ build_id: buildId }).first();
-  if (!row) return undefined;
-  return {
-    bsfcLbPerHpH: row.bsfc_lb_per_hp_h,
-    bsfcEntryUnit: row.bsfc_entry_unit,
-    afr: row.afr,
-    fuelDensityKgPerL: row.fuel_density_kg_per_l,
-    drivetrainLossPct: row.drivetrain_loss_pct,
-    peakRpm: row.peak_rpm,
-    tightMarginPct: row.tight_margin_pct,
-  };
+  const row: AssumptionsRow | undefined = await knex('build_assumptions')
+    .where({ build_id: buildId })
+    .first();
+  return row && toStoredAssumptions(row);
 }
 
 /** Inserts or replaces the build's one row. */
@@ -76,33 +87,19 @@ export async function upsertAssumptions(knex: Knex, buildId: string, a: StoredAs
 /** The build's parts that carry a rating and have not been sent back, as estimator components. */
 export type RatedPart = EstimateComponent & { shopUserId: string | null };
 
-export async function listRatedParts(knex: Knex, buildId: string): Promise<RatedPart[]> {
-  const rows: {
-    id: string;
-    name: string;
-    category: PartCategory;
-    quantity: number;
-    rating_value: number;
-    rating_unit: RatingUnit;
-    rating_for: string;
-    shop_user_id: string | null;
-  }[] = await knex('parts')
-    .where({ build_id: buildId })
-    .whereNot({ status: 'returned' })
-    .whereNotNull('rating_value')
-    .whereNotNull('rating_unit')
-    .orderBy([{ column: 'category' }, { column: 'name' }, { column: 'id' }])
-    .select(
-      'id',
-      'name',
-      'category',
-      'quantity',
-      'rating_value',
-      'rating_unit',
-      'rating_for',
-      'shop_user_id',
-    );
-  return rows.map((r) => ({
+type RatedPartRow = {
+  id: string;
+  name: string;
+  category: PartCategory;
+  quantity: number;
+  rating_value: number;
+  rating_unit: RatingUnit;
+  rating_for: string;
+  shop_user_id: string | null;
+};
+
+function toRatedPart(r: RatedPartRow): RatedPart {
+  return {
     id: r.id,
     name: r.name,
     category: r.category,
@@ -111,5 +108,38 @@ export async function listRatedParts(knex: Knex, buildId: string): Promise<Rated
     ratingUnit: r.rating_unit,
     ...(r.rating_for ? { ratingFor: r.rating_for } : {}),
     shopUserId: r.shop_user_id,
-  }));
+  };
+}
+
+/**
+ * What a build's estimate reads besides the build, in one statement: the saved
+ * assumptions (if any) and the parts that carry a rating and have not been sent
+ * back, ordered by category, name and id.
+ */
+export async function findEstimateInputs(
+  knex: Knex,
+  buildId: string,
+): Promise<{ assumptions: StoredAssumptions | undefined; parts: RatedPart[] }> {
+  const { rows } = await knex.raw<{
+    rows: { assumptions: AssumptionsRow | null; parts: RatedPartRow[] }[];
+  }>(
+    `select
+       (select to_jsonb(a) from build_assumptions a where a.build_id = :buildId) as assumptions,
+       coalesce((
+         select jsonb_agg(jsonb_build_object(
+             'id', p.id, 'name', p.name, 'category', p.category, 'quantity', p.quantity,
+             'rating_value', p.rating_value, 'rating_unit', p.rating_unit,
+             'rating_for', p.rating_for, 'shop_user_id', p.shop_user_id)
+           order by p.category, p.name, p.id)
+         from parts p
+         where p.build_id = :buildId and p.status <> 'returned'
+           and p.rating_value is not null and p.rating_unit is not null
+       ), '[]') as parts`,
+    { buildId },
+  );
+  const row = rows[0];
+  return {
+    assumptions: row.assumptions ? toStoredAssumptions(row.assumptions) : undefined,
+    parts: row.parts.map(toRatedPart),
+  };
 }

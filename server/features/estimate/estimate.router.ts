@@ -32,9 +32,9 @@ export function estimateRouter({ db, config }: AppDeps) {
 export function buildEstimateRouter(deps: AppDeps) {
   const router = Router({ mergeParams: true });
   router.get('/', deps.access('estimate:read'), async (req, res) => {
-    const { buildId, role } = req.membership!;
+    const { buildId, role, build } = req.membership!;
     const viewer = role === 'shop' ? { shopUserId: req.user!.id } : {};
-    res.json({ estimate: await service.estimateBuild(deps.db.knex, buildId, viewer) });
+    res.json({ estimate: await service.estimateBuild(deps.db.knex, buildId, viewer, build) });
   });
   return router;
 }

@@ -11,11 +11,13 @@ import {
 import { convertBsfc } from '../../../shared/units/convert';
 import { partCategoryLabels } from '../../../shared/schemas/parts';
 import { ConflictError, NotFoundError } from '../../lib/errors';
+import type { BuildRowJson } from '../../lib/sessions.repository';
 import * as repo from './estimate.repository';
 
-/** The default assumptions, as the schema fills them in for an empty body. */
+/** The default assumptions, as the schema fills them in for an empty body (parsed once). */
+const defaultAssumptions = assumptionsInputSchema.parse({});
 function defaults(): Assumptions {
-  return assumptionsInputSchema.parse({});
+  return { ...defaultAssumptions };
 }
 
 /**
@@ -50,7 +52,10 @@ function toStored(a: Assumptions): repo.StoredAssumptions {
 
 /** The build's saved assumptions, or the defaults (isDefault) when the owner has saved none. */
 export async function getAssumptions(knex: Knex, buildId: string): Promise<AssumptionsResponse> {
-  const row = await repo.findAssumptions(knex, buildId);
+  return assumptionsFrom(await repo.findAssumptions(knex, buildId));
+}
+
+function assumptionsFrom(row: repo.StoredAssumptions | undefined): AssumptionsResponse {
   return row
     ? { assumptions: fromStored(row), isDefault: false }
     : { assumptions: defaults(), isDefault: true };
@@ -98,17 +103,20 @@ export function anonymiseForShop(parts: repo.RatedPart[], shopUserId: string): E
  * A stored build's estimate: its target and cylinders, its saved assumptions
  * (or the defaults) and its rated parts that have not been sent back.
  * viewer.shopUserId set: the caller is a shop member (see anonymiseForShop).
+ * buildRow: the build's row when the session brought it (no statement for the target).
  */
 export async function estimateBuild(
   knex: Knex,
   buildId: string,
   viewer: { shopUserId?: string } = {},
+  buildRow?: BuildRowJson,
 ): Promise<EstimateResult> {
-  const [target, saved, parts] = await Promise.all([
-    repo.findBuildTarget(knex, buildId),
-    getAssumptions(knex, buildId),
-    repo.listRatedParts(knex, buildId),
+  const [target, inputs] = await Promise.all([
+    buildRow ? repo.targetOf(buildRow) : repo.findBuildTarget(knex, buildId),
+    repo.findEstimateInputs(knex, buildId),
   ]);
+  const saved = assumptionsFrom(inputs.assumptions);
+  const parts = inputs.parts;
   if (!target) throw new NotFoundError('Build not found');
   // Targets are refused below 0.1 hp on the way in; a row stored before that rule may still
   // hold 0, from which nothing can be worked out. Say so instead of failing.
