@@ -8,6 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   addDays,
+  buildToday,
   canonicalTimeZone,
   daysBetween,
   isIsoDate,
@@ -43,6 +44,15 @@ describe("today in the build's time zone", () => {
       minute: 0,
       weekday: 1,
     });
+  });
+});
+
+describe("a build's today and the device's", () => {
+  it("is the build's zone's date, and UTC's until the owner chooses a zone", () => {
+    // IANA tz database: 2027-03-15T05:30Z is 23:30 MDT on 14 March, after the spring change.
+    const late = new Date('2027-03-15T05:30:00Z');
+    expect(buildToday({ timeZone: denver }, late)).toBe('2027-03-14');
+    expect(buildToday({ timeZone: null }, late)).toBe('2027-03-15');
   });
 });
 

@@ -3,7 +3,7 @@
  * each other, and who may change a target that readings were judged against.
  */
 import { positionLabel } from '../../../shared/install-log/positions';
-import { asksRetorque } from '../../../shared/install-log/retorque';
+import { asksRetorque, readingKindRefusal } from '../../../shared/install-log/retorque';
 import { judgeTorque } from '../../../shared/install-log/torque';
 import { can } from '../../../shared/permissions';
 import {
@@ -199,8 +199,12 @@ export async function recordReading(
   const stage = input.stage ?? null;
   const { id, supersededId } = await knex.transaction(async (trx) => {
     const status = await lockStep(trx, step.id);
-    if (kind === 'install') assertOpen({ status });
-    else if (status !== 'signed-off') {
+    const refusal = readingKindRefusal(kind, {
+      signedOff: status === 'signed-off',
+      retorqueAsked: asksRetorque(spec),
+    });
+    if (refusal === 'step-signed-off') assertOpen({ status });
+    else if (refusal === 'step-not-signed-off') {
       throw new ConflictError(
         'step_not_signed_off',
         'Re-torque checks come after the step is signed off',

@@ -10,7 +10,7 @@ import {
   Ruler,
   Trash2,
 } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
+import { canAddPhotosTo, canCaptionPhoto, capabilities } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { FastenerSpec, Step } from '../../../../shared/schemas/install-log';
 import type { Photo } from '../../../../shared/schemas/photos';
@@ -123,9 +123,12 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
   const [moved, setMoved] = useState('');
 
   const role = build.myRole;
-  const canWrite = can(role, 'install:write');
-  const canDelete = can(role, 'install:delete');
-  const isOwner = can(role, 'install:override');
+  const {
+    canWorkOnSteps: canWrite,
+    canDeleteSteps: canDelete,
+    canOverrideSignOff,
+    canDeletePhotos,
+  } = capabilities(role);
   const locked = step.status === 'signed-off';
   const editable = canWrite && !locked;
 
@@ -144,8 +147,7 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
     );
   }
 
-  const canCaption = (photo: Photo) =>
-    can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id);
+  const canCaption = (photo: Photo) => canCaptionPhoto(role, me.id, photo);
 
   return (
     <>
@@ -269,14 +271,14 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
           )}
         </section>
 
-        <SignOffPanel step={step} canSignOff={canWrite} canOverride={isOwner} />
+        <SignOffPanel step={step} canSignOff={canWrite} canOverride={canOverrideSignOff} />
 
         <AttachedPhotos
           buildId={build.id}
           target={{ stepId: step.id }}
-          canUpload={can(role, 'photos:upload') && role !== 'shop'}
+          canUpload={canAddPhotosTo(role, 'step')}
           canCaption={canCaption}
-          canDelete={can(role, 'photos:delete')}
+          canDelete={canDeletePhotos}
         />
 
         {(canWrite || canDelete) && (
@@ -401,7 +403,7 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
         {editingSpec && (
           <FastenerForm
             spec={editingSpec}
-            canOverride={isOwner}
+            canOverride={canOverrideSignOff}
             onCancel={() => setEditingSpec(null)}
             onSubmit={async (input) => {
               await updateFastener.mutateAsync({

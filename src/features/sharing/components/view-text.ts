@@ -91,9 +91,3 @@ export const roleNames: Record<string, string> = {
   shop: 'Shop',
   viewer: 'Follower',
 };
-
-/** Today on this device, YYYY-MM-DD: the date a sheet is printed. */
-export function todayIso(now = new Date()): string {
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
-}
