@@ -147,6 +147,19 @@ export function addDays(date: IsoDate, days: number): IsoDate {
   return new Date(utcMidnight(date) + days * dayMs).toISOString().slice(0, 10);
 }
 
+/**
+ * A date as a number on a chart's continuous time axis: the milliseconds of its UTC midnight,
+ * so every day is the same width and gaps between dates look as long as they are.
+ */
+export function dateToAxis(date: IsoDate): number {
+  return utcMidnight(date);
+}
+
+/** The date a time-axis value falls on (the inverse of dateToAxis). */
+export function axisToDate(t: number): IsoDate {
+  return new Date(t).toISOString().slice(0, 10);
+}
+
 /** The later of two dates. */
 export function laterOf(a: IsoDate, b: IsoDate): IsoDate {
   return a > b ? a : b;

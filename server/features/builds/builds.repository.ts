@@ -78,6 +78,12 @@ export async function findBuildForUser(knex: Knex, buildId: string, userId: stri
   return row ? toBuild(row) : undefined;
 }
 
+/** The build's IANA time zone, or null until its owner chooses one (or no such build). */
+export async function findTimeZone(knex: Knex, buildId: string): Promise<string | null> {
+  const row = await knex('builds').where({ id: buildId }).first('time_zone');
+  return row?.time_zone ?? null;
+}
+
 export async function insertBuild(knex: Knex, input: CreateBuildInput): Promise<string> {
   const [row] = await knex('builds').insert(toRow(input)).returning('id');
   return row.id;

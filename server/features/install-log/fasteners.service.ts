@@ -15,6 +15,7 @@ import {
 } from '../../../shared/schemas/install-log';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import { parseId, type BuildScope } from '../../lib/scope';
+import * as builds from '../builds';
 import { wrenchForReading } from '../wrenches';
 import { assertOpen, loadStep, lockOpenStep, lockStep, renameNotFound } from './access';
 import { presentReading, presentSpec } from './fasteners.present';
@@ -159,7 +160,7 @@ async function wrenchOf(scope: BuildScope, input: CreateReadingInput) {
     buildId: scope.buildId,
     userId: scope.caller.userId,
     wrenchId: input.wrenchId,
-    on: new Date().toISOString().slice(0, 10),
+    on: (await builds.calendar(scope.knex, scope.buildId)).today,
   });
   return { wrench: w.name, wrenchId: w.id, calibratedOn: w.calibratedOn, dueOn: w.dueOn };
 }

@@ -10,6 +10,7 @@
  * that made it queues the notice, in the same transaction. Nothing is kept in memory.
  */
 import type { Knex } from 'knex';
+import { daysBetween, fallbackTimeZone, todayIn } from '../../../shared/dates';
 import { partCategoryLabels } from '../../../shared/schemas/parts';
 import type { Logger } from '../../lib/logger';
 import { mailDate, quoted } from '../mail';
@@ -19,8 +20,12 @@ import * as repo from './parts.repository';
 /** Client path of a build's send-outs page (the client's route for it must match). */
 export const sendOutsPath = (buildId: string) => `/builds/${buildId}/send-outs`;
 
-/** The UTC calendar day, as the parts service judges send-outs (sendOutStatus). */
-const utcToday = (now: Date) => now.toISOString().slice(0, 10);
+/**
+ * The day the pass judges by: UTC's, one for every build. The parts service judges a build's
+ * send-outs by the build's own zone (builds.calendar), which is UTC until its owner chooses one;
+ * for a build in another zone the notice can come up to a day apart from the ledger's mark.
+ */
+const passDay = (now: Date) => todayIn(fallbackTimeZone, now);
 
 /**
  * One pass: every part now overdue whose spell has not been told yet. Returns how many
@@ -33,9 +38,7 @@ export async function notifyOverdueParts(knex: Knex, today: string): Promise<num
       // Still out and still overdue on the same promise (it may have come back meanwhile)?
       const part = await repo.lockOverdue(trx, candidate.id, today);
       if (!part || !(await repo.recordOverdueNotice(trx, part))) return 0;
-      const daysOver = Math.round(
-        (Date.parse(`${today}T00:00:00Z`) - Date.parse(`${part.dueOn}T00:00:00Z`)) / 86_400_000,
-      );
+      const daysOver = daysBetween(part.dueOn, today);
       const shop = part.shopName ? ` at ${part.shopName}` : ' at the shop';
       const bits = [partCategoryLabels[part.category]];
       if (part.partNumber) bits.push(`part number ${part.partNumber}`);
@@ -76,7 +79,7 @@ export function createOverdueWorker(opts: {
   let stopped = true;
 
   function runOnce(): Promise<number> {
-    running ??= notifyOverdueParts(opts.knex, utcToday(now())).finally(() => {
+    running ??= notifyOverdueParts(opts.knex, passDay(now())).finally(() => {
       running = null;
     });
     return running;
