@@ -16,9 +16,7 @@ import type { Logger } from '../../lib/logger';
 import { mailDate, quoted } from '../mail';
 import { notify } from '../notices';
 import * as repo from './parts.repository';
-
-/** Client path of a build's send-outs page (the client's route for it must match). */
-export const sendOutsPath = (buildId: string) => `/builds/${buildId}/send-outs`;
+import { paths } from '../../../shared/paths';
 
 /**
  * The day the pass judges by: UTC's, one for every build. The parts service judges a build's
@@ -53,7 +51,7 @@ export async function notifyOverdueParts(knex: Knex, today: string): Promise<num
             `with a turnaround of ${part.turnaroundDays} day${part.turnaroundDays === 1 ? '' : 's'}, ` +
             `so it was due back on ${mailDate(part.dueOn)}: ${daysOver} day${daysOver === 1 ? '' : 's'} ago.\n\n` +
             'If a new date was agreed, change the turnaround on the part; you will hear again only if that date passes too.',
-          link: sendOutsPath(part.buildId),
+          link: paths.builds.sendOuts.getHref(part.buildId),
           linkLabel: 'Open the send-outs',
         },
         // Nobody acted: the owner and the shop that has the part both hear.
