@@ -10,7 +10,7 @@
  * that made it queues the notice, in the same transaction. Nothing is kept in memory.
  */
 import type { Knex } from 'knex';
-import { daysBetween, fallbackTimeZone, todayIn } from '../../../shared/dates';
+import { addDays, buildToday, daysBetween, fallbackTimeZone, todayIn } from '../../../shared/dates';
 import { partCategoryLabels } from '../../../shared/schemas/parts';
 import type { Logger } from '../../lib/logger';
 import { mailDate, quoted } from '../mail';
@@ -19,19 +19,21 @@ import * as repo from './parts.repository';
 import { paths } from '../../../shared/paths';
 
 /**
- * The day the pass judges by: UTC's, one for every build. The parts service judges a build's
- * send-outs by the build's own zone (builds.calendar), which is UTC until its owner chooses one;
- * for a build in another zone the notice can come up to a day apart from the ledger's mark.
+ * The latest "today" any build can have at `now`: UTC's date plus one (no zone is more than
+ * 14 hours ahead of UTC). Parts overdue by it are the candidates; each is then judged by its
+ * own build's today, as the parts service marks it in the ledger.
  */
-const passDay = (now: Date) => todayIn(fallbackTimeZone, now);
+const latestToday = (now: Date) => addDays(todayIn(fallbackTimeZone, now), 1);
 
 /**
- * One pass: every part now overdue whose spell has not been told yet. Returns how many
- * notices this process queued. `today` is YYYY-MM-DD (tests pass their own).
+ * One pass: every part overdue at `now` in its build's time zone whose spell has not been told
+ * yet. Returns how many notices this process queued (tests pass their own `now`).
  */
-export async function notifyOverdueParts(knex: Knex, today: string): Promise<number> {
+export async function notifyOverdueParts(knex: Knex, now: Date): Promise<number> {
   let told = 0;
-  for (const candidate of await repo.overdueUntold(knex, today)) {
+  for (const candidate of await repo.overdueUntold(knex, latestToday(now))) {
+    const today = buildToday(candidate, now);
+    if (candidate.dueOn >= today) continue;
     told += await knex.transaction(async (trx) => {
       // Still out and still overdue on the same promise (it may have come back meanwhile)?
       const part = await repo.lockOverdue(trx, candidate.id, today);
@@ -77,7 +79,7 @@ export function createOverdueWorker(opts: {
   let stopped = true;
 
   function runOnce(): Promise<number> {
-    running ??= notifyOverdueParts(opts.knex, passDay(now())).finally(() => {
+    running ??= notifyOverdueParts(opts.knex, now()).finally(() => {
       running = null;
     });
     return running;
