@@ -97,6 +97,7 @@ const capabilityActions = {
   canEditBuild: 'build:update',
   canDeleteBuild: 'build:delete',
   canSeeMoney: 'money:read',
+  canSeeBudget: 'budget:read',
   canAddParts: 'parts:create',
   /** Every field of a part, its money and its ratings; others change only status and dates. */
   canEditPartFully: 'parts:create',
