@@ -90,18 +90,6 @@ function parseIsoDate(iso: string): { y: number; m: number; d: number } | null {
   return { y, m, d };
 }
 
-/**
- * Whole calendar days from `today` (local date) to an ISO date: 0 on the day, negative once it
- * has passed. Counted on UTC midnights so a daylight-saving change cannot lose or add a day.
- */
-export function daysUntil(isoDate: string, today: Date = new Date()): number | null {
-  const date = parseIsoDate(isoDate);
-  if (!date) return null;
-  const target = Date.UTC(date.y, date.m - 1, date.d);
-  const start = Date.UTC(today.getFullYear(), today.getMonth(), today.getDate());
-  return Math.round((target - start) / 86_400_000);
-}
-
 /** "12 days to go", "1 day to go", "Today", "3 days past". */
 export function countdownLabel(days: number): string {
   if (days === 0) return 'Today';

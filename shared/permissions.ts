@@ -89,6 +89,43 @@ export function can(role: Role, action: Action): boolean {
   return (permissions[action] as readonly Role[]).includes(role);
 }
 
+/**
+ * What a member may do, named after what it allows, for pages that show or hide controls (the
+ * server checks the actions themselves). Each name reads one action of the table above.
+ */
+const capabilityActions = {
+  canEditBuild: 'build:update',
+  canDeleteBuild: 'build:delete',
+  canSeeMoney: 'money:read',
+  canSeeBudget: 'budget:read',
+  canAddParts: 'parts:create',
+  /** Every field of a part, its money and its ratings; others change only status and dates. */
+  canEditPartFully: 'parts:create',
+  canUpdatePartProgress: 'parts:update',
+  canDeleteParts: 'parts:delete',
+  canImportParts: 'parts:import',
+  canEditAssumptions: 'assumptions:update',
+  canWorkOnSteps: 'install:write',
+  canDeleteSteps: 'install:delete',
+  /** Sign off over blockers with a reason, and reopen a signed-off step. */
+  canOverrideSignOff: 'install:override',
+  canDeletePhotos: 'photos:delete',
+  canEditMilestones: 'milestones:write',
+  canInviteMembers: 'invitations:manage',
+  canChangeTimelineSettings: 'timeline:settings',
+} as const satisfies Record<string, Action>;
+
+export type Capabilities = Record<keyof typeof capabilityActions, boolean>;
+
+/** The named capabilities of a role: `capabilities(role).canOverrideSignOff`. */
+export function capabilities(role: Role): Capabilities {
+  const out = {} as Capabilities;
+  for (const [name, action] of Object.entries(capabilityActions)) {
+    out[name as keyof Capabilities] = can(role, action);
+  }
+  return out;
+}
+
 /** Who entered a bench sheet: the shop member, or null when the owner or crew typed it in. */
 type BenchSheetAuthor = { shopUserId: string | null };
 
@@ -108,4 +145,22 @@ export function canChangeBenchSheet(role: Role, userId: string, sheet: BenchShee
 export function canDeleteBenchSheet(role: Role, userId: string, sheet: BenchSheetAuthor): boolean {
   if (!can(role, 'bench:delete')) return false;
   return role === 'owner' || sheet.shopUserId === userId;
+}
+
+/** Who uploaded a photo (null for photos whose uploader has left). */
+type PhotoAuthor = { uploadedBy?: { id: string } | null };
+
+/** Photo caption rule: owner and crew caption any photo; a shop only the photos it uploaded. */
+export function canCaptionPhoto(role: Role, userId: string, photo: PhotoAuthor): boolean {
+  if (!can(role, 'photos:update')) return false;
+  return role !== 'shop' || photo.uploadedBy?.id === userId;
+}
+
+/**
+ * Where a member adds photos: owner and crew to install steps and parts; a shop only to the
+ * parts sent to it, never to an install step. (The server also checks the part was sent to it.)
+ */
+export function canAddPhotosTo(role: Role, subject: 'step' | 'part'): boolean {
+  if (!can(role, 'photos:upload')) return false;
+  return subject === 'part' || role !== 'shop';
 }

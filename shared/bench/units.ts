@@ -12,6 +12,7 @@
  *   Without the stroke rate ml/min cannot be turned into a volume per stroke.
  */
 import { convertPressure } from '../units/convert';
+import { labelsOf } from '../units/labels';
 
 /** Units of delivered (or returned) volume. */
 export const benchFlowUnits = ['mm3-per-stroke', 'ml-per-1000-strokes', 'ml-per-min'] as const;
@@ -25,14 +26,7 @@ export type BenchPressureUnit = (typeof benchPressureUnits)[number];
 export const benchUnits = [...benchFlowUnits, ...benchPressureUnits] as const;
 export type BenchUnit = (typeof benchUnits)[number];
 
-export const benchUnitLabels: Record<BenchUnit, string> = {
-  'mm3-per-stroke': 'mm³/stroke',
-  'ml-per-1000-strokes': 'ml/1000 strokes',
-  'ml-per-min': 'ml/min',
-  bar: 'bar',
-  mpa: 'MPa',
-  psi: 'psi',
-};
+export const benchUnitLabels = labelsOf(benchUnits);
 
 export function isFlowUnit(unit: BenchUnit): unit is BenchFlowUnit {
   return (benchFlowUnits as readonly string[]).includes(unit);

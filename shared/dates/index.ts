@@ -99,6 +99,33 @@ export function todayIn(timeZone: string, now: Date = new Date()): IsoDate {
   return wallClock(now, timeZone).date;
 }
 
+/**
+ * A build's "today": the calendar date in its time zone, or in UTC until its owner chooses one.
+ * Every date a build's pages and services stamp or judge against ("ordered today", "overdue",
+ * "Yesterday" in the activity) is this one, on the server and in the browser alike.
+ */
+export function buildToday(build: { timeZone: string | null }, now: Date = new Date()): IsoDate {
+  return todayIn(build.timeZone ?? fallbackTimeZone, now);
+}
+
+/** This device's IANA time zone, when the engine names one Headroom accepts. */
+export function deviceTimeZone(): string | undefined {
+  try {
+    const zone = Intl.DateTimeFormat().resolvedOptions().timeZone;
+    return zone && isTimeZone(zone) ? zone : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * "Today" for what belongs to a person rather than a build (their own wrenches): the date on
+ * this device, or in UTC when it names no zone.
+ */
+export function deviceToday(now: Date = new Date()): IsoDate {
+  return todayIn(deviceTimeZone() ?? fallbackTimeZone, now);
+}
+
 function utcMidnight(date: IsoDate): number {
   return Date.parse(`${date}T00:00:00Z`);
 }
@@ -118,6 +145,19 @@ export function daysBetween(from: IsoDate, to: IsoDate): number {
 /** The date `days` after `date` (before it when negative). */
 export function addDays(date: IsoDate, days: number): IsoDate {
   return new Date(utcMidnight(date) + days * dayMs).toISOString().slice(0, 10);
+}
+
+/**
+ * A date as a number on a chart's continuous time axis: the milliseconds of its UTC midnight,
+ * so every day is the same width and gaps between dates look as long as they are.
+ */
+export function dateToAxis(date: IsoDate): number {
+  return utcMidnight(date);
+}
+
+/** The date a time-axis value falls on (the inverse of dateToAxis). */
+export function axisToDate(t: number): IsoDate {
+  return new Date(t).toISOString().slice(0, 10);
 }
 
 /** The later of two dates. */

@@ -10,33 +10,14 @@ import type {
   DynoWorkingInput,
   WorkingConstant,
 } from '../schemas/dyno';
+import { unitLabels } from '../units/labels';
 
 /** Short labels for every unit id a dyno figure or working can carry. */
 export const dynoUnitLabels: Record<string, string> = {
-  hp: 'hp',
-  kw: 'kW',
-  ps: 'PS',
-  'hp-crank': 'crank hp',
-  'hp-wheel': 'wheel hp',
-  'lbf-ft': 'lbf·ft',
-  'n-m': 'N·m',
-  rpm: 'rpm',
-  c: '°C',
-  f: '°F',
-  k: 'K',
-  r: '°R',
-  kpa: 'kPa',
-  mbar: 'mbar',
-  inhg: 'inHg',
-  psi: 'psi',
-  bar: 'bar',
+  ...unitLabels,
   '%': '%',
   factor: '×',
   ratio: ':1',
-  l: 'L',
-  'g-per-s': 'g/s',
-  'g-per-kwh': 'g/kWh',
-  'lb-per-hp-h': 'lb/(hp·h)',
   'mg-per-l-cycle': 'mg/(L·cycle)',
 };
 

@@ -54,6 +54,7 @@ import {
   US_GALLON_L,
 } from '../units/constants';
 import { convertBsfc } from '../units/convert';
+import { unitLabels } from '../units/labels';
 import {
   STOICHIOMETRIC_AFR_DIESEL,
   assumptionSpecs,
@@ -85,23 +86,10 @@ import type {
 
 /** Short unit labels for every unit id a figure can carry. */
 export const figureUnitLabels: Record<string, string> = {
-  'hp-crank': 'crank hp',
-  'hp-wheel': 'wheel hp',
-  kw: 'kW',
-  'lbf-ft': 'lbf·ft',
-  'n-m': 'N·m',
-  'mm3-per-stroke': 'mm³/stroke',
-  'lb-per-min': 'lb/min',
-  'l-per-h': 'L/h',
-  'gal-per-h': 'US gal/h',
-  'kg-per-h': 'kg/h',
-  'kg-per-l': 'kg/L',
-  'lb-per-hp-h': 'lb/(hp·h)',
-  'g-per-kwh': 'g/kWh',
+  ...unitLabels,
   ratio: ':1',
   lambda: 'λ',
   '%': '%',
-  rpm: 'rpm',
   cylinders: 'cylinders',
   count: '×',
 };

@@ -51,3 +51,29 @@ export function describeRetorque(spec: {
   if (!parts.length) return '';
   return `after ${parts.join(' or ')}${parts.length > 1 ? ', whichever comes first' : ''}`;
 }
+
+/** A torque reading is a fitting reading or a re-torque check. */
+export const readingKinds = ['install', 'retorque'] as const;
+export type ReadingKind = (typeof readingKinds)[number];
+
+/**
+ * Reading-kind rule: fitting readings only while the step is open (a signed-off step is
+ * reopened to change it); re-torque checks only after sign-off, and only for a spec that asks
+ * for one. Why a reading of this kind is refused now, or null when it is allowed.
+ */
+export function readingKindRefusal(
+  kind: ReadingKind,
+  now: { signedOff: boolean; retorqueAsked: boolean },
+): 'no-retorque' | 'step-signed-off' | 'step-not-signed-off' | null {
+  if (kind === 'install') return now.signedOff ? 'step-signed-off' : null;
+  if (!now.retorqueAsked) return 'no-retorque';
+  return now.signedOff ? null : 'step-not-signed-off';
+}
+
+/** The kind of reading a fastener takes now, or null when it takes none. */
+export function openReadingKind(now: {
+  signedOff: boolean;
+  retorqueAsked: boolean;
+}): ReadingKind | null {
+  return readingKinds.find((kind) => readingKindRefusal(kind, now) === null) ?? null;
+}

@@ -12,14 +12,11 @@
  * 0.0000001 lbf·ft of slack) and far above float error (~1e-16 relative).
  */
 import { convertTorque, torqueUnits, type TorqueUnit } from '../units/convert';
+import { labelsOf } from '../units/labels';
 
 export { convertTorque, torqueUnits, type TorqueUnit };
 
-export const torqueUnitLabels: Record<TorqueUnit, string> = {
-  'lbf-ft': 'lbf·ft',
-  'lbf-in': 'lbf·in',
-  'n-m': 'N·m',
-};
+export const torqueUnitLabels = labelsOf(torqueUnits);
 
 /** ± an amount in the spec's own unit, or ± a percentage of the target. */
 export const toleranceTypes = ['value', 'percent'] as const;

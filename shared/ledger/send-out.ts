@@ -1,11 +1,4 @@
-/** Whole days from one ISO date to another (UTC calendar days, no time zone drift). */
-export function daysBetween(from: string, to: string): number {
-  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
-}
-
-export function addDays(date: string, days: number): string {
-  return new Date(Date.parse(`${date}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
-}
+import { addDays, daysBetween } from '../dates';
 
 /**
  * A part out at a shop: days it has been away, the date it was promised back

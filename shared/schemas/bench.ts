@@ -22,6 +22,7 @@ import {
 import { testPointKinds, toleranceTypes, unitFamilyOfKind } from '../bench/points';
 import { benchUnits, isFlowUnit, isPressureUnit } from '../bench/units';
 import { convertTemperature } from '../units/convert';
+import { labelsOf } from '../units/labels';
 import { powerBases } from './builds';
 import { idSchema, isoDateSchema, trimmed } from './common';
 import { workingConstantSchema } from './estimate';
@@ -173,10 +174,7 @@ const pointsSchema = z
 
 export const fluidTemperatureUnits = ['c', 'f'] as const;
 export type FluidTemperatureUnit = (typeof fluidTemperatureUnits)[number];
-export const fluidTemperatureUnitLabels: Record<FluidTemperatureUnit, string> = {
-  c: '°C',
-  f: '°F',
-};
+export const fluidTemperatureUnitLabels = labelsOf(fluidTemperatureUnits);
 
 export const fluidTemperatureSchema = z
   .object({

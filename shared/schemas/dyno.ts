@@ -30,6 +30,7 @@ import {
   type TemperatureUnit,
   type TorqueUnit,
 } from '../units/convert';
+import { labelsOf, unitLabels } from '../units/labels';
 import { aspirations, powerBases } from './builds';
 import { DEFAULT_CORRECTION_STANDARD, correctionStandards } from '../dyno/vocabulary';
 import { idSchema, isoDateSchema, trimmed } from './common';
@@ -44,23 +45,19 @@ export type PowerBasis = (typeof powerBases)[number];
 export const dynoPowerUnits = ['hp', 'kw', 'ps'] as const satisfies readonly PowerUnit[];
 export type DynoPowerUnit = (typeof dynoPowerUnits)[number];
 export const dynoPowerUnitLabels: Record<DynoPowerUnit, string> = {
-  hp: 'hp',
-  kw: 'kW',
+  ...labelsOf(dynoPowerUnits),
   ps: 'PS (metric hp)',
 };
 
 /** Torque units a dyno figure may be typed in. */
 export const dynoTorqueUnits = ['lbf-ft', 'n-m'] as const satisfies readonly TorqueUnit[];
 export type DynoTorqueUnit = (typeof dynoTorqueUnits)[number];
-export const dynoTorqueUnitLabels: Record<DynoTorqueUnit, string> = {
-  'lbf-ft': 'lbf·ft',
-  'n-m': 'N·m',
-};
+export const dynoTorqueUnitLabels = labelsOf(dynoTorqueUnits);
 
 /** Boost (gauge pressure above the weather's barometric pressure) units. */
 export const boostUnits = ['psi', 'bar', 'kpa'] as const satisfies readonly PressureUnit[];
 export type BoostUnit = (typeof boostUnits)[number];
-export const boostUnitLabels: Record<BoostUnit, string> = { psi: 'psi', bar: 'bar', kpa: 'kPa' };
+export const boostUnitLabels = labelsOf(boostUnits);
 
 /** Barometric (station) pressure units. */
 export const barometerUnits = [
@@ -71,19 +68,14 @@ export const barometerUnits = [
 ] as const satisfies readonly PressureUnit[];
 export type BarometerUnit = (typeof barometerUnits)[number];
 export const barometerUnitLabels: Record<BarometerUnit, string> = {
-  kpa: 'kPa',
+  ...labelsOf(barometerUnits),
   mbar: 'mbar (hPa)',
-  inhg: 'inHg',
-  psi: 'psi',
 };
 
 /** Temperature units for the weather and exhaust gas temperature. */
 export const dynoTemperatureUnits = ['c', 'f'] as const satisfies readonly TemperatureUnit[];
 export type DynoTemperatureUnit = (typeof dynoTemperatureUnits)[number];
-export const dynoTemperatureUnitLabels: Record<DynoTemperatureUnit, string> = {
-  c: '°C',
-  f: '°F',
-};
+export const dynoTemperatureUnitLabels = labelsOf(dynoTemperatureUnits);
 
 /** How a mixture is written: air–fuel ratio by mass, or excess-air ratio λ. */
 export const mixtureKinds = ['afr', 'lambda'] as const;
@@ -187,17 +179,6 @@ function show(x: number, side: 'min' | 'max' = 'min') {
   return String(inward / 100).replace('-', '−');
 }
 
-const temperatureUnitText: Record<DynoTemperatureUnit, string> = { c: '°C', f: '°F' };
-const pressureUnitText: Record<PressureUnit, string> = {
-  kpa: 'kPa',
-  pa: 'Pa',
-  mpa: 'MPa',
-  bar: 'bar',
-  mbar: 'mbar',
-  psi: 'psi',
-  inhg: 'inHg',
-};
-
 /** "between −60 °C and 60 °C" in the unit the value was typed in. */
 function temperatureRangeText(
   limits: { min: number; max: number },
@@ -205,7 +186,7 @@ function temperatureRangeText(
 ): string {
   const lo = convertTemperature(limits.min, 'c', unit);
   const hi = convertTemperature(limits.max, 'c', unit);
-  const t = temperatureUnitText[unit];
+  const t = unitLabels[unit];
   return unit === 'c'
     ? `between ${show(lo)} ${t} and ${show(hi, 'max')} ${t}`
     : `between ${show(lo)} ${t} and ${show(hi, 'max')} ${t} (${show(limits.min)} to ${show(limits.max, 'max')} °C)`;
@@ -214,7 +195,7 @@ function temperatureRangeText(
 function pressureRangeText(limits: { min: number; max: number }, unit: PressureUnit): string {
   const lo = convertPressure(limits.min, 'kpa', unit);
   const hi = convertPressure(limits.max, 'kpa', unit);
-  const p = pressureUnitText[unit];
+  const p = unitLabels[unit];
   return unit === 'kpa'
     ? `between ${show(lo)} and ${show(hi, 'max')} ${p}`
     : `between ${show(lo)} and ${show(hi, 'max')} ${p} (${show(limits.min)} to ${show(limits.max, 'max')} kPa)`;

@@ -11,6 +11,7 @@ import {
   defaultBsfc,
   type AssumptionSpec,
 } from '../estimate/assumptions';
+import { labelsOf } from '../units/labels';
 import { bsfcUnits, type BsfcUnit } from '../units/convert';
 import { powerBases } from './builds';
 import { trimmed } from './common';
@@ -18,10 +19,7 @@ import { partCategories, ratingUnits } from './parts';
 
 export { bsfcUnits, type BsfcUnit };
 
-export const bsfcUnitLabels: Record<BsfcUnit, string> = {
-  'lb-per-hp-h': 'lb/(hp·h)',
-  'g-per-kwh': 'g/kWh',
-};
+export const bsfcUnitLabels = labelsOf(bsfcUnits);
 
 /** A number within an assumption's range, with field messages; defaults when omitted. */
 function assumptionNumber(spec: AssumptionSpec, what: string) {

@@ -31,16 +31,19 @@ async function sentOut(turnaroundDays = 10) {
   return { ...cast, base, part: res.body.part };
 }
 
+/** Noon UTC of a day: that day for a build in UTC. */
+const at = (day: string) => new Date(`${day}T12:00:00Z`);
+
 const overdueMail = () =>
   app.db.knex('mail_outbox').where({ kind: 'notice:part-overdue-at-shop' }).orderBy('to_address');
 
 describe('the overdue-at-the-shop notice', () => {
   it('goes to the owner and the shop once the promised day has passed, and once only', async () => {
     const c = await sentOut(10); // due back 2026-01-15
-    expect(await notifyOverdueParts(app.db.knex, '2026-01-15')).toBe(0);
-    expect(await notifyOverdueParts(app.db.knex, '2026-01-16')).toBe(1);
-    expect(await notifyOverdueParts(app.db.knex, '2026-01-17')).toBe(0);
-    expect(await notifyOverdueParts(app.db.knex, '2026-02-20')).toBe(0);
+    expect(await notifyOverdueParts(app.db.knex, at('2026-01-15'))).toBe(0);
+    expect(await notifyOverdueParts(app.db.knex, at('2026-01-16'))).toBe(1);
+    expect(await notifyOverdueParts(app.db.knex, at('2026-01-17'))).toBe(0);
+    expect(await notifyOverdueParts(app.db.knex, at('2026-02-20'))).toBe(0);
 
     const rows = await overdueMail();
     expect(rows.map((r) => r.to_address).sort()).toEqual([c.owner.email, c.shop.email].sort());
@@ -61,16 +64,16 @@ describe('the overdue-at-the-shop notice', () => {
   it('tells a new spell again: a later promise that also passes, or a new send-out', async () => {
     const c = await sentOut(10);
     const before = (await overdueMail()).length;
-    await notifyOverdueParts(app.db.knex, '2026-01-20');
+    await notifyOverdueParts(app.db.knex, at('2026-01-20'));
     // The shop promised ten more days: quiet until those pass too.
     await c.owner.agent.patch(`${c.base}/parts/${c.part.id}`).send({ turnaroundDays: 20 });
-    expect(await notifyOverdueParts(app.db.knex, '2026-01-25')).toBe(0);
-    expect(await notifyOverdueParts(app.db.knex, '2026-01-26')).toBe(1);
+    expect(await notifyOverdueParts(app.db.knex, at('2026-01-25'))).toBe(0);
+    expect(await notifyOverdueParts(app.db.knex, at('2026-01-26'))).toBe(1);
     // Back in the garage: nothing more.
     await c.crew.agent
       .patch(`${c.base}/parts/${c.part.id}`)
       .send({ status: 'in-hand', backOn: '2026-01-27' });
-    expect(await notifyOverdueParts(app.db.knex, '2026-03-01')).toBe(0);
+    expect(await notifyOverdueParts(app.db.knex, at('2026-03-01'))).toBe(0);
     expect((await overdueMail()).length - before).toBe(4);
   });
 
@@ -81,9 +84,9 @@ describe('the overdue-at-the-shop notice', () => {
     const other = createDatabase(typeof conn === 'string' ? conn : conn.connectionString);
     try {
       const counts = await Promise.all([
-        notifyOverdueParts(app.db.knex, '2026-01-09'),
-        notifyOverdueParts(other.knex, '2026-01-09'),
-        notifyOverdueParts(app.db.knex, '2026-01-09'),
+        notifyOverdueParts(app.db.knex, at('2026-01-09')),
+        notifyOverdueParts(other.knex, at('2026-01-09')),
+        notifyOverdueParts(app.db.knex, at('2026-01-09')),
       ]);
       expect(counts.reduce((a, b) => a + b, 0)).toBe(1);
     } finally {
@@ -102,5 +105,20 @@ describe('the overdue-at-the-shop notice', () => {
     const rows = await app.db.knex('part_overdue_notices').where({ part_id: c.part.id });
     expect(rows).toMatchObject([{ sent_out_on: '2026-01-05', due_on: '2026-01-06' }]);
     await worker.stop();
+  });
+
+  it("judges each part by its build's today, in the build's time zone", async () => {
+    const c = await sentOut(10); // due back 2026-01-15
+    // IANA tz database: Pacific/Kiritimati is UTC+14 (no daylight saving), so 2026-01-15T09:59Z
+    // is 23:59 on the 15th there and 2026-01-15T10:00Z is midnight starting the 16th.
+    await app.db
+      .knex('builds')
+      .where({ id: c.build.id })
+      .update({ time_zone: 'Pacific/Kiritimati' });
+    const told = () => app.db.knex('part_overdue_notices').where({ part_id: c.part.id });
+    await notifyOverdueParts(app.db.knex, new Date('2026-01-15T09:59:00Z'));
+    expect(await told()).toEqual([]);
+    await notifyOverdueParts(app.db.knex, new Date('2026-01-15T10:00:00Z'));
+    expect(await told()).toHaveLength(1);
   });
 });

@@ -80,9 +80,11 @@ function circles(graph: Map<string, string[]>): string[][] {
 describe('the import graph', () => {
   const graph = new Map(files.map((f) => [f, importsOf(f)]));
 
-  it('was read from the whole code base', () => {
+  it('was read from the whole code base: server, client and shared', () => {
     expect(files.length).toBeGreaterThan(200);
     expect(graph.get('server/app.ts')).toContain('server/routes.ts');
+    expect(graph.get('src/config/paths.ts')).toContain('shared/paths.ts');
+    expect(graph.get('shared/units/index.ts')).toContain('shared/units/labels.ts');
   });
 
   it('has no circle', () => {
@@ -115,10 +117,54 @@ describe('the import graph', () => {
           const [, , other, rest] = dep.split('/');
           if (other !== feature && rest !== 'index.ts') wrong.push(`${file} → ${dep}`);
         }
+        // A client feature reaches another only through its api/ calls.
+        if (file.startsWith('src/features/') && dep.startsWith('src/features/')) {
+          const [, , other, rest] = dep.split('/');
+          if (other !== feature && rest !== 'api') wrong.push(`${file} → ${dep}`);
+        }
+        if (file.startsWith('src/features/') && dep.startsWith('src/app/'))
+          wrong.push(`${file} → ${dep}`);
       }
     }
     expect(wrong).toEqual([]);
   });
+});
+
+describe("ESLint's walls", () => {
+  // Each wall of DEVELOPERS.md tried on a file that breaks it (and one that keeps to it).
+  const cases: [file: string, imports: string, fails: boolean][] = [
+    ['src/features/parts/components/x.tsx', '../../budget/components/budget-charts', true],
+    ['src/features/parts/components/x.tsx', '../../budget/lib/time-axis', true],
+    ['src/features/parts/api/x.ts', '../../../app/router', true],
+    ['src/features/parts/components/x.tsx', '../../budget/api/get-budget', false],
+    ['src/features/parts/components/x.tsx', '../lib/status', false],
+    ['src/components/ui/x.tsx', '../../features/parts/api/get-parts', true],
+    ['src/app/routes/builds/x.tsx', '../../../../server/app', true],
+    ['shared/x.ts', '../src/lib/dates', true],
+    ['shared/x.ts', '../server/lib/errors', true],
+    ['shared/x.ts', './dates', false],
+    ['server/features/parts/x.ts', '../budget/budget.service', true],
+    ['server/lib/x.ts', '../features/parts', true],
+  ];
+
+  it(
+    'fail the lint for each import against the house, and only those',
+    { timeout: 60_000 },
+    async () => {
+      const { ESLint } = await import('eslint');
+      const eslint = new ESLint({ cwd: root });
+      const verdicts: string[] = [];
+      for (const [file, spec, fails] of cases) {
+        const code = `import { a } from '${spec}';\nexport const b = a;\n`;
+        const [result] = await eslint.lintText(code, { filePath: path.join(root, file) });
+        const walls = result.messages.filter((m) =>
+          ['no-restricted-imports', 'house/client-layers'].includes(m.ruleId ?? ''),
+        );
+        if (walls.length > 0 !== fails) verdicts.push(`${file} importing ${spec}`);
+      }
+      expect(verdicts).toEqual([]);
+    },
+  );
 });
 
 describe('file size', () => {

@@ -1,6 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { cautionsForStep } from '../../shared/install-log/cautions';
-import { describeRetorque, retorqueState } from '../../shared/install-log/retorque';
+import {
+  describeRetorque,
+  openReadingKind,
+  readingKindRefusal,
+  retorqueState,
+} from '../../shared/install-log/retorque';
 import { signOffBlockers } from '../../shared/install-log/sign-off';
 import { fastenerSpecIssues } from '../../shared/schemas/install-log';
 
@@ -133,5 +138,27 @@ describe('fastener spec consistency', () => {
         stages: [20, 40],
       }),
     ).toEqual({});
+  });
+});
+
+// The reading-kind rule the fastener service enforces and the step page follows.
+describe('which reading a fastener takes', () => {
+  it('takes fitting readings while the step is open, whether or not a re-check is asked', () => {
+    expect(openReadingKind({ signedOff: false, retorqueAsked: true })).toBe('install');
+    expect(openReadingKind({ signedOff: false, retorqueAsked: false })).toBe('install');
+    expect(readingKindRefusal('retorque', { signedOff: false, retorqueAsked: true })).toBe(
+      'step-not-signed-off',
+    );
+  });
+
+  it('takes only re-torque checks once signed off, and only when the spec asks for one', () => {
+    expect(openReadingKind({ signedOff: true, retorqueAsked: true })).toBe('retorque');
+    expect(readingKindRefusal('install', { signedOff: true, retorqueAsked: true })).toBe(
+      'step-signed-off',
+    );
+    expect(openReadingKind({ signedOff: true, retorqueAsked: false })).toBeNull();
+    expect(readingKindRefusal('retorque', { signedOff: true, retorqueAsked: false })).toBe(
+      'no-retorque',
+    );
   });
 });

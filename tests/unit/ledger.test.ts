@@ -2,7 +2,9 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { computeBudget } from '../../shared/ledger/budget';
 import { coreOwedCents, partTotalCents } from '../../shared/ledger/cost';
-import { addDays, daysBetween, sendOutStatus } from '../../shared/ledger/send-out';
+import { addDays, daysBetween } from '../../shared/dates';
+import { csvColumnOfField, csvMoneyColumns } from '../../shared/ledger/csv';
+import { sendOutStatus } from '../../shared/ledger/send-out';
 import { stampStatusDates } from '../../shared/ledger/status-dates';
 import { centsToInput, parseMoneyToCents } from '../../shared/format';
 import type { PartStatus } from '../../shared/schemas/parts';
@@ -246,5 +248,27 @@ describe('status changes stamp their date (issue #14)', () => {
     expect(stampStatusDates(installed, { status: 'in-hand' }, today)).toEqual({
       status: 'in-hand',
     });
+  });
+});
+
+// The parts CSV's money columns: the README's CSV section names them unitPrice, labour,
+// shipping, tax, coreCharge and coreRefund, each a decimal amount read into the part's cents.
+describe('the parts CSV columns', () => {
+  it('names the column a refused field came from', () => {
+    expect(csvColumnOfField('unitPriceCents')).toBe('unitPrice');
+    expect(csvColumnOfField('coreRefundCents')).toBe('coreRefund');
+    expect(csvColumnOfField('shopUserId')).toBe('shopEmail');
+    expect(csvColumnOfField('name')).toBe('name');
+  });
+
+  it('holds every cents field of a part that the ledger form edits', () => {
+    expect(Object.values(csvMoneyColumns).sort()).toEqual([
+      'coreChargeCents',
+      'coreRefundCents',
+      'labourCents',
+      'shippingCents',
+      'taxCents',
+      'unitPriceCents',
+    ]);
   });
 });

@@ -6,7 +6,6 @@ import {
   headroomText,
   percent,
   readingsText,
-  todayIso,
 } from '../../src/features/sharing/components/view-text';
 
 const fastener = (over: Partial<ViewFastener>): ViewFastener => ({
@@ -59,9 +58,5 @@ describe('the shared page and build sheet put numbers into words', () => {
     expect(dynoPower({ ...best, powerUnit: 'kw', peakPower: 434 })).toBe(
       '434 kW (wheel) at 2,950 rpm',
     );
-  });
-
-  it('dates a printed sheet by the device’s own calendar day', () => {
-    expect(todayIso(new Date(2026, 0, 5, 23, 59))).toBe('2026-01-05');
   });
 });

@@ -8,7 +8,10 @@
 import { describe, expect, it } from 'vitest';
 import {
   addDays,
+  axisToDate,
+  buildToday,
   canonicalTimeZone,
+  dateToAxis,
   daysBetween,
   isIsoDate,
   isTimeZone,
@@ -46,6 +49,15 @@ describe("today in the build's time zone", () => {
   });
 });
 
+describe("a build's today and the device's", () => {
+  it("is the build's zone's date, and UTC's until the owner chooses a zone", () => {
+    // IANA tz database: 2027-03-15T05:30Z is 23:30 MDT on 14 March, after the spring change.
+    const late = new Date('2027-03-15T05:30:00Z');
+    expect(buildToday({ timeZone: denver }, late)).toBe('2027-03-14');
+    expect(buildToday({ timeZone: null }, late)).toBe('2027-03-15');
+  });
+});
+
 describe('counting days', () => {
   it('counts whole days across the 23-hour day of the change', () => {
     expect(daysBetween('2027-03-10', '2027-03-20')).toBe(10);
@@ -80,5 +92,15 @@ describe('time zone names', () => {
     for (const bad of ['Mars/Olympus', '+01:00', '', 'America/Denver ', 'x'.repeat(80)]) {
       expect(isTimeZone(bad), bad).toBe(false);
     }
+  });
+});
+
+describe("a chart's time axis", () => {
+  it('places dates on UTC midnights, a day apart even across the 23-hour day of the change', () => {
+    // 2027-03-14T00:00:00Z is 1 804 982 400 s after the Unix epoch (20 891 days of 86 400 s).
+    expect(dateToAxis('2027-03-14')).toBe(20_891 * 86_400_000);
+    expect(dateToAxis('2027-03-15') - dateToAxis('2027-03-14')).toBe(86_400_000);
+    expect(axisToDate(dateToAxis('2027-03-14'))).toBe('2027-03-14');
+    expect(axisToDate(dateToAxis('2027-03-14') + 86_399_999)).toBe('2027-03-14');
   });
 });

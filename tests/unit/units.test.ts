@@ -1,5 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { benchUnitLabels } from '../../shared/bench/units';
+import { torqueUnitLabels } from '../../shared/install-log/torque';
+import {
+  barometerUnitLabels,
+  boostUnitLabels,
+  dynoPowerUnitLabels,
+  dynoTorqueUnitLabels,
+} from '../../shared/schemas/dyno';
+import { labelsOf } from '../../shared/units/labels';
 import {
   HP_TORQUE_RPM_CONSTANT,
   HP_W,
@@ -227,5 +236,37 @@ describe('power–torque identity (P = 2πnT/60)', () => {
         },
       ),
     );
+  });
+});
+
+// Unit symbols as NIST SP 811 (2008) writes them (§ 6.1.2 and Table 5: N·m, kPa, MPa, °C, K;
+// a centred dot for a product), with US customary units as the screens speak them (lbf·ft first).
+describe('unit labels: one map, typed views of it', () => {
+  it('writes each symbol as NIST SP 811 does', () => {
+    expect(labelsOf(['n-m', 'lbf-ft', 'lbf-in'])).toEqual({
+      'n-m': 'N·m',
+      'lbf-ft': 'lbf·ft',
+      'lbf-in': 'lbf·in',
+    });
+    expect(labelsOf(['kpa', 'mpa', 'psi', 'c', 'k'])).toEqual({
+      kpa: 'kPa',
+      mpa: 'MPa',
+      psi: 'psi',
+      c: '°C',
+      k: 'K',
+    });
+  });
+
+  it('gives the torque, dyno and bench pickers the same words, a picker changing only its own', () => {
+    expect(torqueUnitLabels['lbf-ft']).toBe(dynoTorqueUnitLabels['lbf-ft']);
+    expect(boostUnitLabels.kpa).toBe('kPa');
+    expect(barometerUnitLabels).toEqual({
+      kpa: 'kPa',
+      mbar: 'mbar (hPa)',
+      inhg: 'inHg',
+      psi: 'psi',
+    });
+    expect(dynoPowerUnitLabels).toEqual({ hp: 'hp', kw: 'kW', ps: 'PS (metric hp)' });
+    expect(benchUnitLabels.mpa).toBe('MPa');
   });
 });

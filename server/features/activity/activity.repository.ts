@@ -4,12 +4,19 @@
  * `limit` of each. `shopUserId` narrows every statement to what that shop may see.
  */
 import type { Knex } from 'knex';
+import { wallClock } from '../../../shared/dates';
 import type { ActivityEvent, ActivityKind } from '../../../shared/schemas/activity';
 
-type Filter = { buildId: string; shopUserId?: string; today: string; limit: number };
+type Filter = {
+  buildId: string;
+  shopUserId?: string;
+  /** The build's zone: a moment's day is its date there. */
+  timeZone: string;
+  today: string;
+  limit: number;
+};
 
 const person = (id: string | null, name: string | null) => (id ? { id, name: name ?? '' } : null);
-const dayOf = (d: Date) => d.toISOString().slice(0, 10);
 
 /** A part's dates as events: ordered, arrived, out to its shop, back, installed. */
 export async function partEvents(knex: Knex, f: Filter): Promise<ActivityEvent[]> {
@@ -87,7 +94,7 @@ export async function signOffEvents(knex: Knex, f: Filter): Promise<ActivityEven
   }[] = await q;
   return rows.map((r) => ({
     kind: 'step-signed-off',
-    day: dayOf(r.signed_off_at),
+    day: wallClock(r.signed_off_at, f.timeZone).date,
     at: r.signed_off_at.toISOString(),
     subject: { type: 'step', id: r.id, name: r.title },
     by: person(r.signed_off_by, r.display_name),
@@ -134,7 +141,7 @@ export async function photoEvents(knex: Knex, f: Filter): Promise<ActivityEvent[
   }[] = await q;
   return rows.map((r) => ({
     kind: 'photos-added',
-    day: dayOf(r.at),
+    day: wallClock(r.at, f.timeZone).date,
     at: r.at.toISOString(),
     subject: r.step_id
       ? { type: 'step', id: r.step_id, name: r.step_title ?? '' }
@@ -164,7 +171,7 @@ export async function benchEvents(knex: Knex, f: Filter): Promise<ActivityEvent[
   }[] = await q;
   return rows.map((r) => ({
     kind: 'bench-sheet-added',
-    day: dayOf(r.created_at),
+    day: wallClock(r.created_at, f.timeZone).date,
     at: r.created_at.toISOString(),
     subject: { type: 'part', id: r.id, name: r.name },
     by: person(r.created_by, r.display_name),

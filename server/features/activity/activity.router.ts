@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../../lib/deps';
 import { scoped } from '../../lib/scope';
+import * as builds from '../builds';
 import * as service from './activity.service';
 
 /** Mounted at /api/builds/:buildId/activity: what has happened lately, as the caller may see it. */
@@ -10,7 +11,7 @@ export function activityRouter(deps: AppDeps) {
     '/',
     deps.access('activity:read'),
     scoped(deps.db.knex, async (s) => ({
-      events: await service.recentActivity(s, new Date().toISOString().slice(0, 10)),
+      events: await service.recentActivity(s, await builds.calendar(s.knex, s.buildId)),
     })),
   );
   return router;

@@ -13,11 +13,15 @@ function newestFirst(a: ActivityEvent, b: ActivityEvent) {
   return (b.at ?? '').localeCompare(a.at ?? '');
 }
 
-export async function recentActivity({ knex, buildId, caller }: BuildScope, today: string) {
+/** `calendar`: the build's time zone and its today there (events are dated by that zone). */
+export async function recentActivity(
+  { knex, buildId, caller }: BuildScope,
+  calendar: { timeZone: string; today: string },
+) {
   const filter = {
     buildId,
     shopUserId: caller.role === 'shop' ? caller.userId : undefined,
-    today,
+    ...calendar,
     limit: activityLimit,
   };
   // One statement after another: few rows each, and no transaction to share.

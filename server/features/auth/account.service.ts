@@ -21,9 +21,9 @@ import { enqueueMail, mailDateTime } from '../mail';
 import * as repo from './account.repository';
 import { setPasswordHash } from './password-reset.repository';
 import { forgotPasswordPath } from './password-reset.service';
+import { paths } from '../../../shared/paths';
 
 /** Where the client confirms a new address; the mail's button leads here. */
-export const confirmEmailPath = (token: string) => `/confirm-email/${token}`;
 
 /** At most this many change requests an hour per account: no mail-bombing through us. */
 export const maxEmailChangesPerHour = 5;
@@ -113,7 +113,7 @@ export async function requestEmailChange(knex: Knex, userId: string, input: Chan
         `${user.display_name} asked to use ${input.email} for their Headroom account instead of its present address.`,
         `Follow the link to confirm. It works once and until ${mailDateTime(expiresAt)}; until then the old address stays in use.`,
       ].join('\n\n'),
-      action: { label: 'Confirm this address', path: confirmEmailPath(token) },
+      action: { label: 'Confirm this address', path: paths.auth.confirmEmail.getHref(token) },
       footer:
         'If you did not ask for this, ignore this mail: nothing changes unless the link is followed.',
     });

@@ -9,9 +9,9 @@ import { hashToken, isTokenShaped, newToken } from '../../lib/tokens';
 import { countQueuedSince, enqueueMail, mailDateTime } from '../mail';
 import { findUserByEmail } from './auth.repository';
 import * as repo from './password-reset.repository';
+import { paths } from '../../../shared/paths';
 
 /** Where the client lets a person choose the new password; the mail's button leads here. */
-export const resetPath = (token: string) => `/reset-password/${token}`;
 export const forgotPasswordPath = '/forgot-password';
 
 /** At most this many reset mails to one address an hour, whoever asks: no mail-bombing through us. */
@@ -43,7 +43,7 @@ export async function request(knex: Knex, email: string): Promise<void> {
         `Someone — we hope you — asked to set a new password for the Headroom account ${user.email}.`,
         `The link works once and until ${mailDateTime(expiresAt)}. Setting a new password signs this account out everywhere else.`,
       ].join('\n\n'),
-      action: { label: 'Set a new password', path: resetPath(token) },
+      action: { label: 'Set a new password', path: paths.auth.resetPassword.getHref(token) },
       footer: 'If you did not ask for this, ignore this mail: your password stays as it is.',
     });
   });

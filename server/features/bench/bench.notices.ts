@@ -8,11 +8,7 @@
 import type { Knex } from 'knex';
 import { quoted } from '../mail';
 import { actorName, notify } from '../notices';
-
-/** Client paths (the client's routes must match). */
-export const benchPath = (buildId: string) => `/builds/${buildId}/bench`;
-export const benchSheetPath = (buildId: string, sheetId: string) =>
-  `/builds/${buildId}/bench/sheets/${sheetId}`;
+import { paths } from '../../../shared/paths';
 
 export type SheetChange =
   'added' | 'changed' | 'original-attached' | 'original-removed' | 'removed';
@@ -67,7 +63,9 @@ export async function notifyShopSheetChange(
     {
       subject: `Bench sheet ${quoted(sheet.occasion)} ${verbs[n.change].subject} by ${who}`,
       text: paragraphs.join('\n\n'),
-      link: gone ? benchPath(n.buildId) : benchSheetPath(n.buildId, sheet.id),
+      link: gone
+        ? paths.builds.bench.getHref(n.buildId)
+        : paths.builds.benchSheet.getHref(n.buildId, sheet.id),
       linkLabel: gone ? 'Open the bench results' : 'Open the bench sheet',
     },
     // Owner only (the kind's audience); the shop that acted is the actor and hears nothing.

@@ -92,6 +92,12 @@ export function buildFromJson(json: BuildRowJson, role: Role): Build {
   });
 }
 
+/** The build's IANA time zone, or null until its owner chooses one (or no such build). */
+export async function findTimeZone(knex: Knex, buildId: string): Promise<string | null> {
+  const row = await knex('builds').where({ id: buildId }).first('time_zone');
+  return row?.time_zone ?? null;
+}
+
 export async function insertBuild(knex: Knex, input: CreateBuildInput): Promise<string> {
   const [row] = await knex('builds').insert(toRow(input)).returning('id');
   return row.id;

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { buildToday, fallbackTimeZone } from '../../../shared/dates';
 import { can, type Role } from '../../../shared/permissions';
 import type { CreateBuildInput, UpdateBuildInput } from '../../../shared/schemas/builds';
 import { stripMoney } from '../../lib/money-filter';
@@ -14,6 +15,18 @@ import * as repo from './builds.repository';
 export async function listMine(knex: Knex, userId: string) {
   const builds = await repo.listBuildsForUser(knex, userId);
   return builds.map((b) => (can(b.myRole, 'money:read') ? b : stripMoney(b)));
+}
+
+/**
+ * The build's calendar now: its time zone (UTC until chosen) and its today there, the one
+ * "today" every service stamps and judges a build's dates by (shared/dates buildToday).
+ */
+export async function calendar(knex: Knex, buildId: string, now: Date = new Date()) {
+  const chosen = await repo.findTimeZone(knex, buildId);
+  return {
+    timeZone: chosen ?? fallbackTimeZone,
+    today: buildToday({ timeZone: chosen }, now),
+  };
 }
 
 /** What the access check may already hold: the caller's role and the build's row (lib/request.ts). */

@@ -1,2 +1,2 @@
 /** The builds feature's public surface. */
-export { get, update, type KnownBuild } from './builds.service';
+export { calendar, get, update, type KnownBuild } from './builds.service';

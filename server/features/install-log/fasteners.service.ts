@@ -3,7 +3,7 @@
  * each other, and who may change a target that readings were judged against.
  */
 import { positionLabel } from '../../../shared/install-log/positions';
-import { asksRetorque } from '../../../shared/install-log/retorque';
+import { asksRetorque, readingKindRefusal } from '../../../shared/install-log/retorque';
 import { judgeTorque } from '../../../shared/install-log/torque';
 import { can } from '../../../shared/permissions';
 import {
@@ -15,6 +15,7 @@ import {
 } from '../../../shared/schemas/install-log';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
 import { parseId, type BuildScope } from '../../lib/scope';
+import * as builds from '../builds';
 import { wrenchForReading } from '../wrenches';
 import { assertOpen, loadStep, lockOpenStep, lockStep, renameNotFound } from './access';
 import { presentReading, presentSpec } from './fasteners.present';
@@ -160,7 +161,7 @@ async function wrenchOf(scope: BuildScope, input: CreateReadingInput) {
     buildId: scope.buildId,
     userId: scope.caller.userId,
     wrenchId: input.wrenchId,
-    on: new Date().toISOString().slice(0, 10),
+    on: (await builds.calendar(scope.knex, scope.buildId)).today,
   });
   return { wrench: w.name, wrenchId: w.id, calibratedOn: w.calibratedOn, dueOn: w.dueOn };
 }
@@ -201,8 +202,12 @@ export async function recordReading(
   const stage = input.stage ?? null;
   const { id, supersededId } = await knex.transaction(async (trx) => {
     const status = await lockStep(trx, step.id);
-    if (kind === 'install') assertOpen({ status });
-    else if (status !== 'signed-off') {
+    const refusal = readingKindRefusal(kind, {
+      signedOff: status === 'signed-off',
+      retorqueAsked: asksRetorque(spec),
+    });
+    if (refusal === 'step-signed-off') assertOpen({ status });
+    else if (refusal === 'step-not-signed-off') {
       throw new ConflictError(
         'step_not_signed_off',
         'Re-torque checks come after the step is signed off',

@@ -17,10 +17,7 @@ import {
 import { quoted } from '../mail';
 import { actorName, notify } from '../notices';
 import { shopsOfStep } from './step-parts.repository';
-
-/** Client path of a step's page (the client's route for it must match). */
-export const stepPath = (buildId: string, stepId: string) =>
-  `/builds/${buildId}/install/steps/${stepId}`;
+import { paths } from '../../../shared/paths';
 
 /** The one shop whose parts the step fits, if exactly one. */
 async function stepShop(trx: Knex, stepId: string): Promise<string | null> {
@@ -50,7 +47,7 @@ export async function notifyStepSignedOff(
     {
       subject: `Step signed off: ${n.stepTitle}`,
       text: `${who} signed off ${quoted(n.stepTitle)} in the job ${quoted(n.jobTitle)}.${over}`,
-      link: stepPath(n.buildId, n.stepId),
+      link: paths.builds.step.getHref(n.buildId, n.stepId),
       linkLabel: 'Open the step',
     },
     { actorUserId: n.actorUserId, shopUserId: await stepShop(trx, n.stepId) },
@@ -88,7 +85,7 @@ export async function notifyTorqueOutOfSpec(
         (n.retorque
           ? 'The re-torque check stays open until the position reads in spec.'
           : 'The step cannot be signed off until the position reads in spec, unless the owner overrides with a reason.'),
-      link: stepPath(n.buildId, n.stepId),
+      link: paths.builds.step.getHref(n.buildId, n.stepId),
       linkLabel: 'Open the step',
     },
     { actorUserId: n.actorUserId, shopUserId: await stepShop(trx, n.stepId) },

@@ -1,6 +1,7 @@
 /** Torque readings: never edited, only superseded by a newer reading of the same position. */
 import type { Knex } from 'knex';
 import type { TorqueUnit } from '../../../shared/install-log/torque';
+import { buildToday } from '../../../shared/dates';
 import { iso, person } from './rows';
 
 type ReadingRow = {
@@ -22,6 +23,8 @@ type ReadingRow = {
   taken_at: Date | null;
   superseded_by_id: string | null;
   superseded_at: Date | null;
+  /** The build's time zone: the reading's day is the build's today when it was recorded. */
+  build_time_zone: string | null;
 };
 
 function toReading(r: ReadingRow) {
@@ -42,7 +45,7 @@ function toReading(r: ReadingRow) {
             dueOn: r.wrench_calibration_due_on,
             overdue:
               r.wrench_calibration_due_on != null &&
-              (r.taken_at ?? r.recorded_at).toISOString().slice(0, 10) >
+              buildToday({ timeZone: r.build_time_zone }, r.taken_at ?? r.recorded_at) >
                 r.wrench_calibration_due_on,
           }
         : null,
@@ -56,10 +59,18 @@ function toReading(r: ReadingRow) {
 }
 export type ReadingRecord = ReturnType<typeof toReading>;
 
+/** Joins the reading's build (through its spec and step) for the build's time zone, as `b`. */
+function withBuildZone(q: Knex.QueryBuilder) {
+  return q
+    .join('fastener_specs as f', 'f.id', 'r.spec_id')
+    .join('install_steps as s', 's.id', 'f.step_id')
+    .join('builds as b', 'b.id', 's.build_id');
+}
+
 /** Readings of these specs, newest first (superseded ones included). */
 export async function listReadings(knex: Knex, specIds: string[]) {
   if (!specIds.length) return [];
-  const rows: ReadingRow[] = await knex('torque_readings as r')
+  const rows: ReadingRow[] = await withBuildZone(knex('torque_readings as r'))
     .leftJoin('users as u', 'u.id', 'r.recorded_by')
     .whereIn('r.spec_id', specIds)
     .orderBy([
@@ -67,15 +78,15 @@ export async function listReadings(knex: Knex, specIds: string[]) {
       { column: 'r.recorded_at', order: 'desc' },
       { column: 'r.superseded_at', order: 'desc', nulls: 'first' },
     ])
-    .select('r.*', 'u.display_name as recorded_by_name');
+    .select('r.*', 'u.display_name as recorded_by_name', 'b.time_zone as build_time_zone');
   return rows.map(toReading);
 }
 
 export async function findReading(knex: Knex, readingId: string) {
-  const row: ReadingRow | undefined = await knex('torque_readings as r')
+  const row: ReadingRow | undefined = await withBuildZone(knex('torque_readings as r'))
     .leftJoin('users as u', 'u.id', 'r.recorded_by')
     .where('r.id', readingId)
-    .first('r.*', 'u.display_name as recorded_by_name');
+    .first('r.*', 'u.display_name as recorded_by_name', 'b.time_zone as build_time_zone');
   return row ? toReading(row) : undefined;
 }
 

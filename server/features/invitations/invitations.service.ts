@@ -15,9 +15,9 @@ import { createUser, findUserByEmail } from '../auth';
 import { enqueueMail, mailDateTime, quoted, type QueuedMail } from '../mail';
 import { addMember, findRole } from '../members';
 import * as repo from './invitations.repository';
+import { paths } from '../../../shared/paths';
 
 /** Where the client shows an invitation; the mail's button leads here. */
-export const invitePath = (token: string) => `/invite/${token}`;
 
 const expiry = () => new Date(Date.now() + invitationValidDays * 24 * 3600_000);
 
@@ -42,7 +42,7 @@ function invitationMail(p: {
       `Headroom keeps a diesel build's parts, send-outs, install log and results in one place. Follow the link to join. If you have no Headroom account for ${p.to} yet, you create one on the way.`,
       `The link works once and until ${mailDateTime(p.expiresAt)}.`,
     ].join('\n\n'),
-    action: { label: 'Accept the invitation', path: invitePath(p.token) },
+    action: { label: 'Accept the invitation', path: paths.auth.invite.getHref(p.token) },
     footer: `You received this because ${p.inviterName} entered ${p.to} on Headroom. If you did not expect it, ignore it: nothing happens unless you follow the link.`,
   };
 }

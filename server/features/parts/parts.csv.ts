@@ -5,6 +5,7 @@
  */
 import Papa from 'papaparse';
 import { centsToInput, parseMoneyToCents } from '../../../shared/format';
+import { csvMoneyColumns } from '../../../shared/ledger/csv';
 import {
   partCategories,
   partCategoryLabels,
@@ -42,14 +43,6 @@ export const csvColumns = [
   'notes',
 ] as const;
 type CsvColumn = (typeof csvColumns)[number];
-const moneyColumns = {
-  unitPrice: 'unitPriceCents',
-  labour: 'labourCents',
-  shipping: 'shippingCents',
-  tax: 'taxCents',
-  coreCharge: 'coreChargeCents',
-  coreRefund: 'coreRefundCents',
-} as const;
 const dateColumns = [
   'orderedOn',
   'expectedOn',
@@ -102,13 +95,14 @@ export function partsToCsv(
   parts: PartRecord[],
   opts: { withMoney: boolean; shopEmails: Map<string, string> },
 ) {
-  const columns = csvColumns.filter((c) => opts.withMoney || !(c in moneyColumns));
+  const columns = csvColumns.filter((c) => opts.withMoney || !(c in csvMoneyColumns));
   const rows = parts.map((p) =>
     columns.map((c): string => {
-      if (c in moneyColumns) return centsToInput(p[moneyColumns[c as keyof typeof moneyColumns]]);
+      if (c in csvMoneyColumns)
+        return centsToInput(p[csvMoneyColumns[c as keyof typeof csvMoneyColumns]]);
       if (c === 'shopEmail')
         return safeCell(p.shopUserId ? (opts.shopEmails.get(p.shopUserId) ?? '') : '');
-      const v = p[c as Exclude<CsvColumn, 'shopEmail' | keyof typeof moneyColumns>];
+      const v = p[c as Exclude<CsvColumn, 'shopEmail' | keyof typeof csvMoneyColumns>];
       return v == null ? '' : safeCell(String(v));
     }),
   );
@@ -190,7 +184,7 @@ export function parseCsv(
       else fields.ratingUnit = notOneOf('rating unit', get('ratingUnit'), ratingUnits);
     }
     for (const c of dateColumns) if (get(c)) input[c] = get(c);
-    for (const [c, key] of Object.entries(moneyColumns)) {
+    for (const [c, key] of Object.entries(csvMoneyColumns)) {
       const raw = get(c as CsvColumn);
       if (!raw) continue;
       const cents = parseMoneyToCents(raw);

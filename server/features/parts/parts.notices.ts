@@ -8,9 +8,9 @@ import { partCategoryLabels, type UpdatePartInput } from '../../../shared/schema
 import { quoted } from '../mail';
 import { actorName, notify } from '../notices';
 import type { PartRecord } from './parts.repository';
+import { paths } from '../../../shared/paths';
 
 /** Client path of a build's parts ledger. */
-export const partsPath = (buildId: string) => `/builds/${buildId}/parts`;
 
 function describe(part: PartRecord) {
   const bits = [partCategoryLabels[part.category]];
@@ -43,7 +43,7 @@ export async function notifyPartProgress(
       {
         subject: `${before.name} received`,
         text: `${who} marked ${describe(after)} as received${on}. It is in the garage now.`,
-        link: partsPath(buildId),
+        link: paths.builds.parts.getHref(buildId),
         linkLabel: 'Open the parts ledger',
       },
       { actorUserId, shopUserId: after.shopUserId },
@@ -60,7 +60,7 @@ export async function notifyPartProgress(
       {
         subject: `${before.name} back${shop}`,
         text: `${who} recorded ${describe(after)} as back${shop}${on}.${where}`,
-        link: partsPath(buildId),
+        link: paths.builds.parts.getHref(buildId),
         linkLabel: 'Open the parts ledger',
       },
       // The shop that had it hears too (unless the shop itself recorded it).

@@ -10,32 +10,35 @@
  * that made it queues the notice, in the same transaction. Nothing is kept in memory.
  */
 import type { Knex } from 'knex';
+import { addDays, buildToday, daysBetween, fallbackTimeZone, todayIn } from '../../../shared/dates';
 import { partCategoryLabels } from '../../../shared/schemas/parts';
 import type { Logger } from '../../lib/logger';
 import { mailDate, quoted } from '../mail';
 import { notify } from '../notices';
 import * as repo from './parts.repository';
-
-/** Client path of a build's send-outs page (the client's route for it must match). */
-export const sendOutsPath = (buildId: string) => `/builds/${buildId}/send-outs`;
-
-/** The UTC calendar day, as the parts service judges send-outs (sendOutStatus). */
-const utcToday = (now: Date) => now.toISOString().slice(0, 10);
+import { paths } from '../../../shared/paths';
 
 /**
- * One pass: every part now overdue whose spell has not been told yet. Returns how many
- * notices this process queued. `today` is YYYY-MM-DD (tests pass their own).
+ * The latest "today" any build can have at `now`: UTC's date plus one (no zone is more than
+ * 14 hours ahead of UTC). Parts overdue by it are the candidates; each is then judged by its
+ * own build's today, as the parts service marks it in the ledger.
  */
-export async function notifyOverdueParts(knex: Knex, today: string): Promise<number> {
+const latestToday = (now: Date) => addDays(todayIn(fallbackTimeZone, now), 1);
+
+/**
+ * One pass: every part overdue at `now` in its build's time zone whose spell has not been told
+ * yet. Returns how many notices this process queued (tests pass their own `now`).
+ */
+export async function notifyOverdueParts(knex: Knex, now: Date): Promise<number> {
   let told = 0;
-  for (const candidate of await repo.overdueUntold(knex, today)) {
+  for (const candidate of await repo.overdueUntold(knex, latestToday(now))) {
+    const today = buildToday(candidate, now);
+    if (candidate.dueOn >= today) continue;
     told += await knex.transaction(async (trx) => {
       // Still out and still overdue on the same promise (it may have come back meanwhile)?
       const part = await repo.lockOverdue(trx, candidate.id, today);
       if (!part || !(await repo.recordOverdueNotice(trx, part))) return 0;
-      const daysOver = Math.round(
-        (Date.parse(`${today}T00:00:00Z`) - Date.parse(`${part.dueOn}T00:00:00Z`)) / 86_400_000,
-      );
+      const daysOver = daysBetween(part.dueOn, today);
       const shop = part.shopName ? ` at ${part.shopName}` : ' at the shop';
       const bits = [partCategoryLabels[part.category]];
       if (part.partNumber) bits.push(`part number ${part.partNumber}`);
@@ -50,7 +53,7 @@ export async function notifyOverdueParts(knex: Knex, today: string): Promise<num
             `with a turnaround of ${part.turnaroundDays} day${part.turnaroundDays === 1 ? '' : 's'}, ` +
             `so it was due back on ${mailDate(part.dueOn)}: ${daysOver} day${daysOver === 1 ? '' : 's'} ago.\n\n` +
             'If a new date was agreed, change the turnaround on the part; you will hear again only if that date passes too.',
-          link: sendOutsPath(part.buildId),
+          link: paths.builds.sendOuts.getHref(part.buildId),
           linkLabel: 'Open the send-outs',
         },
         // Nobody acted: the owner and the shop that has the part both hear.
@@ -76,7 +79,7 @@ export function createOverdueWorker(opts: {
   let stopped = true;
 
   function runOnce(): Promise<number> {
-    running ??= notifyOverdueParts(opts.knex, utcToday(now())).finally(() => {
+    running ??= notifyOverdueParts(opts.knex, now()).finally(() => {
       running = null;
     });
     return running;

@@ -197,6 +197,8 @@ export type OverduePart = {
   sentOutOn: string;
   turnaroundDays: number;
   dueOn: string;
+  /** The build's IANA zone, or null (UTC) until its owner chooses one. */
+  timeZone: string | null;
 };
 
 const overdueColumns = (knex: Knex) => [
@@ -210,6 +212,7 @@ const overdueColumns = (knex: Knex) => [
   'p.sent_out_on',
   'p.turnaround_days',
   knex.raw(`to_char(p.sent_out_on + p.turnaround_days, 'YYYY-MM-DD') as due_on`),
+  'b.time_zone',
 ];
 
 type OverdueRow = {
@@ -223,6 +226,7 @@ type OverdueRow = {
   sent_out_on: string;
   turnaround_days: number;
   due_on: string;
+  time_zone: string | null;
 };
 
 const toOverdue = (r: OverdueRow): OverduePart => ({
@@ -236,11 +240,13 @@ const toOverdue = (r: OverdueRow): OverduePart => ({
   sentOutOn: r.sent_out_on,
   turnaroundDays: r.turnaround_days,
   dueOn: r.due_on,
+  timeZone: r.time_zone,
 });
 
 /** At a shop, past sent-out date + turnaround on `today`, with no notice yet for this spell. */
 function overdue(knex: Knex, today: string) {
   return knex('parts as p')
+    .join('builds as b', 'b.id', 'p.build_id')
     .leftJoin('users as s', 's.id', 'p.shop_user_id')
     .where('p.status', 'at-shop')
     .whereNotNull('p.sent_out_on')

@@ -30,10 +30,11 @@ import * as repo from './parts.repository';
 
 export type { Caller };
 
-const today = () => new Date().toISOString().slice(0, 10);
+/** The build's today (its time zone's date), by which parts are stamped and judged. */
+const today = async (knex: Knex, buildId: string) => (await builds.calendar(knex, buildId)).today;
 
 /** Full part with its total and send-out state; the money filter trims it per role. */
-function present(p: repo.PartRecord, now = today()): Part {
+function present(p: repo.PartRecord, now: string): Part {
   return { ...p, totalCents: partTotalCents(p), sendOut: sendOutStatus(p, now) };
 }
 
@@ -49,7 +50,7 @@ function scope(caller: Caller) {
 
 export async function list(knex: Knex, buildId: string, caller: Caller) {
   const parts = await repo.listParts(knex, buildId, scope(caller));
-  const now = today();
+  const now = await today(knex, buildId);
   return parts.map((p) => present(p, now));
 }
 
@@ -64,7 +65,7 @@ export async function getVisible(knex: Knex, buildId: string, rawPartId: string,
 }
 
 export async function get(knex: Knex, buildId: string, rawPartId: string, caller: Caller) {
-  return present(await getVisible(knex, buildId, rawPartId, caller));
+  return present(await getVisible(knex, buildId, rawPartId, caller), await today(knex, buildId));
 }
 
 async function checkShop(knex: Knex, buildId: string, shopUserId: string | null | undefined) {
@@ -84,11 +85,12 @@ function checkConsistency(merged: Partial<CreatePartInput>) {
 }
 
 export async function create(knex: Knex, buildId: string, rawInput: CreatePartInput) {
-  const input = stampStatusDates(null, rawInput, today());
+  const now = await today(knex, buildId);
+  const input = stampStatusDates(null, rawInput, now);
   checkConsistency(input);
   await checkShop(knex, buildId, input.shopUserId);
   const [id] = await repo.insertParts(knex, buildId, [input]);
-  return present((await repo.findPart(knex, buildId, id))!);
+  return present((await repo.findPart(knex, buildId, id))!, now);
 }
 
 export async function update(
@@ -110,7 +112,8 @@ export async function update(
   }
   // A status change stamps its date here too, so API and CSV changes are dated like the
   // ledger's own (the stamps are dates: crew and shops may set them).
-  const input = stampStatusDates(existing, rawInput, today());
+  const now = await today(knex, buildId);
+  const input = stampStatusDates(existing, rawInput, now);
   checkConsistency({ ...existing, ...input });
   await checkShop(knex, buildId, input.shopUserId);
   // The change and its notices (part received, back from a shop) commit together.
@@ -118,7 +121,7 @@ export async function update(
     await repo.updatePart(trx, buildId, existing.id, input);
     await notifyPartProgress(trx, buildId, existing, input, caller.userId);
   });
-  return present((await repo.findPart(knex, buildId, existing.id))!);
+  return present((await repo.findPart(knex, buildId, existing.id))!, now);
 }
 
 /** The part and, by cascade, its photos; their files are queued with the rows and removed after. */
@@ -150,7 +153,7 @@ export async function exportCsv(knex: Knex, buildId: string, caller: Caller) {
     withMoney: can(caller.role, 'money:read'),
     shopEmails: new Map(shops.map((s) => [s.user_id, s.email])),
   });
-  return { fileName: csvFileName(build.name, today()), csv };
+  return { fileName: csvFileName(build.name, await today(knex, buildId)), csv };
 }
 
 export type ImportRowReport = { row: number; fields: Record<string, string> };
@@ -176,7 +179,7 @@ export async function importCsv(knex: Knex, buildId: string, buffer: Buffer, dry
 
   const valid: CreatePartInput[] = [];
   const failures: ImportRowReport[] = [];
-  const now = today();
+  const now = await today(knex, buildId);
   for (const r of parsed.rows) {
     const result = createPartInputSchema.safeParse(r.input);
     // The CSV reader's own message (it echoes the cell) wins over the schema's general one.

@@ -7,6 +7,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
+import { canAddPhotosTo, canCaptionPhoto } from '../../../shared/permissions';
 import type { Photo, PhotoSize, UpdatePhotoInput } from '../../../shared/schemas/photos';
 import { AppError, ForbiddenError, NotFoundError } from '../../lib/errors';
 import type { Logger } from '../../lib/logger';
@@ -108,7 +109,7 @@ export async function upload(
     throw new AppError(400, 'no_file', 'Attach at least one photo in the "photos" field');
   }
   const target = await loadSubject(ctx.knex, buildId, subject, caller);
-  if (caller.role === 'shop' && target.stepId) {
+  if (!canAddPhotosTo(caller.role, target.stepId ? 'step' : 'part')) {
     throw new ForbiddenError('A shop adds photos to the parts sent to it, not to install steps');
   }
   // Check and convert everything first: one bad file refuses the whole upload.
@@ -161,7 +162,7 @@ export async function upload(
   return rows.map((r) => repo.present(byId.get(r.id)!));
 }
 
-/** Owner and crew caption any photo; a shop only the photos it uploaded. */
+/** Owner and crew caption any photo; a shop only the photos it uploaded (canCaptionPhoto). */
 export async function updateCaption(
   knex: Knex,
   buildId: string,
@@ -170,7 +171,7 @@ export async function updateCaption(
   input: UpdatePhotoInput,
 ) {
   const photo = await load(knex, buildId, rawPhotoId, caller);
-  if (caller.role === 'shop' && photo.uploadedBy?.id !== caller.userId) {
+  if (!canCaptionPhoto(caller.role, caller.userId, photo)) {
     throw new ForbiddenError('A shop can caption only the photos it uploaded');
   }
   await repo.updateCaption(knex, photo.id, input.caption);

@@ -15,10 +15,9 @@ import { NotFoundError, ValidationError } from '../../lib/errors';
 import { isTokenShaped, newToken } from '../../lib/tokens';
 import * as photos from '../photos';
 import * as repo from './sharing.repository';
+import { paths } from '../../../shared/paths';
 
 export type ShareCtx = { knex: Knex; appUrl: string };
-
-export const sharedPagePath = (token: string) => `/shared/${token}`;
 
 async function settingsOf(ctx: ShareCtx, buildId: string): Promise<ShareSettings> {
   const [share, publicPhotoIds] = await Promise.all([
@@ -28,7 +27,7 @@ async function settingsOf(ctx: ShareCtx, buildId: string): Promise<ShareSettings
   return {
     enabled: share?.enabled ?? false,
     token: share?.token ?? null,
-    url: share ? ctx.appUrl + sharedPagePath(share.token) : null,
+    url: share ? ctx.appUrl + paths.shared.page.getHref(share.token) : null,
     sections: share?.sections ?? { ...defaultShareSections },
     showMemberNames: share?.showMemberNames ?? false,
     allowIndexing: share?.allowIndexing ?? false,

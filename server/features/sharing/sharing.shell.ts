@@ -14,6 +14,7 @@ import { noindex, sendPublic } from './sharing.http';
 import { previewOf, type Preview } from './sharing.preview';
 import { sharedLimits } from './sharing.limits';
 import * as service from './sharing.service';
+import { paths } from '../../../shared/paths';
 
 const escape = (s: string) =>
   s.replace(
@@ -87,7 +88,7 @@ export function sharedPageShell(deps: AppDeps): RequestHandler[] {
     const html = withHead(
       template,
       headTags(preview, {
-        url: appUrl + service.sharedPagePath(share.token),
+        url: appUrl + paths.shared.page.getHref(share.token),
         allowIndexing: share.allowIndexing,
       }),
     );

@@ -9,7 +9,7 @@ import { roleLabels, type Role } from '../../../shared/permissions';
 import { noticeKindLabels } from '../../../shared/schemas/notices';
 import type { Timeline } from '../../../shared/schemas/timeline';
 import { quoted, type QueuedMail } from '../mail';
-import { timelinePath } from './links';
+import { paths } from '../../../shared/paths';
 
 const comingUpDays = 14;
 
@@ -67,7 +67,7 @@ export function digestMail(o: {
     subject: `${o.buildName} this week: ${lowerFirst(t.readiness.words)}`,
     heading: `The week of ${shortDate(o.weekOf)}`,
     body: paragraphs.join('\n\n'),
-    action: { label: 'Open the timeline', path: timelinePath(o.buildId) },
+    action: { label: 'Open the timeline', path: paths.builds.timeline.getHref(o.buildId) },
     footer: `You receive this each Monday as ${roleLabels[o.role].toLowerCase()} on ${quoted(o.buildName)} because the “${noticeKindLabels['timeline-digest']}” notice is on.${shopNote} Switch it off on the build's Notices page in Headroom.`,
   };
 }

@@ -1,24 +1,23 @@
-/** Client paths of what the timeline links to, for mails and calendar events (the client's routes must match). */
+/** Client paths of what the timeline links to, for mails and calendar events (shared/paths). */
+import { paths } from '../../../shared/paths';
 import type { TimelineLink } from '../../../shared/schemas/timeline';
 
-export const timelinePath = (buildId: string) => `/builds/${buildId}/timeline`;
-
 export function linkPath(buildId: string, link: TimelineLink): string {
-  const build = `/builds/${buildId}`;
+  const b = paths.builds;
   switch (link.to) {
     case 'target':
-      return timelinePath(buildId);
+      return b.timeline.getHref(buildId);
     case 'milestone':
-      return `${timelinePath(buildId)}#milestone-${link.milestoneId}`;
+      return `${b.timeline.getHref(buildId)}#milestone-${link.milestoneId}`;
     case 'part':
-      return `${build}/parts?part=${link.partId}`;
+      return b.part.getHref(buildId, link.partId);
     case 'send-out':
-      return `${build}/send-outs`;
+      return b.sendOuts.getHref(buildId);
     case 'step':
-      return `${build}/install/steps/${link.stepId}`;
+      return b.step.getHref(buildId, link.stepId);
     case 'install':
-      return `${build}/install`;
+      return b.install.getHref(buildId);
     case 'dyno-session':
-      return `${build}/dyno/${link.sessionId}`;
+      return b.dynoSession.getHref(buildId, link.sessionId);
   }
 }

@@ -11,6 +11,7 @@ import { EmptyState, ErrorState, NotFoundState } from '../../../components/ui/st
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
 import { useUser } from '../../../lib/auth';
+import { buildToday } from '../../../../shared/dates';
 import { useBuild } from '../../../features/builds/api/get-build';
 import { useCreateBenchSheet } from '../../../features/bench/api/create-bench-sheet';
 import { useBenchSheet } from '../../../features/bench/api/get-bench-sheet';
@@ -19,11 +20,6 @@ import { SheetEntryForm } from '../../../features/bench/components/sheet-entry-f
 import { emptySheetForm, sheetFormFrom } from '../../../features/bench/lib/sheet-form';
 import { useParts } from '../../../features/parts/api/get-parts';
 import { BuildLoadError } from './build-states';
-
-const today = () => {
-  const d = new Date();
-  return `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
-};
 
 /** "/builds/:buildId/bench/new?partId=" and "/builds/:buildId/bench/sheets/:sheetId/edit". */
 export function BenchEntryRoute() {
@@ -97,9 +93,9 @@ function EntryPage({ build, answer }: { build: Build; answer: BenchSheetAnswer |
               : injectorSets.length === 1
                 ? injectorSets[0]!.id
                 : '',
-            today(),
+            buildToday(build),
           ),
-    [answer, cylinders, injectorSets, wantedPart],
+    [answer, cylinders, injectorSets, wantedPart, build],
   );
 
   const title = editing ? `Edit “${answer.sheet.occasion}”` : 'Add a bench sheet';

@@ -1,6 +1,6 @@
 import { useParams } from 'react-router-dom';
 import { ChartColumnBig, LockKeyhole, PiggyBank, TrendingUp } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
+import { capabilities } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { ButtonLink } from '../../../components/ui/button';
@@ -54,10 +54,10 @@ function OwnerOnly({ build }: { build: Build }) {
 }
 
 function BudgetPage({ build }: { build: Build }) {
-  const isOwner = can(build.myRole, 'budget:read');
-  const budget = useBudget(build.id, { enabled: isOwner });
+  const { canSeeBudget } = capabilities(build.myRole);
+  const budget = useBudget(build.id, { enabled: canSeeBudget });
 
-  if (!isOwner) return <OwnerOnly build={build} />;
+  if (!canSeeBudget) return <OwnerOnly build={build} />;
   if (budget.isPending) return <PageSpinner label="Adding up the budget…" />;
   if (budget.isError) {
     if (isApiError(budget.error) && budget.error.status === 403) return <OwnerOnly build={build} />;

@@ -1,6 +1,6 @@
 import { useParams } from 'react-router-dom';
 import { Pencil } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
+import { capabilities } from '../../../../shared/permissions';
 import { paths } from '../../../config/paths';
 import { useBuild } from '../../../features/builds/api/get-build';
 import {
@@ -33,7 +33,7 @@ export function BuildOverviewRoute() {
 
   const b = build.data;
   const vehicle = vehicleLine(b);
-  const isOwner = can(b.myRole, 'build:update');
+  const { canEditBuild, canDeleteBuild, canInviteMembers } = capabilities(b.myRole);
 
   return (
     <>
@@ -45,7 +45,7 @@ export function BuildOverviewRoute() {
         badges={<RoleBadge role={b.myRole} prefix="You: " />}
         actions={
           <>
-            {isOwner && (
+            {canEditBuild && (
               <ButtonLink
                 to={paths.builds.edit.getHref(b.id)}
                 variant="secondary"
@@ -54,7 +54,7 @@ export function BuildOverviewRoute() {
                 Edit build
               </ButtonLink>
             )}
-            {can(b.myRole, 'build:delete') && <DeleteBuild build={b} />}
+            {canDeleteBuild && <DeleteBuild build={b} />}
           </>
         }
       />
@@ -69,12 +69,12 @@ export function BuildOverviewRoute() {
           <BudgetSection build={b} />
         </div>
         <div className="lg:col-span-2">
-          <ActivityList buildId={b.id} />
+          <ActivityList build={b} />
         </div>
         {/* Owners get the invitations beside the crew; everyone else, the crew at full width. */}
         <div
           className={
-            can(b.myRole, 'invitations:manage')
+            canInviteMembers
               ? 'grid gap-5 lg:col-span-2 lg:grid-cols-2 lg:items-start'
               : 'lg:col-span-2'
           }

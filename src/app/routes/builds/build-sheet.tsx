@@ -7,7 +7,7 @@ import { EmptyState, ErrorState } from '../../../components/ui/states';
 import { useBuild } from '../../../features/builds/api/get-build';
 import { useBuildSheet } from '../../../features/sharing/api/get-build-sheet';
 import { BuildSheet } from '../../../features/sharing/components/build-sheet';
-import { todayIso } from '../../../features/sharing/components/view-text';
+import { deviceToday } from '../../../../shared/dates';
 import {
   SheetControls,
   paperOf,
@@ -77,7 +77,7 @@ function SheetPage({ build }: { build: Build }) {
           onRetry={() => void sheet.refetch()}
         />
       ) : (
-        <BuildSheet view={sheet.data.sheet} printedOn={todayIso()} />
+        <BuildSheet view={sheet.data.sheet} printedOn={deviceToday()} />
       )}
     </>
   );

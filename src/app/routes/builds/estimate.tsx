@@ -11,7 +11,7 @@ import {
   Settings2,
   TriangleAlert,
 } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
+import { capabilities, type Role } from '../../../../shared/permissions';
 import { powerBasisLabels } from '../../../../shared/schemas/builds';
 import { formatNumber } from '../../../../shared/format';
 import type { EstimateResult } from '../../../../shared/schemas/estimate';
@@ -122,7 +122,7 @@ function EstimatePage({
 }: {
   buildId: string;
   buildName: string;
-  role: Parameters<typeof can>[0];
+  role: Role;
   saved: EstimateResult;
   refreshing: boolean;
 }) {
@@ -135,8 +135,7 @@ function EstimatePage({
   );
   const isPreview = previewResult !== null;
   const shown = previewResult ?? saved;
-  const isOwner = can(role, 'build:update');
-  const canEditAssumptions = can(role, 'assumptions:update');
+  const { canEditBuild, canEditAssumptions, canEditPartFully } = capabilities(role);
   const hasRated = shown.components.length > 0;
 
   const saveTarget = async (powerHp: number) => {
@@ -173,7 +172,7 @@ function EstimatePage({
           title="Target"
           icon={<Gauge aria-hidden className="size-5 text-accent-600" />}
           actions={
-            isOwner ? (
+            canEditBuild ? (
               <ButtonLink to={paths.builds.edit.getHref(buildId)} variant="ghost" size="sm">
                 Edit the build
               </ButtonLink>
@@ -184,7 +183,7 @@ function EstimatePage({
             saved={saved}
             preview={isPreview ? preview : null}
             onPreview={setPreview}
-            onSaveTarget={isOwner ? (hp) => void saveTarget(hp).catch(() => {}) : undefined}
+            onSaveTarget={canEditBuild ? (hp) => void saveTarget(hp).catch(() => {}) : undefined}
             savingTarget={updateBuild.isPending}
             saveError={updateBuild.isError ? updateBuild.error.message : undefined}
             previewAnswer={previewResult ? <PreviewAnswer result={previewResult} /> : undefined}
@@ -264,11 +263,7 @@ function EstimatePage({
         >
           <div className="flex flex-col gap-4">
             {hasRated ? (
-              <PartsHeadroom
-                result={shown}
-                buildId={buildId}
-                canEditRatings={can(role, 'parts:create')}
-              />
+              <PartsHeadroom result={shown} buildId={buildId} canEditRatings={canEditPartFully} />
             ) : (
               <p className="text-ink-2">No part has a rating yet.</p>
             )}

@@ -3,7 +3,7 @@ import { paths } from '../../../config/paths';
 import { useCreateBuild } from '../../../features/builds/api/create-build';
 import { BuildForm, newBuildDefaults } from '../../../features/builds/components/build-form';
 import { PageHeader } from '../../../components/layouts/page-header';
-import { browserTimeZone } from '../../../lib/time-zone';
+import { deviceTimeZone } from '../../../../shared/dates';
 
 /** "/builds/new" — whoever starts a build owns it. */
 export function NewBuildRoute() {
@@ -27,7 +27,7 @@ export function NewBuildRoute() {
         cancelHref={paths.builds.list.getHref()}
         onSubmit={async (values) => {
           // The build counts its days in the owner's own time zone until they choose another.
-          const build = await createBuild.mutateAsync({ ...values, timeZone: browserTimeZone() });
+          const build = await createBuild.mutateAsync({ ...values, timeZone: deviceTimeZone() });
           navigate(paths.builds.overview.getHref(build.id));
         }}
       />

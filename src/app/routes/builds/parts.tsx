@@ -1,7 +1,8 @@
 import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { Download, FileUp, Package, Plus } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
+import { buildToday } from '../../../../shared/dates';
+import { can, canAddPhotosTo, canCaptionPhoto, capabilities } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { Part, PartStatus, UpdatePartInput } from '../../../../shared/schemas/parts';
 import { PageHeader } from '../../../components/layouts/page-header';
@@ -23,7 +24,7 @@ import { Modal } from '../../../components/ui/modal';
 import { PartForm } from '../../../features/parts/components/part-form';
 import type { LedgerActions } from '../../../features/parts/components/parts-columns';
 import { PartsLedger } from '../../../features/parts/components/parts-ledger';
-import { statusChange, todayIso } from '../../../features/parts/lib/status';
+import { statusChange } from '../../../features/parts/lib/status';
 import { stampStatusDates } from '../../../../shared/ledger/status-dates';
 import { useUser } from '../../../lib/auth';
 import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
@@ -52,10 +53,14 @@ function PartsPage({ build }: { build: Build }) {
   const updatePart = useUpdatePart();
   const deletePart = useDeletePart();
   const role = build.myRole;
-  const isOwner = can(role, 'parts:create');
-  const canUpdate = can(role, 'parts:update');
-  const canDelete = can(role, 'parts:delete');
-  const canImport = can(role, 'parts:import');
+  const {
+    canEditPartFully,
+    canAddParts,
+    canSeeMoney,
+    canUpdatePartProgress: canUpdate,
+    canDeleteParts: canDelete,
+    canImportParts: canImport,
+  } = capabilities(role);
   const members = useMembers(build.id);
   const me = useUser();
 
@@ -74,8 +79,8 @@ function PartsPage({ build }: { build: Build }) {
     setLinkHandled(linkedPartId);
     const part = parts.data.find((p) => p.id === linkedPartId);
     setMissingPart(!part);
-    if (part && isOwner) setEditing({ mode: 'edit', part, focusRating: true });
-  }, [linkedPartId, linkHandled, parts.data, isOwner]);
+    if (part && canEditPartFully) setEditing({ mode: 'edit', part, focusRating: true });
+  }, [linkedPartId, linkHandled, parts.data, canEditPartFully]);
 
   const shops = useMemo(
     () =>
@@ -89,13 +94,17 @@ function PartsPage({ build }: { build: Build }) {
   const onStatusChange = useCallback(
     async (part: Part, status: PartStatus) => {
       setNotice(null);
-      await update({ buildId: build.id, partId: part.id, input: statusChange(part, status) });
+      await update({
+        buildId: build.id,
+        partId: part.id,
+        input: statusChange(part, status, buildToday(build)),
+      });
     },
-    [update, build.id],
+    [update, build],
   );
   const onEdit = useCallback(
-    (part: Part) => setEditing({ mode: isOwner ? 'edit' : 'progress', part }),
-    [isOwner],
+    (part: Part) => setEditing({ mode: canEditPartFully ? 'edit' : 'progress', part }),
+    [canEditPartFully],
   );
   const { reset: resetDelete } = deletePart;
   const onDelete = useCallback(
@@ -118,11 +127,11 @@ function PartsPage({ build }: { build: Build }) {
 
   async function save(typed: UpdatePartInput) {
     if (!editing) return;
-    // The form's status change is dated like a row's: the browser's own day, by the shared rule.
+    // The form's status change is dated like a row's: the build's today, by the shared rule.
     const input = stampStatusDates(
       editing.mode === 'create' ? null : editing.part,
       typed,
-      todayIso(),
+      buildToday(build),
     );
     if (editing.mode === 'create') {
       const part = await createPart.mutateAsync({
@@ -141,7 +150,7 @@ function PartsPage({ build }: { build: Build }) {
     setEditing(null);
   }
 
-  const addButton = isOwner && (
+  const addButton = canAddParts && (
     <Button
       icon={<Plus aria-hidden className="size-5" />}
       onClick={() => {
@@ -188,7 +197,7 @@ function PartsPage({ build }: { build: Build }) {
         icon={<Package aria-hidden className="size-6" />}
         title={role === 'shop' ? 'Nothing has been sent to you yet' : 'No parts yet'}
         actions={
-          isOwner ? (
+          canAddParts ? (
             <>
               {addButton}
               {importButton}
@@ -196,7 +205,7 @@ function PartsPage({ build }: { build: Build }) {
           ) : undefined
         }
       >
-        {isOwner
+        {canAddParts
           ? 'List every part the build needs: what it is, what it costs, where it is.'
           : role === 'shop'
             ? 'Parts the owner sends to your shop appear here.'
@@ -208,7 +217,7 @@ function PartsPage({ build }: { build: Build }) {
       <PartsLedger
         parts={parts.data}
         actions={actions}
-        moneyFallback={isOwner ? 'full' : 'none'}
+        moneyFallback={canSeeMoney ? 'full' : 'none'}
         initialSearch={searchParams.get('q') ?? ''}
         focusPartId={missingPart ? null : linkedPartId}
         toolbarActions={
@@ -231,7 +240,7 @@ function PartsPage({ build }: { build: Build }) {
         title="Parts"
         subtitle={<span>{build.name}</span>}
         badges={
-          !isOwner && (
+          !canEditPartFully && (
             <span className="text-base text-muted">
               {role === 'shop'
                 ? 'Parts sent to your shop'
@@ -292,11 +301,9 @@ function PartsPage({ build }: { build: Build }) {
               bare
               buildId={build.id}
               target={{ partId: editingPart.id }}
-              canUpload={can(role, 'photos:upload')}
-              canCaption={(photo) =>
-                can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id)
-              }
-              canDelete={can(role, 'photos:delete')}
+              canUpload={canAddPhotosTo(role, 'part')}
+              canCaption={(photo) => canCaptionPhoto(role, me.id, photo)}
+              canDelete={capabilities(role).canDeletePhotos}
             />
           </div>
         )}

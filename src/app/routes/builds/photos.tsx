@@ -2,7 +2,7 @@ import { useEffect, useMemo, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { Camera } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
+import { can, canCaptionPhoto } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { Photo } from '../../../../shared/schemas/photos';
 import { paths } from '../../../config/paths';
@@ -160,9 +160,7 @@ function PhotosPage({ build }: { build: Build }) {
         index={open}
         onIndex={setOpen}
         onClose={() => setOpen(null)}
-        canCaption={(photo) =>
-          can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id)
-        }
+        canCaption={(photo) => canCaptionPhoto(role, me.id, photo)}
         canDelete={can(role, 'photos:delete')}
         context={context(true)}
       />

@@ -1,6 +1,7 @@
 import { useCallback, useMemo } from 'react';
 import { useParams } from 'react-router-dom';
 import { PackageCheck, Truck, Wrench } from 'lucide-react';
+import { buildToday } from '../../../../shared/dates';
 import { can } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { Part } from '../../../../shared/schemas/parts';
@@ -43,8 +44,12 @@ function SendOutsPage({ build }: { build: Build }) {
 
   const onBack = useCallback(
     (part: Part) =>
-      update({ buildId: build.id, partId: part.id, input: statusChange(part, 'in-hand') }),
-    [update, build.id],
+      update({
+        buildId: build.id,
+        partId: part.id,
+        input: statusChange(part, 'in-hand', buildToday(build)),
+      }),
+    [update, build],
   );
 
   const { atShop, back } = useMemo(() => {

@@ -1,6 +1,6 @@
 import { useEffect } from 'react';
 import { useLocation, useParams } from 'react-router-dom';
-import { can } from '../../../../shared/permissions';
+import { canAddPhotosTo, canCaptionPhoto, capabilities } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { Step } from '../../../../shared/schemas/install-log';
 import type { Photo } from '../../../../shared/schemas/photos';
@@ -95,9 +95,12 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
   const updateStep = useUpdateStep();
 
   const role = build.myRole;
-  const canWrite = can(role, 'install:write');
-  const canDelete = can(role, 'install:delete');
-  const isOwner = can(role, 'install:override');
+  const {
+    canWorkOnSteps: canWrite,
+    canDeleteSteps: canDelete,
+    canOverrideSignOff,
+    canDeletePhotos,
+  } = capabilities(role);
   const locked = step.status === 'signed-off';
   const editable = canWrite && !locked;
 
@@ -106,8 +109,7 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
   const prev = job && index > 0 ? job.steps[index - 1] : undefined;
   const next = job && index >= 0 && index < job.steps.length - 1 ? job.steps[index + 1] : undefined;
 
-  const canCaption = (photo: Photo) =>
-    can(role, 'photos:update') && (role !== 'shop' || photo.uploadedBy?.id === me.id);
+  const canCaption = (photo: Photo) => canCaptionPhoto(role, me.id, photo);
 
   return (
     <>
@@ -188,17 +190,17 @@ function StepPage({ build, step }: { build: Build; step: Step }) {
           canWrite={canWrite}
           editable={editable}
           canDeleteSpecs={canDelete && !locked}
-          canOverride={isOwner}
+          canOverride={canOverrideSignOff}
         />
 
-        <SignOffPanel step={step} canSignOff={canWrite} canOverride={isOwner} />
+        <SignOffPanel step={step} canSignOff={canWrite} canOverride={canOverrideSignOff} />
 
         <AttachedPhotos
           buildId={build.id}
           target={{ stepId: step.id }}
-          canUpload={can(role, 'photos:upload') && role !== 'shop'}
+          canUpload={canAddPhotosTo(role, 'step')}
           canCaption={canCaption}
-          canDelete={can(role, 'photos:delete')}
+          canDelete={canDeletePhotos}
         />
 
         <StepChangePanel

@@ -1,8 +1,8 @@
 import { useEffect } from 'react';
 import { Link, useLocation, useParams } from 'react-router-dom';
 import { CalendarDays, Settings2, TriangleAlert } from 'lucide-react';
-import { longDate } from '../../../../shared/dates';
-import { can } from '../../../../shared/permissions';
+import { longDate, deviceTimeZone } from '../../../../shared/dates';
+import { capabilities } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { Timeline } from '../../../../shared/schemas/timeline';
 import { PageHeader } from '../../../components/layouts/page-header';
@@ -25,7 +25,6 @@ import { SettingsForm } from '../../../features/timeline/components/settings-for
 import { ThreatsList } from '../../../features/timeline/components/threats-list';
 import { TimelineTrack } from '../../../features/timeline/components/timeline-track';
 import { countdownOf } from '../../../features/timeline/components/words';
-import { browserTimeZone } from '../../../lib/time-zone';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/timeline": the countdown, what threatens the date, and every dated item. */
@@ -59,7 +58,7 @@ function Countdown({ build, timeline: t }: { build: Build; timeline: Timeline })
         ) : (
           <p className="text-lg text-ink-2">
             No target date yet.{' '}
-            {can(build.myRole, 'build:update') && (
+            {capabilities(build.myRole).canEditBuild && (
               <Link to={paths.builds.edit.getHref(build.id)} className={textLinkClasses}>
                 Set one
               </Link>
@@ -84,7 +83,7 @@ function Countdown({ build, timeline: t }: { build: Build; timeline: Timeline })
 
 function ZonePrompt({ buildId }: { buildId: string }) {
   const update = useUpdateTimelineSettings();
-  const here = browserTimeZone();
+  const here = deviceTimeZone();
   return (
     <Alert tone="info" title="Days are counted in UTC until you choose the build’s time zone">
       <div className="flex flex-wrap items-center gap-3 pt-1">
@@ -129,7 +128,7 @@ function ReadOnlySettings({ t, isShop }: { t: Timeline; isShop: boolean }) {
 function TimelinePage({ build }: { build: Build }) {
   const timeline = useTimeline(build.id);
   const { hash } = useLocation();
-  const isOwner = can(build.myRole, 'timeline:settings');
+  const { canChangeTimelineSettings, canEditMilestones } = capabilities(build.myRole);
   const isShop = build.myRole === 'shop';
 
   // A link to one milestone (#milestone-…) scrolls to it once the timeline is on the page.
@@ -152,7 +151,7 @@ function TimelinePage({ build }: { build: Build }) {
     const t = timeline.data;
     body = (
       <div className="flex flex-col gap-5">
-        {isOwner && !t.timeZoneChosen && <ZonePrompt buildId={build.id} />}
+        {canChangeTimelineSettings && !t.timeZoneChosen && <ZonePrompt buildId={build.id} />}
         <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)] lg:items-start">
           <div className="flex min-w-0 flex-col gap-5">
             <Countdown build={build} timeline={t} />
@@ -187,7 +186,7 @@ function TimelinePage({ build }: { build: Build }) {
                 buildId={build.id}
                 milestones={t.milestones}
                 today={t.today}
-                canEdit={can(build.myRole, 'milestones:write')}
+                canEdit={canEditMilestones}
               />
             )}
             <Section
@@ -195,7 +194,7 @@ function TimelinePage({ build }: { build: Build }) {
               title="Settings"
               icon={<Settings2 aria-hidden className="size-5 text-ink-3" />}
             >
-              {isOwner ? (
+              {canChangeTimelineSettings ? (
                 <SettingsForm buildId={build.id} timeline={t} />
               ) : (
                 <ReadOnlySettings t={t} isShop={isShop} />

@@ -9,7 +9,7 @@ import { NotShared } from '../../../features/sharing/components/not-shared';
 import { useSharedBuild } from '../../../features/sharing/api/get-shared-build';
 import { BuildSheet } from '../../../features/sharing/components/build-sheet';
 import { SheetControls, paperOf } from '../../../features/sharing/components/sheet-controls';
-import { todayIso } from '../../../features/sharing/components/view-text';
+import { deviceToday } from '../../../../shared/dates';
 
 /** "/shared/:token/sheet" — the public page as a build sheet for print: never money. */
 export function SharedSheetRoute() {
@@ -46,7 +46,7 @@ export function SharedSheetRoute() {
         paper={paper}
         onPaper={(p) => setSearch(p === 'letter' ? {} : { paper: p }, { replace: true })}
       />
-      <BuildSheet view={shared.data} printedOn={todayIso()} />
+      <BuildSheet view={shared.data} printedOn={deviceToday()} />
     </>
   );
 }

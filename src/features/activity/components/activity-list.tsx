@@ -12,8 +12,10 @@ import {
   Wrench,
   type LucideIcon,
 } from 'lucide-react';
+import { addDays, buildToday } from '../../../../shared/dates';
 import { formatIsoDate } from '../../../../shared/format';
 import type { ActivityEvent, ActivityKind } from '../../../../shared/schemas/activity';
+import type { Build } from '../../../../shared/schemas/builds';
 import { Section } from '../../../components/ui/card';
 import { cn } from '../../../components/ui/cn';
 import { PageSpinner } from '../../../components/ui/spinner';
@@ -65,12 +67,10 @@ function hrefOf(buildId: string, e: ActivityEvent): string {
   return paths.builds.parts.getHref(buildId);
 }
 
-/** "Today", "Yesterday", or the date. */
-function dayLabel(day: string, today = new Date()): string {
-  const iso = (d: Date) =>
-    `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
-  if (day === iso(today)) return 'Today';
-  if (day === iso(new Date(today.getTime() - 86_400_000))) return 'Yesterday';
+/** "Today", "Yesterday" (the build's days, as the server dates its events), or the date. */
+function dayLabel(day: string, today: string): string {
+  if (day === today) return 'Today';
+  if (day === addDays(today, -1)) return 'Yesterday';
   return formatIsoDate(day);
 }
 
@@ -78,8 +78,10 @@ function dayLabel(day: string, today = new Date()): string {
  * "Lately": what has happened on the build, newest first — parts moving, steps signed off,
  * photos and bench sheets — as the member's role may see it (the server filters; no money).
  */
-export function ActivityList({ buildId }: { buildId: string }) {
+export function ActivityList({ build }: { build: Pick<Build, 'id' | 'timeZone'> }) {
+  const buildId = build.id;
   const activity = useActivity(buildId);
+  const today = buildToday(build);
   let body;
   if (activity.isPending) body = <PageSpinner label="Loading what happened lately…" />;
   else if (activity.isError)
@@ -116,7 +118,7 @@ export function ActivityList({ buildId }: { buildId: string }) {
                 />
                 <span className="min-w-0 flex-1 break-words text-ink">{sentence(e)}</span>
                 <span className="shrink-0 text-sm whitespace-nowrap text-muted">
-                  {dayLabel(e.day)}
+                  {dayLabel(e.day, today)}
                 </span>
               </Link>
             </li>

@@ -11,6 +11,7 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
+import { axisToDate } from '../../../../shared/dates';
 import { formatIsoDate, formatMoney, minorUnitDigits } from '../../../../shared/format';
 import { partCategoryLabels, type Budget } from '../../../../shared/schemas/parts';
 import { dayTime, formatTick, timeDomain, timeTicks } from '../lib/time-axis';
@@ -153,7 +154,7 @@ export function SpendingChart({ budget }: { budget: Budget }) {
             width={64}
           />
           <Tooltip
-            labelFormatter={(t) => formatIsoDate(new Date(Number(t)).toISOString().slice(0, 10))}
+            labelFormatter={(t) => formatIsoDate(axisToDate(Number(t)))}
             formatter={(value) => formatMoney(Number(value), currency)}
           />
           <Legend wrapperStyle={{ fontSize: 14 }} formatter={legendText} />

@@ -3,18 +3,19 @@
  * in days (a gap of two months looks like two months, not like the next day), with ticks on
  * round days — every day, every few days, every week, or on the first of the month.
  */
-const dayMs = 86_400_000;
+import { addDays, axisToDate, dateToAxis, daysBetween } from '../../../../shared/dates';
 
-/** A YYYY-MM-DD date as milliseconds at its UTC midnight: the chart's x value. */
-export function dayTime(isoDate: string): number {
-  return Date.parse(`${isoDate}T00:00:00Z`);
-}
+/** A YYYY-MM-DD date as the chart's x value (shared/dates dateToAxis). */
+export const dayTime = dateToAxis;
+
+/** The axis value `days` after `t` (days counted on calendar dates). */
+const shift = (t: number, days: number) => dateToAxis(addDays(axisToDate(t), days));
 
 /** The axis runs from the first date to the last; a single date gets a day either side. */
 export function timeDomain(times: number[]): [number, number] {
   const min = Math.min(...times);
   const max = Math.max(...times);
-  return min === max ? [min - dayMs, max + dayMs] : [min, max];
+  return min === max ? [shift(min, -1), shift(max, 1)] : [min, max];
 }
 
 /** Month starts (UTC) from the first inside [min, max], every `months` months. */
@@ -40,12 +41,13 @@ export type TimeTicks = { ticks: number[]; unit: 'day' | 'month' };
 
 /** At most about `target` ticks on round days, evenly spaced in time. */
 export function timeTicks(min: number, max: number, target = 6): TimeTicks {
-  const spanDays = (max - min) / dayMs;
+  const spanDays = daysBetween(axisToDate(min), axisToDate(max));
   for (const step of [1, 2, 7, 14]) {
     if (spanDays / step <= target) {
-      const first = Math.ceil(min / dayMs) * dayMs;
+      // The first midnight at or after min.
+      const first = dateToAxis(axisToDate(min)) < min ? shift(min, 1) : min;
       const ticks: number[] = [];
-      for (let t = first; t <= max; t += step * dayMs) ticks.push(t);
+      for (let t = first; t <= max; t = shift(t, step)) ticks.push(t);
       return { ticks, unit: 'day' };
     }
   }

@@ -21,6 +21,7 @@ import {
   type RunUnits,
 } from '../../../../shared/schemas/dyno';
 import { formatNumber } from '../../../../shared/format';
+import { unitLabels } from '../../../../shared/units/labels';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
@@ -181,9 +182,8 @@ function Preview({ result }: { result: Extract<CurveCsvResult, { ok: true }> }) 
         </table>
         <p className="px-3 py-2 text-sm text-muted">
           {rows.length > previewRows ? `The first ${previewRows} of ${rows.length} rows. ` : ''}
-          In {units.powerUnit === 'hp' ? 'hp' : units.powerUnit === 'kw' ? 'kW' : 'PS'} and{' '}
-          {units.torqueUnit === 'lbf-ft' ? 'lbf·ft' : 'N·m'}, as in the file. * worked out from the
-          other by P = 2πnT/60.
+          In {unitLabels[units.powerUnit]} and {unitLabels[units.torqueUnit]}, as in the file. *
+          worked out from the other by P = 2πnT/60.
         </p>
       </div>
     </div>

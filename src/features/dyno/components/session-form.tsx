@@ -1,4 +1,5 @@
 import { useForm } from 'react-hook-form';
+import { buildToday } from '../../../../shared/dates';
 import {
   createDynoSessionInputSchema,
   dynoKindLabels,
@@ -17,6 +18,7 @@ import {
 } from '../../../components/ui/form-field';
 import { FormError } from '../../../components/ui/form-error';
 import { Modal } from '../../../components/ui/modal';
+import { useBuild } from '../../builds/api/get-build';
 import { useMembers } from '../../members/api/get-members';
 import { useCreateDynoSession } from '../api/create-dyno-session';
 import { useUpdateDynoSession } from '../api/update-dyno-session';
@@ -37,12 +39,6 @@ type SessionFormValues = WeatherFormValues & {
   notes: string;
   shopUserId: string;
 };
-
-function today() {
-  const d = new Date();
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}`;
-}
 
 function toInput(v: SessionFormValues, canAssign: boolean): CreateDynoSessionInput {
   return {
@@ -112,6 +108,8 @@ function SessionForm({
   const create = useCreateDynoSession();
   const update = useUpdateDynoSession();
   const members = useMembers(buildId);
+  // The page has the build already; a new session is dated the build's today.
+  const timeZone = useBuild(buildId).data?.timeZone ?? null;
   const shops = (members.data ?? []).filter((m) => m.role === 'shop');
   const {
     register,
@@ -125,7 +123,7 @@ function SessionForm({
       toInput(v, canAssign),
     ),
     defaultValues: {
-      date: session?.date ?? today(),
+      date: session?.date ?? buildToday({ timeZone }),
       place: session?.place ?? '',
       dynoKind: session?.dynoKind ?? 'chassis',
       runBy: session?.runBy ?? '',

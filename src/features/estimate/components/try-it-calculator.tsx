@@ -1,6 +1,7 @@
 import { useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { CircleCheck, Info } from 'lucide-react';
 import { estimate } from '../../../../shared/estimate';
+import { unitLabels } from '../../../../shared/units/labels';
 import {
   estimateRequestSchema,
   type EstimateRequestInput,
@@ -32,7 +33,6 @@ const partFields: {
   label: string;
   category: PartCategory;
   unit: RatingUnit;
-  suffix: string;
   name: string;
 }[] = [
   {
@@ -40,7 +40,6 @@ const partFields: {
     label: 'Bottom end',
     category: 'bottom-end',
     unit: 'hp-crank',
-    suffix: 'crank hp',
     name: 'Bottom end',
   },
   {
@@ -48,7 +47,6 @@ const partFields: {
     label: 'Injectors',
     category: 'fuel-injection',
     unit: 'mm3-per-stroke',
-    suffix: 'mm³/stroke',
     name: 'Injectors',
   },
   {
@@ -56,7 +54,6 @@ const partFields: {
     label: 'Turbocharger',
     category: 'turbocharger',
     unit: 'lb-per-min',
-    suffix: 'lb/min',
     name: 'Turbocharger',
   },
   {
@@ -64,7 +61,6 @@ const partFields: {
     label: 'Transmission',
     category: 'transmission',
     unit: 'lbf-ft',
-    suffix: 'lbf·ft',
     name: 'Transmission',
   },
 ];
@@ -245,7 +241,7 @@ export function TryItCalculator() {
                   aria-hidden
                   className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm font-semibold text-muted"
                 >
-                  {p.suffix}
+                  {unitLabels[p.unit]}
                 </span>
               </div>
             </Box>

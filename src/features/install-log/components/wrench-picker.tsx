@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
 import { Plus, TriangleAlert } from 'lucide-react';
+import { deviceToday } from '../../../../shared/dates';
 import { formatIsoDate } from '../../../../shared/format';
 import { calibrationOn } from '../../../../shared/install-log/wrenches';
 import type { Wrench } from '../../../../shared/schemas/wrenches';
@@ -9,14 +10,12 @@ import { isApiError } from '../../../lib/api-client';
 import { useCreateWrench } from '../../wrenches/api/create-wrench';
 import { useWrenches } from '../../wrenches/api/get-wrenches';
 
-const today = () => new Date().toISOString().slice(0, 10);
-
 /** "Calibrated 14 Mar 2025, due 14 Mar 2026" for the chosen wrench, under the build's interval. */
 function CalibrationLine({ wrench, months }: { wrench: Wrench; months: number }) {
   if (!wrench.calibratedOn) {
     return <p className="text-sm text-muted">No calibration date recorded for this wrench.</p>;
   }
-  const c = calibrationOn(wrench.calibratedOn, months, today());
+  const c = calibrationOn(wrench.calibratedOn, months, deviceToday());
   return c.overdue ? (
     <p className="flex items-start gap-1.5 text-[15px] font-semibold text-[#6b4408]">
       <TriangleAlert aria-hidden className="mt-0.5 size-4 shrink-0 text-tight" />
@@ -65,7 +64,7 @@ function AddWrench({ onAdded, onCancel }: { onAdded: (w: Wrench) => void; onCanc
               {...c}
               type="date"
               value={calibratedOn}
-              max={today()}
+              max={deviceToday()}
               onChange={(e) => setCalibratedOn(e.target.value)}
             />
           )}

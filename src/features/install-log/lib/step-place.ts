@@ -1,3 +1,4 @@
+import { openReadingKind } from '../../../../shared/install-log/retorque';
 import type { Role } from '../../../../shared/permissions';
 import type { FastenerSpec, Job, Step } from '../../../../shared/schemas/install-log';
 
@@ -16,8 +17,12 @@ export function stepPlace(step: Pick<Step, 'position'>, job: Job | undefined, ro
 /** What a fastener card lets this member do: record fitting readings, re-checks, or only read. */
 export function fastenerMode(step: Step, spec: FastenerSpec, canWrite: boolean) {
   if (!canWrite) return 'read-only' as const;
-  if (step.status !== 'signed-off') return 'fitting' as const;
-  return spec.retorque.asked && !spec.retorque.closedAt
+  const kind = openReadingKind({
+    signedOff: step.status === 'signed-off',
+    retorqueAsked: spec.retorque.asked,
+  });
+  if (kind === 'install') return 'fitting' as const;
+  return kind === 'retorque' && !spec.retorque.closedAt
     ? ('retorque' as const)
     : ('read-only' as const);
 }

@@ -1,6 +1,7 @@
 import { useId, useRef, useState } from 'react';
 import { FileUp, Upload } from 'lucide-react';
 import { formatMoney } from '../../../../shared/format';
+import { csvColumnOfField } from '../../../../shared/ledger/csv';
 import {
   partCategoryLabels,
   partStatusLabels,
@@ -12,17 +13,6 @@ import { Spinner } from '../../../components/ui/spinner';
 import { getPartsCsvHref } from '../api/export-parts-csv';
 import { ImportError, useImportParts, type ImportRowError } from '../api/import-parts';
 import { Modal } from '../../../components/ui/modal';
-
-/** Field names in the server's answer → the CSV column a person has to fix. */
-const columnOf: Record<string, string> = {
-  unitPriceCents: 'unitPrice',
-  labourCents: 'labour',
-  shippingCents: 'shipping',
-  taxCents: 'tax',
-  coreChargeCents: 'coreCharge',
-  coreRefundCents: 'coreRefund',
-  shopUserId: 'shopEmail',
-};
 
 const previewLimit = 200;
 
@@ -185,7 +175,7 @@ export function ImportPartsDialog({
                           {i === 0 ? r.row : ''}
                         </td>
                         <td className="px-3 py-2 align-top">
-                          <code>{columnOf[field] ?? field}</code>
+                          <code>{csvColumnOfField(field)}</code>
                         </td>
                         <td className="px-3 py-2 align-top text-over">{message}</td>
                       </tr>

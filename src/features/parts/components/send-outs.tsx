@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { AlarmClock, PackageCheck } from 'lucide-react';
-import { daysBetween } from '../../../../shared/ledger/send-out';
+import { daysBetween } from '../../../../shared/dates';
 import { formatIsoDate, formatMoney } from '../../../../shared/format';
 import { partCategoryLabels, type Part } from '../../../../shared/schemas/parts';
 import { Alert } from '../../../components/ui/alert';

@@ -26,19 +26,12 @@ export function statusLabel(status: PartStatus): string {
   return partStatusLabels[status];
 }
 
-export function todayIso(now: Date = new Date()): string {
-  const y = now.getFullYear();
-  const m = String(now.getMonth() + 1).padStart(2, '0');
-  const d = String(now.getDate()).padStart(2, '0');
-  return `${y}-${m}-${d}`;
-}
-
 /**
- * What to send when a part's status is changed from its row: the status, plus today's date (the
- * browser's own day) where the shared rule stamps one (ordered, received, sent out, installed;
+ * What to send when a part's status is changed from its row: the status, plus the build's today (its time
+ * zone's date, buildToday) where the shared rule stamps one (ordered, received, sent out, installed;
  * back from the shop when it leaves one). The server applies the same rule to what it is sent,
  * so the dates sent here are the ones kept.
  */
-export function statusChange(part: Part, status: PartStatus, today = todayIso()): UpdatePartInput {
+export function statusChange(part: Part, status: PartStatus, today: string): UpdatePartInput {
   return stampStatusDates(part, { status }, today);
 }

@@ -2,6 +2,7 @@
 import { aspirationLabels, powerBasisLabels } from '../../../../shared/builds/vocabulary';
 import { formatIsoDate, formatNumber } from '../../../../shared/format';
 import type { BuildView, ViewDynoBest, ViewFastener } from '../../../../shared/schemas/sharing';
+import { unitLabels } from '../../../../shared/units/labels';
 
 type Summary = NonNullable<BuildView['summary']>;
 
@@ -29,14 +30,13 @@ export const powerText = (hp: number, basis: 'crank' | 'wheel') =>
 
 export const dateText = (iso: string) => formatIsoDate(iso, 'en-US');
 
-const powerUnits: Record<string, string> = { hp: 'hp', kw: 'kW', ps: 'PS' };
-const torqueUnits: Record<string, string> = { 'lbf-ft': 'lbf·ft', 'n-m': 'N·m' };
+const unitLabel = (unit: string) => (unitLabels as Record<string, string>)[unit] ?? unit;
 
 /** "512 wheel hp at 3,050 rpm" (hp keeps its basis; kW and PS say it after). */
 export function dynoPower(b: ViewDynoBest): string {
   if (b.peakPower === null) return '—';
   const unit =
-    b.powerUnit === 'hp' ? basisLabel(b.basis) : `${powerUnits[b.powerUnit]} (${b.basis})`;
+    b.powerUnit === 'hp' ? basisLabel(b.basis) : `${unitLabel(b.powerUnit)} (${b.basis})`;
   const rpm = b.peakPowerRpm !== null ? ` at ${formatNumber(b.peakPowerRpm, 0)} rpm` : '';
   return `${formatNumber(b.peakPower, 0)} ${unit}${rpm}`;
 }
@@ -44,7 +44,7 @@ export function dynoPower(b: ViewDynoBest): string {
 export function dynoTorque(b: ViewDynoBest): string {
   if (b.peakTorque === null) return '—';
   const rpm = b.peakTorqueRpm !== null ? ` at ${formatNumber(b.peakTorqueRpm, 0)} rpm` : '';
-  return `${formatNumber(b.peakTorque, 0)} ${torqueUnits[b.torqueUnit] ?? b.torqueUnit}${rpm}`;
+  return `${formatNumber(b.peakTorque, 0)} ${unitLabel(b.torqueUnit)}${rpm}`;
 }
 
 export const standardLabels: Record<string, string> = {
@@ -91,9 +91,3 @@ export const roleNames: Record<string, string> = {
   shop: 'Shop',
   viewer: 'Follower',
 };
-
-/** Today on this device, YYYY-MM-DD: the date a sheet is printed. */
-export function todayIso(now = new Date()): string {
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
-}

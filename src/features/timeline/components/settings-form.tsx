@@ -2,7 +2,7 @@ import { useId, useState } from 'react';
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { knownZones } from '../../../../shared/dates';
+import { knownZones, deviceTimeZone } from '../../../../shared/dates';
 import {
   maxBufferDays,
   timelineSettingsInputSchema,
@@ -13,7 +13,6 @@ import { Button } from '../../../components/ui/button';
 import { FormError } from '../../../components/ui/form-error';
 import { FormField, TextInput } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
-import { browserTimeZone } from '../../../lib/time-zone';
 import { useUpdateTimelineSettings } from '../api/update-timeline-settings';
 
 type Input = z.input<typeof timelineSettingsInputSchema>;
@@ -29,7 +28,7 @@ export function SettingsForm({ buildId, timeline }: { buildId: string; timeline:
   const update = useUpdateTimelineSettings();
   const [saved, setSaved] = useState(false);
   const zonesId = useId();
-  const here = browserTimeZone();
+  const here = deviceTimeZone();
   const {
     register,
     handleSubmit,

@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
 import { Plus, Trash2 } from 'lucide-react';
+import { deviceToday } from '../../../../shared/dates';
 import { formatIsoDate } from '../../../../shared/format';
 import type { Wrench } from '../../../../shared/schemas/wrenches';
 import { Button } from '../../../components/ui/button';
@@ -11,8 +12,6 @@ import { useCreateWrench } from '../api/create-wrench';
 import { useDeleteWrench } from '../api/delete-wrench';
 import { useWrenches } from '../api/get-wrenches';
 import { useUpdateWrench } from '../api/update-wrench';
-
-const today = () => new Date().toISOString().slice(0, 10);
 
 /** One wrench: its name and the day it was last calibrated, which I update after each calibration. */
 function WrenchRow({ wrench }: { wrench: Wrench }) {
@@ -45,7 +44,7 @@ function WrenchRow({ wrench }: { wrench: Wrench }) {
           id={id}
           type="date"
           value={date}
-          max={today()}
+          max={deviceToday()}
           onChange={(e) => setDate(e.target.value)}
           className="w-auto!"
         />
@@ -114,7 +113,7 @@ function AddWrenchForm() {
               {...c}
               type="date"
               value={calibratedOn}
-              max={today()}
+              max={deviceToday()}
               onChange={(e) => setCalibratedOn(e.target.value)}
             />
           )}
