@@ -20,9 +20,18 @@ export async function listMine(knex: Knex, userId: string) {
 /**
  * The build's calendar now: its time zone (UTC until chosen) and its today there, the one
  * "today" every service stamps and judges a build's dates by (shared/dates buildToday).
+ * `known` is the build's row when the access check already holds it.
  */
-export async function calendar(knex: Knex, buildId: string, now: Date = new Date()) {
-  const chosen = await repo.findTimeZone(knex, buildId);
+export async function calendar(
+  knex: Knex,
+  buildId: string,
+  now: Date = new Date(),
+  known?: BuildRowJson,
+) {
+  // The row the session brought holds the zone: no statement of its own then.
+  const chosen = known
+    ? ((known.time_zone as string | null | undefined) ?? null)
+    : await repo.findTimeZone(knex, buildId);
   return {
     timeZone: chosen ?? fallbackTimeZone,
     today: buildToday({ timeZone: chosen }, now),

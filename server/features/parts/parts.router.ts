@@ -24,7 +24,9 @@ export function partsRouter(deps: AppDeps) {
   });
 
   router.get('/', deps.access('parts:read'), shopQuote, async (req, res) => {
-    res.json({ parts: await service.list(knex, req.membership!.buildId, caller(req)) });
+    res.json({
+      parts: await service.list(knex, req.membership!.buildId, caller(req), req.membership!.build),
+    });
   });
   router.post(
     '/',

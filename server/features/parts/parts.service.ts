@@ -21,6 +21,7 @@ import {
 } from '../../lib/errors';
 import type { Logger } from '../../lib/logger';
 import type { Caller } from '../../lib/scope';
+import type { BuildRowJson } from '../../lib/sessions.repository';
 import type { Storage } from '../../lib/storage';
 import * as files from '../files';
 import { csvFileName, parseCsv, partsToCsv } from './parts.csv';
@@ -31,7 +32,8 @@ import * as repo from './parts.repository';
 export type { Caller };
 
 /** The build's today (its time zone's date), by which parts are stamped and judged. */
-const today = async (knex: Knex, buildId: string) => (await builds.calendar(knex, buildId)).today;
+const today = async (knex: Knex, buildId: string, known?: BuildRowJson) =>
+  (await builds.calendar(knex, buildId, new Date(), known)).today;
 
 /** Full part with its total and send-out state; the money filter trims it per role. */
 function present(p: repo.PartRecord, now: string): Part {
@@ -48,9 +50,10 @@ function scope(caller: Caller) {
   return caller.role === 'shop' ? { shopUserId: caller.userId } : {};
 }
 
-export async function list(knex: Knex, buildId: string, caller: Caller) {
+/** `known`: the build's row when the access check brought it (spares the time-zone lookup). */
+export async function list(knex: Knex, buildId: string, caller: Caller, known?: BuildRowJson) {
   const parts = await repo.listParts(knex, buildId, scope(caller));
-  const now = await today(knex, buildId);
+  const now = await today(knex, buildId, known);
   return parts.map((p) => present(p, now));
 }
 
