@@ -28,14 +28,14 @@ import {
   TextArea,
   TextInput,
 } from '../../../components/ui/form-field';
+import { numberToInput, parseNumber } from '../../../../shared/numbers';
+import { NumberInput } from '../../../components/ui/number-input';
 import { FormError } from '../../../components/ui/form-error';
 import { Modal } from '../../../components/ui/modal';
 import { useCreateDynoRun } from '../api/create-dyno-run';
 import { useUpdateDynoRun } from '../api/update-dyno-run';
 import {
   applyFieldErrors,
-  num,
-  numText,
   schemaResolver,
   weatherFromForm,
   weatherToForm,
@@ -76,13 +76,13 @@ function toInput(v: RunFormValues, run: DynoRun | undefined): CreateDynoRunInput
     boostUnit: unit('boostUnit'),
     egtUnit: unit('egtUnit'),
     mixtureKind: unit('mixtureKind'),
-    peakPower: num(v.peakPower),
-    peakPowerRpm: num(v.peakPowerRpm),
-    peakTorque: num(v.peakTorque),
-    peakTorqueRpm: num(v.peakTorqueRpm),
-    boost: num(v.boost),
-    egt: num(v.egt),
-    mixture: num(v.mixture),
+    peakPower: parseNumber(v.peakPower),
+    peakPowerRpm: parseNumber(v.peakPowerRpm),
+    peakTorque: parseNumber(v.peakTorque),
+    peakTorqueRpm: parseNumber(v.peakTorqueRpm),
+    boost: parseNumber(v.boost),
+    egt: parseNumber(v.egt),
+    mixture: parseNumber(v.mixture),
     weather: v.ownWeather ? weatherFromForm(v) : null,
     // The stored curve is checked with the run (its boost, EGT and mixture follow the units).
     curve,
@@ -101,13 +101,13 @@ function defaults(run?: DynoRun): RunFormValues {
     boostUnit: run?.boostUnit ?? defaultRunUnits.boostUnit,
     egtUnit: run?.egtUnit ?? defaultRunUnits.egtUnit,
     mixtureKind: run?.mixtureKind ?? defaultRunUnits.mixtureKind,
-    peakPower: numText(run?.peakPower),
-    peakPowerRpm: numText(run?.peakPowerRpm),
-    peakTorque: numText(run?.peakTorque),
-    peakTorqueRpm: numText(run?.peakTorqueRpm),
-    boost: numText(run?.boost),
-    egt: numText(run?.egt),
-    mixture: numText(run?.mixture),
+    peakPower: numberToInput(run?.peakPower),
+    peakPowerRpm: numberToInput(run?.peakPowerRpm),
+    peakTorque: numberToInput(run?.peakTorque),
+    peakTorqueRpm: numberToInput(run?.peakTorqueRpm),
+    boost: numberToInput(run?.boost),
+    egt: numberToInput(run?.egt),
+    mixture: numberToInput(run?.mixture),
     ownWeather: Boolean(run?.weather),
     ...weatherToForm(run?.weather ?? null),
   };
@@ -229,7 +229,7 @@ function RunForm({
     hint?: string,
   ) => (
     <FormField label={label} optional hint={hint} error={errors[name]?.message}>
-      {(c) => <TextInput {...c} inputMode="decimal" {...register(name)} />}
+      {(c) => <NumberInput {...c} {...register(name)} />}
     </FormField>
   );
 

@@ -1,6 +1,7 @@
 import { useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { CircleCheck, Info } from 'lucide-react';
 import { estimate } from '../../../../shared/estimate';
+import { parseNumber } from '../../../../shared/numbers';
 import {
   estimateRequestSchema,
   type EstimateRequestInput,
@@ -14,7 +15,8 @@ import {
 import { paths } from '../../../config/paths';
 import { ButtonLink } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
-import { SelectInput, TextInput } from '../../../components/ui/form-field';
+import { SelectInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
 import { useStatelessEstimate } from '../api/post-estimate';
 import {
   capitalise,
@@ -86,9 +88,8 @@ const initial: Fields = {
   transmission: '1500',
 };
 
-function num(text: string): number {
-  return text.trim() === '' ? Number.NaN : Number(text);
-}
+/** Empty is NaN here too: the schema then says the box needs a number. */
+const num = (text: string): number => parseNumber(text) ?? Number.NaN;
 
 /** The request the boxes make, or the field messages that stop it. Empty part boxes are left out. */
 function toRequest(
@@ -193,13 +194,11 @@ export function TryItCalculator() {
           >
             <div className="flex gap-2">
               <div className="min-w-0 flex-1">
-                <TextInput
+                <NumberInput
                   id={`${id}-power`}
-                  inputMode="decimal"
                   value={fields.powerHp}
                   onChange={set('powerHp')}
                   aria-invalid={errors?.powerHp ? true : undefined}
-                  className="tabular-nums"
                 />
               </div>
               <div className="w-32 shrink-0">
@@ -215,13 +214,12 @@ export function TryItCalculator() {
             </div>
           </Box>
           <Box label="Cylinders" error={errors?.cylinders} htmlFor={`${id}-cylinders`}>
-            <TextInput
+            <NumberInput
               id={`${id}-cylinders`}
-              inputMode="numeric"
+              integer
               value={fields.cylinders}
               onChange={set('cylinders')}
               aria-invalid={errors?.cylinders ? true : undefined}
-              className="tabular-nums"
             />
           </Box>
           {partFields.map((p) => (
@@ -231,23 +229,15 @@ export function TryItCalculator() {
               error={errors?.[p.key]}
               htmlFor={`${id}-${p.key}`}
             >
-              <div className="relative">
-                <TextInput
-                  id={`${id}-${p.key}`}
-                  inputMode="decimal"
-                  value={fields[p.key]}
-                  onChange={set(p.key)}
-                  placeholder="unknown"
-                  aria-invalid={errors?.[p.key] ? true : undefined}
-                  className="pr-28 tabular-nums"
-                />
-                <span
-                  aria-hidden
-                  className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm font-semibold text-muted"
-                >
-                  {p.suffix}
-                </span>
-              </div>
+              <NumberInput
+                id={`${id}-${p.key}`}
+                unit={p.suffix}
+                value={fields[p.key]}
+                onChange={set(p.key)}
+                placeholder="unknown"
+                aria-invalid={errors?.[p.key] ? true : undefined}
+                className="pr-28"
+              />
             </Box>
           ))}
         </form>

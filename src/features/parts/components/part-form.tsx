@@ -1,4 +1,4 @@
-import { useEffect, type InputHTMLAttributes, type Ref } from 'react';
+import { useEffect } from 'react';
 import {
   Controller,
   useForm,
@@ -24,6 +24,7 @@ import {
   type Part,
   type UpdatePartInput,
 } from '../../../../shared/schemas/parts';
+import { parseNumber } from '../../../../shared/numbers';
 import { Button } from '../../../components/ui/button';
 import {
   FieldGroup,
@@ -31,10 +32,10 @@ import {
   SelectInput,
   TextArea,
   TextInput,
-  type ControlProps,
 } from '../../../components/ui/form-field';
 import { FormError } from '../../../components/ui/form-error';
 import { MoneyInput } from '../../../components/ui/money-input';
+import { NumberInput } from '../../../components/ui/number-input';
 import { applyServerErrors } from '../../../lib/form-errors';
 
 export type PartFormInput = z.input<typeof createPartInputSchema>;
@@ -68,13 +69,7 @@ const dateFields = [
 ] as const;
 
 const emptyToNull = (v: unknown) => (v === '' || v === undefined || v === null ? null : v);
-const toNumberOrNull = (v: unknown) => {
-  if (v === null || v === undefined) return null;
-  if (typeof v === 'number') return v;
-  const text = String(v).trim();
-  return text === '' ? null : Number(text);
-};
-const toNumberOrUndefined = (v: unknown) => toNumberOrNull(v) ?? undefined;
+const toNumberOrUndefined = (v: unknown) => parseNumber(v) ?? undefined;
 
 export function partToFormValues(part: Part): DefaultValues<PartFormInput> {
   return {
@@ -176,25 +171,6 @@ function partResolver(
     }
     return { values: {}, errors };
   };
-}
-
-function UnitInput({
-  unit,
-  ...props
-}: ControlProps & { unit: string } & InputHTMLAttributes<HTMLInputElement> & {
-    ref?: Ref<HTMLInputElement>;
-  }) {
-  return (
-    <div className="relative">
-      <TextInput {...props} className="pr-14 tabular-nums" />
-      <span
-        aria-hidden
-        className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm font-semibold text-muted"
-      >
-        {unit}
-      </span>
-    </div>
-  );
 }
 
 function MoneyField({
@@ -310,7 +286,7 @@ export function PartForm({
     }
   });
 
-  const numeric = { setValueAs: toNumberOrNull };
+  const numeric = { setValueAs: parseNumber };
   const dates = (
     <FieldGroup
       legend="Dates"
@@ -369,12 +345,10 @@ export function PartForm({
             </FormField>
             <FormField label="Quantity" error={errors.quantity?.message}>
               {(c) => (
-                <TextInput
+                <NumberInput
                   {...c}
                   {...register('quantity', { setValueAs: toNumberOrUndefined })}
-                  inputMode="numeric"
-                  autoComplete="off"
-                  className="tabular-nums"
+                  integer
                 />
               )}
             </FormField>
@@ -428,12 +402,11 @@ export function PartForm({
                   hint="Days the shop said it would take"
                 >
                   {(c) => (
-                    <UnitInput
+                    <NumberInput
                       {...c}
                       {...register('turnaroundDays', numeric)}
                       unit="days"
-                      inputMode="numeric"
-                      autoComplete="off"
+                      integer
                     />
                   )}
                 </FormField>
@@ -469,15 +442,7 @@ export function PartForm({
             description="What the maker says the part can take; the power estimate checks the build against it."
           >
             <FormField label="Rated value" optional error={errors.ratingValue?.message}>
-              {(c) => (
-                <TextInput
-                  {...c}
-                  {...register('ratingValue', numeric)}
-                  inputMode="decimal"
-                  autoComplete="off"
-                  className="tabular-nums"
-                />
-              )}
+              {(c) => <NumberInput {...c} {...register('ratingValue', numeric)} />}
             </FormField>
             <FormField label="Rating unit" optional error={errors.ratingUnit?.message}>
               {(c) => (
