@@ -20,10 +20,10 @@ import {
   type InjectorFlag,
 } from '../../../../shared/schemas/bench';
 import type { Part } from '../../../../shared/schemas/parts';
+import { FormActions } from '../../../components/ui/form-actions';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
-import { FormError } from '../../../components/ui/form-error';
 import { FormField, SelectInput, TextArea, TextInput } from '../../../components/ui/form-field';
 import { NumberInput } from '../../../components/ui/number-input';
 import { isApiError } from '../../../lib/api-client';
@@ -563,15 +563,13 @@ export function SheetEntryForm({
         </div>
       </section>
 
-      <FormError message={errors.root?.server?.message} />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" pending={isSubmitting}>
-          {submitLabel}
-        </Button>
-        <Button variant="secondary" onClick={onCancel} disabled={isSubmitting}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions
+        layout="start"
+        error={errors.root?.server?.message}
+        onCancel={onCancel}
+        submitLabel={submitLabel}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -12,9 +12,8 @@ import {
 } from '../../../../shared/schemas/builds';
 import { currencies } from '../../../../shared/schemas/common';
 import { parseNumber } from '../../../../shared/numbers';
-import { ButtonLink, Button } from '../../../components/ui/button';
+import { FormActions } from '../../../components/ui/form-actions';
 import { FieldGroup, FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
 import { MoneyInput } from '../../../components/ui/money-input';
 import { NumberInput } from '../../../components/ui/number-input';
 import { applyServerErrors } from '../../../lib/form-errors';
@@ -287,16 +286,12 @@ export function BuildForm({
         </FormField>
       </FieldGroup>
 
-      <FormError message={errors.root?.server?.message} />
-
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <ButtonLink to={cancelHref} variant="secondary">
-          Cancel
-        </ButtonLink>
-        <Button type="submit" pending={isSubmitting}>
-          {submitLabel}
-        </Button>
-      </div>
+      <FormActions
+        error={errors.root?.server?.message}
+        cancelHref={cancelHref}
+        submitLabel={submitLabel}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

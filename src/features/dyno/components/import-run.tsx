@@ -21,8 +21,8 @@ import {
   type RunUnits,
 } from '../../../../shared/schemas/dyno';
 import { formatNumber } from '../../../../shared/format';
+import { FormActions } from '../../../components/ui/form-actions';
 import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
 import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
 import { Modal } from '../../../components/ui/modal';
 import { Spinner } from '../../../components/ui/spinner';
@@ -404,19 +404,15 @@ function ImportRunForm({
         />
       )}
 
-      <div className="sticky bottom-0 -mx-4 flex flex-col-reverse gap-2 border-t border-rule bg-paper px-4 py-3 sm:-mx-5 sm:flex-row sm:justify-end sm:px-5">
-        <Button variant="secondary" onClick={onCancel} disabled={saving}>
-          Cancel
-        </Button>
-        <Button
-          onClick={() => void save()}
-          disabled={!ready}
-          pending={saving}
-          icon={<FileUp aria-hidden className="size-5" />}
-        >
-          {replace ? 'Replace the curve' : 'Save the run'}
-        </Button>
-      </div>
+      <FormActions
+        layout="sticky"
+        onCancel={onCancel}
+        onSubmit={() => void save()}
+        submitDisabled={!ready}
+        pending={saving}
+        submitIcon={<FileUp aria-hidden className="size-5" />}
+        submitLabel={replace ? 'Replace the curve' : 'Save the run'}
+      />
     </div>
   );
 }

@@ -20,7 +20,7 @@ import {
   type RunStatus,
   type RunUnits,
 } from '../../../../shared/schemas/dyno';
-import { Button } from '../../../components/ui/button';
+import { FormActions } from '../../../components/ui/form-actions';
 import {
   FieldGroup,
   FormField,
@@ -327,14 +327,11 @@ function RunForm({
           </div>
         )}
       </FieldGroup>
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <Button variant="secondary" onClick={onCancel} disabled={isSubmitting}>
-          Cancel
-        </Button>
-        <Button type="submit" pending={isSubmitting}>
-          {run ? 'Save changes' : 'Add run'}
-        </Button>
-      </div>
+      <FormActions
+        onCancel={onCancel}
+        submitLabel={run ? 'Save changes' : 'Add run'}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

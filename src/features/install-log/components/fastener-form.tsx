@@ -14,9 +14,9 @@ import {
 } from '../../../../shared/schemas/install-log';
 import { cylinderNames } from '../../../../shared/install-log/positions';
 import { toleranceTypes, torqueUnits } from '../../../../shared/install-log/torque';
+import { FormActions } from '../../../components/ui/form-actions';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
 import { FormField, SelectInput, TextArea, TextInput } from '../../../components/ui/form-field';
 import { NumberInput } from '../../../components/ui/number-input';
 import { parseNumber } from '../../../../shared/numbers';
@@ -360,15 +360,13 @@ export function FastenerForm(props: FastenerFormProps) {
         </div>
       </fieldset>
 
-      <FormError message={errors.root?.server?.message} />
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <Button variant="secondary" className="min-h-12!" onClick={onCancel}>
-          Cancel
-        </Button>
-        <Button type="submit" className="min-h-12!" pending={isSubmitting}>
-          {spec ? 'Save the spec' : 'Add the spec'}
-        </Button>
-      </div>
+      <FormActions
+        large
+        error={errors.root?.server?.message}
+        onCancel={onCancel}
+        submitLabel={spec ? 'Save the spec' : 'Add the spec'}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -25,7 +25,7 @@ import {
   type UpdatePartInput,
 } from '../../../../shared/schemas/parts';
 import { parseNumber } from '../../../../shared/numbers';
-import { Button } from '../../../components/ui/button';
+import { FormActions } from '../../../components/ui/form-actions';
 import {
   FieldGroup,
   FormField,
@@ -33,7 +33,6 @@ import {
   TextArea,
   TextInput,
 } from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
 import { MoneyInput } from '../../../components/ui/money-input';
 import { NumberInput } from '../../../components/ui/number-input';
 import { applyServerErrors } from '../../../lib/form-errors';
@@ -480,16 +479,13 @@ export function PartForm({
         </>
       )}
 
-      <FormError message={errors.root?.server?.message} />
-
-      <div className="sticky bottom-0 -mx-4 flex flex-col-reverse gap-2 border-t border-rule bg-paper px-4 py-3 sm:-mx-5 sm:flex-row sm:justify-end sm:px-5">
-        <Button variant="secondary" onClick={onCancel} disabled={isSubmitting}>
-          Cancel
-        </Button>
-        <Button type="submit" pending={isSubmitting}>
-          {submitLabel}
-        </Button>
-      </div>
+      <FormActions
+        layout="sticky"
+        error={errors.root?.server?.message}
+        onCancel={onCancel}
+        submitLabel={submitLabel}
+        pending={isSubmitting}
+      />
     </form>
   );
 }
