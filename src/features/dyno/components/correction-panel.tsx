@@ -18,7 +18,8 @@ import { Badge } from '../../../components/ui/badge';
 import { FormField, SelectInput } from '../../../components/ui/form-field';
 import { NumberInput } from '../../../components/ui/number-input';
 import { factorText } from '../format';
-import { ShowWorking, WorkingBody } from './working';
+import { ShowWorking } from '../../../components/ui/working';
+import { WorkingBody } from './working';
 
 /**
  * The standard the figures are shown in. For R85, the engine's aspiration and the engine

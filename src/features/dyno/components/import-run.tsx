@@ -28,7 +28,7 @@ import { Modal } from '../../../components/ui/modal';
 import { Spinner } from '../../../components/ui/spinner';
 import { useImportDynoRun } from '../api/import-dyno-run';
 import { useReplaceDynoCurve } from '../api/replace-dyno-curve';
-import { FileUploadError } from '../api/send-file';
+import { UploadError } from '../../../lib/upload';
 import { powerText, rpmText, torqueText } from '../format';
 
 const previewRows = 12;
@@ -248,7 +248,7 @@ function ImportRunForm({
   const replaceCurve = useReplaceDynoCurve();
   const saving = importRun.isPending || replaceCurve.isPending;
   const [read, setRead] = useState<Read | null>(null);
-  const [serverError, setServerError] = useState<FileUploadError | Error | null>(null);
+  const [serverError, setServerError] = useState<UploadError | Error | null>(null);
   const [status, setStatus] = useState<RunStatus>('complete');
   const [abortReason, setAbortReason] = useState('');
   const [gear, setGear] = useState('');
@@ -289,12 +289,12 @@ function ImportRunForm({
           });
       onSaved(result.run);
     } catch (error) {
-      if (error instanceof FileUploadError && error.fields) setFieldErrors(error.fields);
+      if (error instanceof UploadError && error.fields) setFieldErrors(error.fields);
       setServerError(error instanceof Error ? error : new Error('The import failed.'));
     }
   }
 
-  const serverRows = serverError instanceof FileUploadError ? serverError.rows : [];
+  const serverRows = serverError instanceof UploadError ? serverError.rows : [];
 
   return (
     <div className="flex flex-col gap-4">
