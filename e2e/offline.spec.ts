@@ -145,7 +145,7 @@ test('the crew records readings and a photo without signal; they arrive once, in
   await coverCard.getByLabel('Torque at #1').fill('30');
   await coverCard.getByRole('button', { name: 'Record #1' }).click();
 
-  await crew.getByRole('checkbox', { name: /Pushrods seated in their cups/ }).check();
+  await crew.getByRole('checkbox', { name: /Pushrods seated in their cups/ }).click();
   await expect(crew.getByRole('checkbox', { name: /Pushrods seated/ })).toBeChecked();
 
   const photo = await sharp({
