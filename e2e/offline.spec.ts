@@ -139,6 +139,8 @@ test('the crew records readings and a photo without signal; they arrive once, in
   await expect(
     rockerCard.getByText('31 lbf·ft kept on this phone: waiting to send.'),
   ).toBeVisible();
+  // The field is cleared, so a second tap does not keep the same reading twice.
+  await expect(rockerCard.getByLabel('Torque at #1')).toHaveValue('');
   await rockerCard.getByLabel('Torque at #2').fill('36');
   await rockerCard.getByRole('button', { name: 'Record #2' }).click();
   const coverCard = crew.getByRole('region', { name: /Valve cover bolts/ });
@@ -147,6 +149,10 @@ test('the crew records readings and a photo without signal; they arrive once, in
 
   await crew.getByRole('checkbox', { name: /Pushrods seated in their cups/ }).click();
   await expect(crew.getByRole('checkbox', { name: /Pushrods seated/ })).toBeChecked();
+  // Sign-off still lists them as open (the server has not had them yet), and says why.
+  await expect(crew.getByTestId('sign-off-waiting')).toHaveText(
+    'Entries waiting on this phone count here once they are sent.',
+  );
 
   const photo = await sharp({
     create: { width: 2400, height: 1800, channels: 3, background: { r: 70, g: 90, b: 110 } },
