@@ -188,6 +188,7 @@ test('the crew records readings and a photo without signal; they arrive once, in
     /Photo rockers\.jpg \(“Rockers in, before the covers”\) · waiting to send/,
   ]);
   await expect(crew.getByTestId('offline-status')).toContainText('5 entries waiting to send');
+  await expect(crew.getByRole('checkbox', { name: /Pushrods seated/ })).toBeChecked();
 
   // Meanwhile the owner changes the valve cover bolts' target.
   await call(owner, 'patch', `${api}/fasteners/${covers.id}`, { targetValue: 25 });
