@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { Sessions } from '../lib/auth';
+import { recordedByHeader } from '../../shared/idempotency';
 import { UnauthorizedError } from '../lib/errors';
 
 // /builds/<uuid>… relative to /api: the build a request is about, looked up with the session.
@@ -19,6 +20,17 @@ export function loadSession(sessions: Sessions): RequestHandler {
       req.user = found.user;
       req.sessionId = found.sessionId;
       req.sessionMembership = found.membership;
+      // A write the offline queue kept for one user is never stored as another's.
+      const recordedBy = req.get(recordedByHeader);
+      if (
+        recordedBy !== undefined &&
+        recordedBy.trim().toLowerCase() !== found.user.id.toLowerCase()
+      ) {
+        throw new UnauthorizedError(
+          'This entry was recorded by another person on this device; it waits for them to sign in again',
+          'recorded_by_someone_else',
+        );
+      }
     }
     next();
   };

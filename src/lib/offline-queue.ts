@@ -9,7 +9,7 @@
  */
 import { useSyncExternalStore } from 'react';
 import { createStore, del, entries, set, type UseStore } from 'idb-keyval';
-import { idempotencyKeyHeader } from '../../shared/idempotency';
+import { idempotencyKeyHeader, recordedByHeader } from '../../shared/idempotency';
 import { queryClient } from './query-client';
 
 export type QueuedWrite = {
@@ -127,6 +127,7 @@ async function send(item: QueuedWrite): Promise<Outcome> {
   const headers: Record<string, string> = {
     Accept: 'application/json',
     [idempotencyKeyHeader]: item.key,
+    [recordedByHeader]: item.userId,
   };
   if (item.photo) {
     const form = new FormData();

@@ -291,3 +291,27 @@ describe('a reading sent late', () => {
     expect(res.status).toBe(404);
   });
 });
+
+describe('a queued write names who recorded it', () => {
+  it('is refused with 401 and stored nowhere when the session is someone else’s, and taken from the one who recorded it', async () => {
+    const c = await setUp();
+    const body = { position: 1, value: 30, unit: 'lbf-ft' };
+    // Recorded by the crew on this phone; another member has signed in meanwhile.
+    const asOwner = await c.owner.agent
+      .post(c.readings)
+      .set('Idempotency-Key', randomUUID())
+      .set('Headroom-Recorded-By', c.crew.id)
+      .send(body);
+    expect(asOwner.status).toBe(401);
+    expect(asOwner.body.error.code).toBe('recorded_by_someone_else');
+    expect(await c.count()).toBe(0);
+
+    const asCrew = await c.crew.agent
+      .post(c.readings)
+      .set('Idempotency-Key', randomUUID())
+      .set('Headroom-Recorded-By', c.crew.id)
+      .send(body);
+    expect(asCrew.status).toBe(201);
+    expect(await c.count()).toBe(1);
+  });
+});
