@@ -4,6 +4,7 @@ import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
 import type { StepStatus } from '../../../shared/schemas/install-log';
 import { namedRows } from '../../lib/named-query';
 import { iso, person } from './rows';
+import type { StepRow } from './steps.repository';
 
 type JobRow = {
   id: string;
@@ -61,19 +62,22 @@ export type StepCounts = {
   checklistTotal: number;
 };
 
-type JobStepRow = JobRow & {
-  step_id: string | null;
-  step_position: number;
-  step_title: string;
-  status: StepStatus;
-  signed_off_by: string | null;
-  signed_off_by_name: string | null;
-  signed_off_at: Date | null;
-  override_reason: string | null;
-  override_blockers: SignOffBlocker[] | null;
-  checklist_total: number;
-  checklist_done: number;
-};
+type JobStepRow = JobRow &
+  Pick<
+    StepRow,
+    | 'status'
+    | 'signed_off_by'
+    | 'signed_off_by_name'
+    | 'signed_off_at'
+    | 'override_reason'
+    | 'override_blockers'
+  > & {
+    step_id: string | null;
+    step_position: number;
+    step_title: string;
+    checklist_total: number;
+    checklist_done: number;
+  };
 
 /**
  * Jobs in order, each with its steps in order and their checklist counts: a row a step (one

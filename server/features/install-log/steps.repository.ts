@@ -5,7 +5,7 @@ import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
 import type { StepStatus } from '../../../shared/schemas/install-log';
 import { iso, person } from './rows';
 
-type StepRow = {
+export type StepRow = {
   id: string;
   build_id: string;
   job_id: string;
