@@ -173,7 +173,9 @@ test('at phone width the crew records torque (one out of spec, then corrected) a
   );
 
   // The check, ticked with a big box; who ticked it shows.
-  await crew.getByRole('checkbox', { name: /New copper washer on each injector/ }).check();
+  const washer = crew.getByRole('checkbox', { name: /New copper washer on each injector/ });
+  await washer.click();
+  await expect(washer).toBeChecked();
   await expect(crew.getByText('Ticked by Teodor Brandt')).toBeVisible();
 
   // A photo of the step, with its own progress bar and caption, then in the step's gallery.

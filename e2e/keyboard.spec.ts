@@ -310,6 +310,9 @@ test.describe('a build of its own', () => {
     await expect(
       bolts.getByRole('listitem', { name: 'Position 1' }).getByText('In spec'),
     ).toBeVisible();
+    // The next position takes the focus for the next reading (then the test moves on from
+    // there: moving first could be undone by that focus arriving later).
+    await expect(bolts.getByLabel('Torque at #2')).toBeFocused();
 
     // The step's dialogs: each takes focus, keeps it, closes on Escape and gives it back.
     await expectDialogKeyboard(

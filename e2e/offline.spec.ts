@@ -8,7 +8,7 @@
  */
 import { expect, test, type BrowserContext, type Page } from '@playwright/test';
 import sharp from 'sharp';
-import { signUpThroughPage, uniqueEmail } from './helpers';
+import { password, signUpThroughApi, signUpThroughPage, uniqueEmail } from './helpers';
 import { joinByInvitation } from './mail';
 
 const phone = { width: 390, height: 844 };
@@ -139,14 +139,20 @@ test('the crew records readings and a photo without signal; they arrive once, in
   await expect(
     rockerCard.getByText('31 lbf·ft kept on this phone: waiting to send.'),
   ).toBeVisible();
+  // The field is cleared, so a second tap does not keep the same reading twice.
+  await expect(rockerCard.getByLabel('Torque at #1')).toHaveValue('');
   await rockerCard.getByLabel('Torque at #2').fill('36');
   await rockerCard.getByRole('button', { name: 'Record #2' }).click();
   const coverCard = crew.getByRole('region', { name: /Valve cover bolts/ });
   await coverCard.getByLabel('Torque at #1').fill('30');
   await coverCard.getByRole('button', { name: 'Record #1' }).click();
 
-  await crew.getByRole('checkbox', { name: /Pushrods seated in their cups/ }).check();
+  await crew.getByRole('checkbox', { name: /Pushrods seated in their cups/ }).click();
   await expect(crew.getByRole('checkbox', { name: /Pushrods seated/ })).toBeChecked();
+  // Sign-off still lists them as open (the server has not had them yet), and says why.
+  await expect(crew.getByTestId('sign-off-waiting')).toHaveText(
+    'Entries waiting on this phone count here once they are sent.',
+  );
 
   const photo = await sharp({
     create: { width: 2400, height: 1800, channels: 3, background: { r: 70, g: 90, b: 110 } },
@@ -182,6 +188,7 @@ test('the crew records readings and a photo without signal; they arrive once, in
     /Photo rockers\.jpg \(“Rockers in, before the covers”\) · waiting to send/,
   ]);
   await expect(crew.getByTestId('offline-status')).toContainText('5 entries waiting to send');
+  await expect(crew.getByRole('checkbox', { name: /Pushrods seated/ })).toBeChecked();
 
   // Meanwhile the owner changes the valve cover bolts' target.
   await call(owner, 'patch', `${api}/fasteners/${covers.id}`, { targetValue: 25 });
@@ -223,6 +230,172 @@ test('the crew records readings and a photo without signal; they arrive once, in
   await expect(crew.getByTestId('offline-status')).toContainText('1 entry refused');
   await waiting.getByRole('button', { name: 'Discard' }).click();
   await expect(waiting).toHaveCount(0);
+
+  await crewContext.close();
+  await ownerContext.close();
+});
+
+/** Signs in on the page as it stands (the sign-in form the app sent them to). */
+async function signInHere(page: Page, email: string) {
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+test('entries waiting when the session ends stay, are never sent as another user, and go once the same user is back', async ({
+  browser,
+  baseURL,
+}) => {
+  test.setTimeout(180_000);
+  const crewEmail = uniqueEmail('crew');
+  const ownerContext = await browser.newContext({ viewport: phone });
+  const owner = await ownerContext.newPage();
+  await signUpThroughPage(owner, 'Odile Pemberton', uniqueEmail('owner'));
+  const { build } = await call<{ build: { id: string } }>(owner, 'post', '/api/builds', {
+    name: 'Shared Bench Hauler',
+    cylinders: 6,
+    aspiration: 'single-turbo',
+    targetPowerHp: 600,
+    targetPowerBasis: 'crank',
+  });
+  const api = `/api/builds/${build.id}`;
+  const { job } = await call<{ job: { id: string } }>(owner, 'post', `${api}/jobs`, {
+    title: 'Top end',
+  });
+  const { step } = await call<{ step: { id: string } }>(
+    owner,
+    'post',
+    `${api}/jobs/${job.id}/steps`,
+    { title: 'Torque the intake manifold' },
+  );
+  const { fastener } = await call<{ fastener: { id: string } }>(
+    owner,
+    'post',
+    `${api}/steps/${step.id}/fasteners`,
+    spec('Intake manifold bolts', 2),
+  );
+  await call(owner, 'post', `${api}/steps/${step.id}/checklist`, { label: 'Gasket faces clean' });
+  const readings = async () =>
+    (await (await owner.request.get(`${api}/fasteners/${fastener.id}/readings`)).json())
+      .readings as { position: number; recordedBy: { name: string } | null }[];
+
+  // Both are crew on the build: the server would take the entries from either of them.
+  const crewContext = await browser.newContext({ viewport: phone, hasTouch: true });
+  const crew = await crewContext.newPage();
+  await signUpThroughPage(crew, 'Teodor Brandt', crewEmail);
+  await joinByInvitation(owner, crew, { buildId: build.id, email: crewEmail, role: 'crew' });
+  const other = await signUpThroughApi(baseURL!, 'Marisol Quint', 'other');
+  await joinByInvitation(owner, other.api, { buildId: build.id, email: other.email, role: 'crew' });
+  await other.api.dispose();
+
+  const stepUrl = `/builds/${build.id}/install/steps/${step.id}`;
+  await crew.goto(stepUrl);
+  await expect(
+    crew.getByRole('heading', { level: 1, name: 'Torque the intake manifold' }),
+  ).toBeVisible();
+  await crew.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await expect.poll(() => crew.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+  await expect.poll(() => savedCacheHas(crew, 'Torque the intake manifold')).toBe(true);
+
+  // ---- Without signal: a reading and a tick wait on the phone.
+  await goOffline(crewContext);
+  const card = crew.getByRole('region', { name: /Intake manifold bolts/ });
+  await card.getByLabel('Torque at #1').fill('31');
+  await card.getByRole('button', { name: 'Record #1' }).click();
+  await expect(card.getByText('31 lbf·ft kept on this phone: waiting to send.')).toBeVisible();
+  // A click, not check(): the box is ticked once the tick is kept on the phone, a moment later.
+  await crew.getByRole('checkbox', { name: /Gasket faces clean/ }).click();
+  await expect(crew.getByRole('checkbox', { name: /Gasket faces clean/ })).toBeChecked();
+  await expect(crew.getByTestId('offline-status')).toContainText('2 entries waiting to send');
+
+  // ---- The session ends while they wait (it expired: the cookie is gone), and the signal
+  // comes back: the queue meets 401 and keeps them.
+  await crewContext.clearCookies();
+  await goOnline(crewContext);
+  await crew.reload();
+  await expect(crew.getByRole('button', { name: 'Sign in' })).toBeVisible();
+  expect(await readings()).toHaveLength(0);
+
+  // ---- Someone else signs in on the same phone: the entries are neither shown nor sent.
+  await signInHere(crew, other.email);
+  await expect(crew.getByTestId('signed-in-user')).toHaveText('Marisol Quint');
+  await crew.goto(stepUrl);
+  await expect(
+    crew.getByRole('heading', { level: 1, name: 'Torque the intake manifold' }),
+  ).toBeVisible();
+  await expect(crew.getByTestId('offline-status')).toHaveText('Online');
+  await expect(crew.getByRole('region', { name: 'On this phone' })).toHaveCount(0);
+  await expect(crew.getByRole('checkbox', { name: /Gasket faces clean/ })).not.toBeChecked();
+  await expect(card.getByText('kept on this phone')).toHaveCount(0);
+  expect(await readings()).toHaveLength(0);
+  // Nothing waits, so she signs out without being asked.
+  await crew.getByRole('button', { name: 'Sign out' }).click();
+  await expect(crew.getByText('You have signed out')).toBeVisible();
+  expect(await readings()).toHaveLength(0);
+
+  // A reload after she left opens nobody's saved data.
+  await crew.reload();
+  await expect(crew.getByRole('button', { name: 'Sign in' })).toBeVisible();
+  await expect(crew.getByTestId('signed-in-user')).toHaveCount(0);
+
+  // ---- The crew signs in again on the same phone: the entries go, as him, once.
+  await signInHere(crew, crewEmail);
+  await expect(crew.getByTestId('signed-in-user')).toHaveText('Teodor Brandt');
+  await expect.poll(async () => (await readings()).length).toBe(1);
+  const [sent] = await readings();
+  expect(sent).toMatchObject({ position: 1, recordedBy: { name: 'Teodor Brandt' } });
+  const { step: after } = await (await owner.request.get(`${api}/steps/${step.id}`)).json();
+  expect(after.checklist[0]).toMatchObject({ done: true, doneBy: { name: 'Teodor Brandt' } });
+  await expect(crew.getByTestId('offline-status')).toContainText(/Online.*last sent/);
+
+  // ---- Signing out on purpose with an entry waiting: recorded without signal, and the
+  // session gone again by the time the signal returns (so the entry cannot be sent). Asked
+  // first, then kept; the next person on the phone is not shown it; the crew's next sign-in
+  // sends it.
+  await crew.goto(stepUrl);
+  await expect(card.getByLabel('Torque at #2')).toBeVisible();
+  await goOffline(crewContext);
+  await card.getByLabel('Torque at #2').fill('29');
+  await card.getByRole('button', { name: 'Record #2' }).click();
+  await expect(card.getByText('29 lbf·ft kept on this phone: waiting to send.')).toBeVisible();
+  await crewContext.clearCookies();
+  await goOnline(crewContext);
+  await expect(crew.getByTestId('offline-status')).toHaveText(/^Online · 1 entry waiting to send/);
+  await crew.getByRole('button', { name: 'Sign out' }).click();
+  const ask = crew.getByRole('dialog', { name: 'Sign out with entries waiting?' });
+  await ask.getByRole('button', { name: 'Sign out anyway' }).click();
+  await expect(crew.getByText('You have signed out')).toBeVisible();
+  // Opened again, even without signal (nothing to ask the server), it shows nobody's data.
+  await goOffline(crewContext);
+  await crew.goto(stepUrl);
+  await expect(
+    crew.getByRole('heading', { name: 'No signal: sign in when you are back online' }),
+  ).toBeVisible();
+  await expect(crew.getByTestId('signed-in-user')).toHaveCount(0);
+  await expect(crew.getByText('Torque the intake manifold')).toHaveCount(0);
+  await goOnline(crewContext);
+  await crew.reload();
+  await expect(crew.getByRole('button', { name: 'Sign in' })).toBeVisible();
+  await signInHere(crew, other.email);
+  await expect(crew.getByTestId('signed-in-user')).toHaveText('Marisol Quint');
+  await crew.goto(stepUrl);
+  await expect(
+    crew.getByRole('heading', { level: 1, name: 'Torque the intake manifold' }),
+  ).toBeVisible();
+  await expect(crew.getByTestId('offline-status')).toHaveText('Online');
+  await expect(card.getByText('kept on this phone')).toHaveCount(0);
+  expect(await readings()).toHaveLength(1);
+  await crew.getByRole('button', { name: 'Sign out' }).click();
+  await expect(crew.getByText('You have signed out')).toBeVisible();
+  await signInHere(crew, crewEmail);
+  await expect(crew.getByTestId('signed-in-user')).toHaveText('Teodor Brandt');
+  await expect.poll(async () => (await readings()).length).toBe(2);
+  expect((await readings()).map((r) => r.recordedBy?.name)).toEqual([
+    'Teodor Brandt',
+    'Teodor Brandt',
+  ]);
 
   await crewContext.close();
   await ownerContext.close();

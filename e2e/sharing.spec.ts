@@ -82,8 +82,9 @@ test('the owner shares a build, a stranger reads it at phone width, a new addres
   const onOff = page.getByRole('switch', { name: 'Share this build on a public page' });
   await expect(onOff).not.toBeChecked();
   const switchedOn = shareSaved(page);
-  await onOff.check();
+  await onOff.click();
   await switchedOn;
+  await expect(onOff).toBeChecked();
   const address = page.getByLabel('Address of the page');
   await expect(address).toHaveValue(/\/shared\/[A-Za-z0-9_-]{43}$/);
   const firstPath = new URL(await address.inputValue()).pathname;
@@ -92,8 +93,9 @@ test('the owner shares a build, a stranger reads it at phone width, a new addres
   const photoSaved = page.waitForResponse(
     (r) => r.request().method() === 'PUT' && /\/share\/photos\//.test(r.url()),
   );
-  await page.getByRole('checkbox', { name: `Public: ${publicCaption}` }).check();
+  await page.getByRole('checkbox', { name: `Public: ${publicCaption}` }).click();
   await photoSaved;
+  await expect(page.getByRole('checkbox', { name: `Public: ${publicCaption}` })).toBeChecked();
   await expect(page.getByRole('checkbox', { name: `Public: ${privateCaption}` })).not.toBeChecked();
   await expect(page.getByRole('radio', { name: `Preview photo: ${publicCaption}` })).toBeChecked();
 
@@ -151,8 +153,9 @@ test('the owner shares a build, a stranger reads it at phone width, a new addres
 
   // Switched off: the page is gone at once.
   const switchedOff = shareSaved(page);
-  await onOff.uncheck();
+  await onOff.click();
   await switchedOff;
+  await expect(onOff).not.toBeChecked();
   await expect(address).toBeHidden();
   const gone = await phone.goto(secondPath);
   expect(gone?.status()).toBe(404);

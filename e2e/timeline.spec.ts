@@ -96,7 +96,7 @@ test('the owner sets a date, sees a late part flagged and clicks through to it; 
   const milestones = page.getByRole('region', { name: 'Milestones' });
   const done = milestones.getByRole('checkbox', { name: 'Engine back together' });
   await expect(done).not.toBeChecked();
-  await done.check();
+  await done.click();
   await expect(done).toBeChecked();
   await expect(page.getByRole('region', { name: 'Dates' })).toContainText('Engine back together');
   await expectNoSidewaysScroll(page);

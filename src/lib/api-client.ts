@@ -1,4 +1,5 @@
 import type { ApiErrorBody } from '../../shared/schemas/common';
+import { noteServerDate } from './server-clock';
 
 /** An answer from the API that was not a success, or no answer at all (status 0). */
 export class ApiError extends Error {
@@ -109,6 +110,7 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
     );
   }
 
+  noteServerDate(response.headers.get('Date'));
   if (!response.ok) {
     const error = await readError(response);
     if (response.status === 401 && !expectUnauthorized) onUnauthorized?.();

@@ -7,7 +7,8 @@ import { paths } from '../config/paths';
 import { PageSpinner } from '../components/ui/spinner';
 import { leaveDevice } from './offline-cache';
 import { currentQueue } from './offline-queue';
-import { ErrorState } from '../components/ui/states';
+import { CloudOff } from 'lucide-react';
+import { EmptyState, ErrorState } from '../components/ui/states';
 
 const meKey = getMeQueryOptions().queryKey;
 
@@ -87,6 +88,18 @@ export function useUser(): User {
 export function RequireAuth({ children }: { children?: ReactNode }) {
   const me = useMe();
   const location = useLocation();
+  if (me.isPending && me.fetchStatus === 'paused') {
+    // No signal and no session known on this device (nobody signed in, or they signed out).
+    return (
+      <EmptyState
+        icon={<CloudOff aria-hidden className="size-6" />}
+        title="No signal: sign in when you are back online"
+        titleAs="h1"
+      >
+        Signing in needs the network. Anything waiting to be sent stays on this phone.
+      </EmptyState>
+    );
+  }
   if (me.isPending) return <PageSpinner label="Checking your session…" />;
   if (me.isError && me.data === undefined) {
     return (

@@ -2,7 +2,8 @@
  * TanStack Query's cache, saved on the device per user (IndexedDB through idb-keyval), so
  * the builds and steps a member has opened open again without signal. The API answers
  * authenticated JSON with `no-store`; this saved cache is the only copy kept. It is removed
- * at sign-out once no writes wait to be sent.
+ * at sign-out once no writes wait to be sent (else kept, but not opened until that user signs
+ * in again).
  */
 import { createAsyncStoragePersister } from '@tanstack/query-async-storage-persister';
 import { persistQueryClient } from '@tanstack/react-query-persist-client';
@@ -61,7 +62,9 @@ export function persistCacheFor(userId: string | null): Promise<void> {
 export async function leaveDevice(userId: string, writesWaiting: boolean) {
   await persistCacheFor(null);
   await openQueue(null);
-  if (writesWaiting) return; // Kept for the same user's next sign-in.
+  // The app no longer opens to this user's saved data, even without signal: whoever uses the
+  // device next sees the sign-in, not the last user's builds.
   localStorage.removeItem(lastUserKey);
+  if (writesWaiting) return; // Kept, unopened, for the same user's next sign-in.
   for (const name of [cacheDbName(userId), queueDbName(userId)]) indexedDB.deleteDatabase(name);
 }

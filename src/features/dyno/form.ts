@@ -5,6 +5,7 @@ import type {
   DynoTemperatureUnit,
   WeatherFields,
 } from '../../../shared/schemas/dyno';
+import { numberToInput, parseNumber } from '../../../shared/numbers';
 import { isApiError } from '../../lib/api-client';
 
 /**
@@ -12,14 +13,6 @@ import { isApiError } from '../../lib/api-client';
  * object sent to the server. These helpers turn one into the other and put each schema or
  * server message back next to the box it is about.
  */
-
-/** A typed number: empty is "not given" (null); anything unreadable stays NaN so the schema names it. */
-export function num(text: string | undefined): number | null {
-  const t = (text ?? '').trim();
-  return t === '' ? null : Number(t);
-}
-
-export const numText = (n: number | null | undefined) => (n == null ? '' : String(n));
 
 export type WeatherFormValues = {
   temperature: string;
@@ -47,18 +40,18 @@ export function weatherToForm(w: WeatherFields | null): WeatherFormValues {
     pressure: String(w.pressure),
     pressureUnit: w.pressureUnit,
     humidityKind: w.relativeHumidityPct != null ? 'rh' : w.dewPoint != null ? 'dew' : 'none',
-    humidity: numText(w.relativeHumidityPct ?? w.dewPoint),
+    humidity: numberToInput(w.relativeHumidityPct ?? w.dewPoint),
   };
 }
 
 /** The weather to send: none when temperature and pressure are both empty. */
 export function weatherFromForm(v: WeatherFormValues): WeatherFields | null {
   if (v.temperature.trim() === '' && v.pressure.trim() === '') return null;
-  const humidity = v.humidityKind === 'none' ? null : num(v.humidity);
+  const humidity = v.humidityKind === 'none' ? null : parseNumber(v.humidity);
   return {
-    temperature: num(v.temperature) ?? Number.NaN,
+    temperature: parseNumber(v.temperature) ?? Number.NaN,
     temperatureUnit: v.temperatureUnit,
-    pressure: num(v.pressure) ?? Number.NaN,
+    pressure: parseNumber(v.pressure) ?? Number.NaN,
     pressureUnit: v.pressureUnit,
     relativeHumidityPct: v.humidityKind === 'rh' ? humidity : null,
     dewPoint: v.humidityKind === 'dew' ? humidity : null,

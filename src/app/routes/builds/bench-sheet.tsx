@@ -14,11 +14,7 @@ import {
 } from 'lucide-react';
 import { canChangeBenchSheet, canDeleteBenchSheet } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
-import {
-  fluidTemperatureUnitLabels,
-  type BenchSheetAnswer,
-} from '../../../../shared/schemas/bench';
-import { formatNumber } from '../../../../shared/format';
+import { type BenchSheetAnswer } from '../../../../shared/schemas/bench';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { Alert } from '../../../components/ui/alert';
 import { Button, ButtonLink, buttonClasses } from '../../../components/ui/button';
@@ -29,7 +25,6 @@ import { ErrorState, NotFoundState } from '../../../components/ui/states';
 import { paths } from '../../../config/paths';
 import { isApiError } from '../../../lib/api-client';
 import { useUser } from '../../../lib/auth';
-import { formatWhen } from '../../../lib/dates';
 import { useBuild } from '../../../features/builds/api/get-build';
 import { useDeleteBenchSheet } from '../../../features/bench/api/delete-bench-sheet';
 import { useBenchSheet } from '../../../features/bench/api/get-bench-sheet';
@@ -40,6 +35,7 @@ import { ImbalancePanel } from '../../../features/bench/components/imbalance-pan
 import { OriginalPanel } from '../../../features/bench/components/original-panel';
 import { ReplaceFromCsv } from '../../../features/bench/components/replace-from-csv';
 import { SheetStatusBadge } from '../../../features/bench/components/sheet-status-badge';
+import { SheetDetails } from '../../../features/bench/components/sheet-details';
 import { SheetTable } from '../../../features/bench/components/sheet-table';
 import { dateText } from '../../../features/bench/lib/format';
 import { BuildLoadError } from './build-states';
@@ -91,24 +87,6 @@ export function BenchSheetRoute() {
     );
   }
   return <SheetPage build={build.data} answer={sheet.data} />;
-}
-
-function Fact({
-  term,
-  children,
-  wide = false,
-}: {
-  term: string;
-  children: React.ReactNode;
-  /** Across both columns (a <dl> may hold only one wrapping div per term). */
-  wide?: boolean;
-}) {
-  return (
-    <div className={wide ? 'min-w-0 sm:col-span-2' : 'min-w-0'}>
-      <dt className="text-xs font-semibold tracking-wide text-muted uppercase">{term}</dt>
-      <dd className="break-words text-ink">{children}</dd>
-    </div>
-  );
 }
 
 function SheetPage({ build, answer }: { build: Build; answer: BenchSheetAnswer }) {
@@ -244,43 +222,7 @@ function SheetPage({ build, answer }: { build: Build; answer: BenchSheetAnswer }
           title="Details"
           icon={<Info aria-hidden className="size-5 text-ink-3" />}
         >
-          <dl className="grid grid-cols-1 gap-x-6 gap-y-3 text-[15px] sm:grid-cols-2">
-            <Fact term="Injector set">{sheet.partName}</Fact>
-            <Fact term="Tested by">{sheet.testedBy || '–'}</Fact>
-            <Fact term="Test fluid">{sheet.fluid || '–'}</Fact>
-            <Fact term="Fluid temperature">
-              {sheet.fluidTemperature
-                ? `${formatNumber(sheet.fluidTemperature.value, 1)} ${fluidTemperatureUnitLabels[sheet.fluidTemperature.unit]}`
-                : '–'}
-            </Fact>
-            <Fact term="Entered by">
-              {sheet.enteredBy ? sheet.enteredBy.name : 'Someone no longer on Headroom'}
-              {sheet.shopUserId ? ' (the shop)' : ''} · {formatWhen(sheet.createdAt)}
-            </Fact>
-            {sheet.updatedAt !== sheet.createdAt && sheet.updatedBy && (
-              <Fact term="Last changed">
-                {sheet.updatedBy.name} · {formatWhen(sheet.updatedAt)}
-              </Fact>
-            )}
-            {sheet.points.some((p) => p.condition) && (
-              <Fact term="Test conditions">
-                <ul>
-                  {sheet.points
-                    .filter((p) => p.condition)
-                    .map((p) => (
-                      <li key={p.label}>
-                        {p.label}: {p.condition}
-                      </li>
-                    ))}
-                </ul>
-              </Fact>
-            )}
-            {sheet.notes && (
-              <Fact term="Notes" wide>
-                <span className="whitespace-pre-line">{sheet.notes}</span>
-              </Fact>
-            )}
-          </dl>
+          <SheetDetails sheet={sheet} />
           {mayDelete && (
             <div className="mt-4 border-t border-rule pt-4">
               <Button

@@ -1,28 +1,15 @@
-import { lazy, Suspense, useMemo, useState } from 'react';
-import { useNavigate, useParams } from 'react-router-dom';
-import {
-  Activity,
-  CloudSun,
-  FileUp,
-  Gauge,
-  ListOrdered,
-  Pencil,
-  Plus,
-  Target,
-  Trash2,
-} from 'lucide-react';
+import { useMemo, useState } from 'react';
+import { useParams } from 'react-router-dom';
+import { FileUp, Gauge, ListOrdered, Pencil, Plus, Target, Trash2 } from 'lucide-react';
 import { can } from '../../../../shared/permissions';
 import { correctionFactor, sessionReport } from '../../../../shared/dyno';
-import { convertPower, convertTorque } from '../../../../shared/units/convert';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { CorrectionChoice, DynoRun } from '../../../../shared/schemas/dyno';
-import { formatIsoDate, formatNumber } from '../../../../shared/format';
+import { formatIsoDate } from '../../../../shared/format';
 import { PageHeader } from '../../../components/layouts/page-header';
-import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { Button, ButtonLink } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { EmptyState, ErrorState, NotFoundState } from '../../../components/ui/states';
 import { paths } from '../../../config/paths';
@@ -36,26 +23,15 @@ import {
 } from '../../../features/dyno/api/get-dyno-session';
 import { useCorrectionChoice } from '../../../features/dyno/choice';
 import { choiceSearch } from '../../../features/dyno/choice-search';
-import { AttachmentDialog } from '../../../features/dyno/components/attachment-dialog';
-import {
-  CorrectionFigure,
-  StandardPicker,
-} from '../../../features/dyno/components/correction-panel';
 import { standardShortLabels } from '../../../../shared/dyno/vocabulary';
-import type { ChartRun } from '../../../features/dyno/components/curve-chart';
 import { DynoCautions } from '../../../features/dyno/components/dyno-cautions';
-import { ImportRunDialog } from '../../../features/dyno/components/import-run';
 import { AgainstPlan } from '../../../features/dyno/components/plan-panel';
 import { RunCard } from '../../../features/dyno/components/run-card';
-import { RunFormDialog } from '../../../features/dyno/components/run-form';
-import { SessionFormDialog } from '../../../features/dyno/components/session-form';
-import { basisWords, dynoKindShort, runColours, weatherText } from '../../../features/dyno/format';
+import { dynoKindShort, runColours } from '../../../features/dyno/format';
+import { SessionCurves, chartRunsOf } from '../../../features/dyno/components/session-curves';
+import { SessionCorrection } from '../../../features/dyno/components/session-correction';
 import { BuildLoadError } from './build-states';
-
-// recharts is the heaviest thing here: the figures arrive first, the chart after.
-const RunCurves = lazy(() =>
-  import('../../../features/dyno/components/curve-chart').then((m) => ({ default: m.RunCurves })),
-);
+import { SessionDialogs, type Dialog } from './dyno-session-dialogs';
 
 /** "/builds/:buildId/dyno/:sessionId" — one dyno day: its runs, corrected, against the plan. */
 export function DynoSessionRoute() {
@@ -99,17 +75,6 @@ export function DynoSessionRoute() {
   );
 }
 
-type Dialog =
-  | { kind: 'edit-session' }
-  | { kind: 'delete-session' }
-  | { kind: 'new-run' }
-  | { kind: 'import-run' }
-  | { kind: 'edit-run'; run: DynoRun }
-  | { kind: 'replace-curve'; run: DynoRun }
-  | { kind: 'attach'; run: DynoRun }
-  | { kind: 'delete-run'; run: DynoRun }
-  | null;
-
 function SessionPage({
   build,
   data,
@@ -122,7 +87,6 @@ function SessionPage({
   onChoice: (c: CorrectionChoice) => void;
 }) {
   const { session, runs, plan } = data;
-  const navigate = useNavigate();
   const role = build.myRole;
   const canWrite = can(role, 'dyno:write');
   const canDelete = can(role, 'dyno:delete');
@@ -140,19 +104,7 @@ function SessionPage({
   const withCurves = runs.filter((r) => r.curve.length > 0);
   const colourOf = new Map(withCurves.map((r, i) => [r.id, runColours[i % runColours.length]]));
   const onChart = (r: DynoRun) => chartOverride[r.id] ?? r.status === 'complete';
-  const chartRuns: ChartRun[] = withCurves.filter(onChart).map((r) => {
-    const c = reportOf.get(r.id)!.corrected;
-    return {
-      id: r.id,
-      label: `Run ${r.runNumber}`,
-      colour: colourOf.get(r.id)!,
-      points: c.curve.map((p) => ({
-        rpm: p.rpm,
-        hp: convertPower(p.power, c.powerUnit, 'hp'),
-        lbft: convertTorque(p.torque, c.torqueUnit, 'lbf-ft'),
-      })),
-    };
-  });
+  const chartRuns = chartRunsOf(withCurves.filter(onChart), report, colourOf);
 
   const bestRun = report.best ? runs.find((r) => r.id === report.best!.id) : undefined;
   const shownCorrection = bestRun
@@ -174,7 +126,6 @@ function SessionPage({
       : 'Correction factor at the session’s weather';
   const standardName = standardShortLabels[choice.standard];
   const basis = report.basis;
-  const targetMoved = plan.target.basis !== basis;
   const search = choiceSearch(choice);
   const title = `Dyno day, ${formatIsoDate(session.date)}`;
 
@@ -232,31 +183,14 @@ function SessionPage({
         {session.notes && <p className="whitespace-pre-line text-ink-2">{session.notes}</p>}
 
         <div className="grid gap-5 lg:grid-cols-2 lg:items-start">
-          <Section
-            id="correction"
-            title="Weather and correction"
-            icon={<CloudSun aria-hidden className="size-5 text-ink-3" />}
-          >
-            <div className="flex flex-col gap-4">
-              <p className="text-ink-2" data-testid="session-weather">
-                {session.weather ? (
-                  <>
-                    <strong className="text-ink">At the session:</strong>{' '}
-                    {weatherText(session.weather)}
-                  </>
-                ) : (
-                  'No weather recorded for the session: runs without their own stay as measured.'
-                )}
-              </p>
-              <StandardPicker
-                key={choice.standard}
-                choice={choice}
-                onChange={onChoice}
-                buildAspiration={plan.engine.aspiration}
-              />
-              <CorrectionFigure correction={shownCorrection} title={correctionTitle} />
-            </div>
-          </Section>
+          <SessionCorrection
+            weather={session.weather}
+            choice={choice}
+            onChoice={onChoice}
+            buildAspiration={plan.engine.aspiration}
+            correction={shownCorrection}
+            correctionTitle={correctionTitle}
+          />
 
           <Section
             id="plan"
@@ -279,48 +213,14 @@ function SessionPage({
           </Section>
         </div>
 
-        <Section
-          id="curves"
-          title="Curves"
-          icon={<Activity aria-hidden className="size-5 text-accent-600" />}
-          actions={
-            <Badge tone="neutral">
-              {choice.standard === 'uncorrected' ? 'As measured' : `Corrected: ${standardName}`}
-            </Badge>
-          }
-        >
-          {withCurves.length === 0 ? (
-            <p className="text-ink-2">
-              No run has a curve yet. Import one from the dyno’s CSV file to see power and torque
-              against rpm.
-            </p>
-          ) : chartRuns.length === 0 ? (
-            <p className="text-ink-2">
-              No run is chosen for the chart: tick “On the chart” on a run below.
-            </p>
-          ) : (
-            <figure className="flex flex-col gap-3" data-testid="dyno-chart">
-              <Suspense fallback={<PageSpinner label="Drawing the curves…" />}>
-                <RunCurves
-                  runs={chartRuns}
-                  basis={basis}
-                  targetHp={report.targetPower.value}
-                  targetLbft={report.targetTorque?.value ?? null}
-                />
-              </Suspense>
-              <figcaption className="text-[15px] text-ink-2">
-                {dynoKindShort[session.dynoKind]}, so {basisWords[session.dynoKind]}. The dashed
-                line is the target,{' '}
-                {targetMoved
-                  ? `${formatNumber(plan.target.powerHp, 1)} ${plan.target.basis} hp drawn as ${formatNumber(report.targetPower.value, 1)} ${basis} hp with the build’s ${formatNumber(plan.drivetrainLossPct, 1)} % drivetrain-loss assumption`
-                  : `${formatNumber(plan.target.powerHp, 1)} ${plan.target.basis} hp`}
-                . Curves{' '}
-                {choice.standard === 'uncorrected' ? 'as measured' : `corrected to ${standardName}`}
-                , in hp and lbf·ft.
-              </figcaption>
-            </figure>
-          )}
-        </Section>
+        <SessionCurves
+          hasCurves={withCurves.length > 0}
+          chartRuns={chartRuns}
+          report={report}
+          plan={plan}
+          dynoKind={session.dynoKind}
+          standard={choice.standard}
+        />
 
         <Section
           id="runs"
@@ -388,89 +288,16 @@ function SessionPage({
         <DynoCautions />
       </div>
 
-      <SessionFormDialog
-        open={dialog?.kind === 'edit-session'}
-        buildId={build.id}
+      <SessionDialogs
+        dialog={dialog}
+        onClose={() => setDialog(null)}
+        build={build}
         session={session}
-        canAssign={can(role, 'dyno:assign')}
-        onClose={() => setDialog(null)}
-        onSaved={() => setDialog(null)}
+        runCount={runs.length}
+        backHref={`${paths.builds.dyno.getHref(build.id)}${search}`}
+        deleteSession={deleteSession}
+        deleteRun={deleteRun}
       />
-      <RunFormDialog
-        open={dialog?.kind === 'new-run' || dialog?.kind === 'edit-run'}
-        buildId={build.id}
-        sessionId={session.id}
-        run={dialog?.kind === 'edit-run' ? dialog.run : undefined}
-        onClose={() => setDialog(null)}
-        onSaved={() => setDialog(null)}
-      />
-      <ImportRunDialog
-        open={dialog?.kind === 'import-run' || dialog?.kind === 'replace-curve'}
-        buildId={build.id}
-        sessionId={session.id}
-        replace={dialog?.kind === 'replace-curve' ? dialog.run : undefined}
-        onClose={() => setDialog(null)}
-        onSaved={() => setDialog(null)}
-      />
-      {dialog?.kind === 'attach' && (
-        <AttachmentDialog
-          open
-          buildId={build.id}
-          run={dialog.run}
-          onClose={() => setDialog(null)}
-        />
-      )}
-      <ConfirmDialog
-        open={dialog?.kind === 'delete-session'}
-        title="Delete this dyno session?"
-        confirmLabel="Yes, delete"
-        pending={deleteSession.isPending}
-        onClose={() => setDialog(null)}
-        onConfirm={() =>
-          deleteSession.mutate(
-            { buildId: build.id, sessionId: session.id },
-            {
-              onSuccess: () =>
-                navigate(`${paths.builds.dyno.getHref(build.id)}${search}`, { replace: true }),
-            },
-          )
-        }
-      >
-        <p>
-          The session, its {runs.length === 1 ? 'run' : `${runs.length} runs`} and their attached
-          files go for good.
-        </p>
-        {deleteSession.isError && (
-          <Alert tone="error" className="mt-3">
-            {deleteSession.error.message}
-          </Alert>
-        )}
-      </ConfirmDialog>
-      <ConfirmDialog
-        open={dialog?.kind === 'delete-run'}
-        title={
-          dialog?.kind === 'delete-run' ? `Delete run ${dialog.run.runNumber}?` : 'Delete run?'
-        }
-        confirmLabel="Yes, delete"
-        pending={deleteRun.isPending}
-        onClose={() => setDialog(null)}
-        onConfirm={() => {
-          if (dialog?.kind !== 'delete-run') return;
-          deleteRun.mutate(
-            { buildId: build.id, runId: dialog.run.id },
-            { onSuccess: () => setDialog(null) },
-          );
-        }}
-      >
-        <p>
-          The run, its curve and its attached file go for good. The other runs keep their numbers.
-        </p>
-        {deleteRun.isError && (
-          <Alert tone="error" className="mt-3">
-            {deleteRun.error.message}
-          </Alert>
-        )}
-      </ConfirmDialog>
     </>
   );
 }

@@ -2,16 +2,14 @@ import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { Download, FileUp, Package, Plus } from 'lucide-react';
 import { buildToday } from '../../../../shared/dates';
-import { can, canAddPhotosTo, canCaptionPhoto, capabilities } from '../../../../shared/permissions';
+import { capabilities } from '../../../../shared/permissions';
 import type { Build } from '../../../../shared/schemas/builds';
 import type { Part, PartStatus, UpdatePartInput } from '../../../../shared/schemas/parts';
 import { PageHeader } from '../../../components/layouts/page-header';
 import { Alert } from '../../../components/ui/alert';
 import { Button, buttonClasses } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { EmptyState, ErrorState } from '../../../components/ui/states';
-import { isApiError } from '../../../lib/api-client';
 import { useBuild } from '../../../features/builds/api/get-build';
 import { useMembers } from '../../../features/members/api/get-members';
 import { useCreatePart } from '../../../features/parts/api/create-part';
@@ -20,19 +18,12 @@ import { getPartsCsvHref } from '../../../features/parts/api/export-parts-csv';
 import { useParts } from '../../../features/parts/api/get-parts';
 import { useUpdatePart } from '../../../features/parts/api/update-part';
 import { ImportPartsDialog } from '../../../features/parts/components/import-parts';
-import { Modal } from '../../../components/ui/modal';
-import { PartForm } from '../../../features/parts/components/part-form';
 import type { LedgerActions } from '../../../features/parts/components/parts-columns';
 import { PartsLedger } from '../../../features/parts/components/parts-ledger';
 import { statusChange } from '../../../features/parts/lib/status';
 import { stampStatusDates } from '../../../../shared/ledger/status-dates';
-import { useUser } from '../../../lib/auth';
-import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
-import { PartBenchSheets } from '../../../features/bench/components/part-bench-sheets';
 import { BuildLoadError } from './build-states';
-
-type Editing =
-  { mode: 'create' } | { mode: 'edit' | 'progress'; part: Part; focusRating?: boolean } | null;
+import { DeletePartDialog, PartDialog, type Editing } from './parts-dialogs';
 
 /** "/builds/:buildId/parts" — the ledger of every part of the build. */
 export function PartsRoute() {
@@ -62,7 +53,6 @@ function PartsPage({ build }: { build: Build }) {
     canImportParts: canImport,
   } = capabilities(role);
   const members = useMembers(build.id);
-  const me = useUser();
 
   const [editing, setEditing] = useState<Editing>(null);
   const [deleting, setDeleting] = useState<Part | null>(null);
@@ -231,8 +221,6 @@ function PartsPage({ build }: { build: Build }) {
     );
   }
 
-  const editingPart = editing && editing.mode !== 'create' ? editing.part : undefined;
-
   return (
     <>
       <title>{`Parts · ${build.name} · Headroom`}</title>
@@ -265,88 +253,25 @@ function PartsPage({ build }: { build: Build }) {
 
       {body}
 
-      <Modal
-        open={editing !== null}
-        onClose={() => setEditing(null)}
+      <PartDialog
+        editing={editing}
+        build={build}
+        shops={shops}
         busy={createPart.isPending || updatePart.isPending}
-        title={
-          editing?.mode === 'create'
-            ? 'Add a part'
-            : editing?.mode === 'progress'
-              ? `Status and dates: ${editingPart?.name ?? ''}`
-              : `Edit ${editingPart?.name ?? 'part'}`
-        }
-        description={
-          editing?.mode === 'progress'
-            ? 'Your role may change where the part is and when; the owner edits the rest.'
-            : undefined
-        }
-      >
-        {editing && (
-          <PartForm
-            key={editingPart?.id ?? 'new'}
-            mode={editing.mode}
-            part={editingPart}
-            currency={build.currency}
-            shops={shops}
-            submitLabel={editing.mode === 'create' ? 'Add part' : 'Save changes'}
-            focusRating={editing.mode === 'edit' && editing.focusRating}
-            onSubmit={save}
-            onCancel={() => setEditing(null)}
-          />
-        )}
-        {editingPart && (
-          <div className="mt-5">
-            <AttachedPhotos
-              bare
-              buildId={build.id}
-              target={{ partId: editingPart.id }}
-              canUpload={canAddPhotosTo(role, 'part')}
-              canCaption={(photo) => canCaptionPhoto(role, me.id, photo)}
-              canDelete={capabilities(role).canDeletePhotos}
-            />
-          </div>
-        )}
-        {editingPart?.category === 'fuel-injection' && (
-          <div className="mt-5">
-            <PartBenchSheets
-              buildId={build.id}
-              partId={editingPart.id}
-              partName={editingPart.name}
-              canAdd={can(role, 'bench:write')}
-            />
-          </div>
-        )}
-      </Modal>
+        onSubmit={save}
+        onClose={() => setEditing(null)}
+      />
 
-      <ConfirmDialog
-        open={deleting !== null}
-        title={`Delete “${deleting?.name ?? ''}”?`}
-        confirmLabel="Delete part"
-        pending={deletePart.isPending}
+      <DeletePartDialog
+        part={deleting}
+        buildId={build.id}
+        deletePart={deletePart}
         onClose={() => setDeleting(null)}
-        onConfirm={() => {
-          if (!deleting) return;
-          deletePart.mutate(
-            { buildId: build.id, partId: deleting.id },
-            {
-              onSuccess: () => {
-                setNotice(`Deleted “${deleting.name}”.`);
-                setDeleting(null);
-              },
-            },
-          );
+        onDeleted={(name) => {
+          setNotice(`Deleted “${name}”.`);
+          setDeleting(null);
         }}
-      >
-        <p>It leaves the ledger and the budget. This cannot be undone.</p>
-        {deletePart.isError && (
-          <Alert tone="error" className="mt-3">
-            {isApiError(deletePart.error)
-              ? deletePart.error.message
-              : 'Could not delete it. Try again.'}
-          </Alert>
-        )}
-      </ConfirmDialog>
+      />
 
       {canImport && (
         <ImportPartsDialog

@@ -4,9 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { changeEmailInputSchema } from '../../../../shared/schemas/account';
 import type { User } from '../../../../shared/schemas/auth';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
+import { FormActions } from '../../../components/ui/form-actions';
 import { FormField, TextInput } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useChangeEmail } from '../api/change-email';
@@ -75,13 +73,13 @@ export function EmailForm({ user }: { user: User }) {
       <p className="text-sm text-muted">
         We mail a link to the new address; your address changes when you follow it.
       </p>
-      <FormError message={errors.root?.server?.message} />
-      {sent && <Alert tone="ok">{sent}</Alert>}
-      <div>
-        <Button type="submit" pending={isSubmitting}>
-          Send the link
-        </Button>
-      </div>
+      <FormActions
+        layout="start"
+        error={errors.root?.server?.message}
+        notice={sent}
+        submitLabel="Send the link"
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -4,9 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { changePasswordInputSchema } from '../../../../shared/schemas/account';
 import type { User } from '../../../../shared/schemas/auth';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
+import { FormActions } from '../../../components/ui/form-actions';
 import { FormField, TextInput } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useChangePassword } from '../api/change-password';
@@ -79,13 +77,13 @@ export function PasswordForm({ user }: { user: User }) {
       <p className="text-sm text-muted">
         Every other phone and computer signed in to your account is signed out; this one stays.
       </p>
-      <FormError message={errors.root?.server?.message} />
-      {done && <Alert tone="ok">Password changed. Every other device has been signed out.</Alert>}
-      <div>
-        <Button type="submit" pending={isSubmitting}>
-          Change password
-        </Button>
-      </div>
+      <FormActions
+        layout="start"
+        error={errors.root?.server?.message}
+        notice={done && 'Password changed. Every other device has been signed out.'}
+        submitLabel="Change password"
+        pending={isSubmitting}
+      />
     </form>
   );
 }

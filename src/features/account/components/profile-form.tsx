@@ -4,9 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { updateProfileInputSchema } from '../../../../shared/schemas/account';
 import type { User } from '../../../../shared/schemas/auth';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
+import { FormActions } from '../../../components/ui/form-actions';
 import { FormField, TextInput } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useUpdateProfile } from '../api/update-profile';
@@ -46,13 +44,13 @@ export function ProfileForm({ user }: { user: User }) {
       >
         {(c) => <TextInput {...c} {...register('displayName')} autoComplete="name" />}
       </FormField>
-      <FormError message={errors.root?.server?.message} />
-      {saved && <Alert tone="ok">Name saved.</Alert>}
-      <div>
-        <Button type="submit" pending={isSubmitting}>
-          Save name
-        </Button>
-      </div>
+      <FormActions
+        layout="start"
+        error={errors.root?.server?.message}
+        notice={saved && 'Name saved.'}
+        submitLabel="Save name"
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -1,8 +1,7 @@
-import { ChevronRight } from 'lucide-react';
 import type { BenchFigure, BenchWorkingInput } from '../../../../shared/schemas/bench';
 import { benchUnitLabels, type BenchUnit } from '../../../../shared/bench';
 import { formatNumber } from '../../../../shared/format';
-import { cn } from '../../../components/ui/cn';
+import { ShowWorking, WorkingFigure } from '../../../components/ui/working';
 
 const fromLabels: Record<BenchWorkingInput['from'], string> = {
   sheet: 'from the sheet',
@@ -22,57 +21,7 @@ export function figureText(value: number, unit: string, digits = 4): string {
   return `${formatNumber(value, digits)} ${unitWords(unit)}`;
 }
 
-function FigureWorking({ figure }: { figure: BenchFigure }) {
-  const { formula, inputs, steps, rule } = figure.working;
-  return (
-    <div className="flex flex-col gap-2">
-      <div>
-        <p className="font-semibold text-ink">{figure.label}</p>
-        <p className="font-mono text-sm break-words text-ink-2">{formula}</p>
-        <p className="font-semibold tabular-nums text-ink">
-          = {figureText(figure.value, figure.unit)}
-        </p>
-      </div>
-      {inputs.length > 0 && (
-        <div>
-          <p className="text-xs font-semibold tracking-wide text-muted uppercase">Inputs</p>
-          <ul className="flex flex-col gap-0.5">
-            {inputs.map((input, i) => (
-              <li key={`${input.name}-${i}`} className="flex flex-wrap gap-x-2">
-                <span className="text-ink-2">{input.name}</span>
-                <span className="font-semibold tabular-nums">
-                  {figureText(input.value, input.unit)}
-                </span>
-                <span className="text-sm text-muted">({fromLabels[input.from]})</span>
-              </li>
-            ))}
-          </ul>
-        </div>
-      )}
-      {steps.length > 0 && (
-        <div>
-          <p className="text-xs font-semibold tracking-wide text-muted uppercase">Steps</p>
-          <ol className="flex list-decimal flex-col gap-0.5 pl-5 tabular-nums">
-            {steps.map((step, i) => (
-              <li key={i} className="break-words text-ink-2">
-                {step.text}
-              </li>
-            ))}
-          </ol>
-        </div>
-      )}
-      <div>
-        <p className="text-xs font-semibold tracking-wide text-muted uppercase">
-          Rule ({rule.status})
-        </p>
-        <p className="text-ink-2">{rule.wording}</p>
-        <p className="text-sm text-muted">Source: {rule.source}</p>
-      </div>
-    </div>
-  );
-}
-
-/** "Show the working" for bench figures, on a native <details> so it opens by keyboard. */
+/** "Show the working" for bench figures: each with its inputs, steps and the rule it was judged by. */
 export function BenchWorking({
   figures,
   label,
@@ -84,17 +33,26 @@ export function BenchWorking({
   className?: string;
 }) {
   return (
-    <details className={cn('group text-[15px]', className)}>
-      <summary className="inline-flex min-h-11 cursor-pointer list-none items-center gap-1 rounded font-semibold text-accent-700 hover:underline [&::-webkit-details-marker]:hidden">
-        <ChevronRight aria-hidden className="size-4 transition-transform group-open:rotate-90" />
-        Show the working
-        {label && <span className="sr-only">: {label}</span>}
-      </summary>
-      <div className="mt-1 flex flex-col gap-3 divide-y divide-rule rounded-md border border-rule bg-paper/60 px-3 py-3 [&>*+*]:pt-3">
-        {figures.map((f, i) => (
-          <FigureWorking key={`${f.label}-${i}`} figure={f} />
-        ))}
-      </div>
-    </details>
+    <ShowWorking label={label} className={className}>
+      {figures.map((figure, i) => {
+        const { formula, inputs, steps, rule } = figure.working;
+        return (
+          <WorkingFigure
+            key={`${figure.label}-${i}`}
+            title={figure.label}
+            formula={formula}
+            value={figureText(figure.value, figure.unit)}
+            inputs={inputs.map((input) => ({
+              name: input.name,
+              value: figureText(input.value, input.unit),
+              from: fromLabels[input.from],
+            }))}
+            steps={steps.map((step) => step.text)}
+            numbered
+            rule={{ heading: `Rule (${rule.status})`, wording: rule.wording, source: rule.source }}
+          />
+        );
+      })}
+    </ShowWorking>
   );
 }

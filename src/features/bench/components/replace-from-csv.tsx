@@ -3,7 +3,8 @@ import { FileUp } from 'lucide-react';
 import { Alert } from '../../../components/ui/alert';
 import { cn } from '../../../components/ui/cn';
 import { Spinner } from '../../../components/ui/spinner';
-import { BenchImportError, useImportBenchCsv } from '../api/import-bench-csv';
+import { UploadError } from '../../../lib/upload';
+import { useImportBenchCsv } from '../api/import-bench-csv';
 import type { BenchImportRowError } from '../../../../shared/schemas/bench';
 
 /**
@@ -32,7 +33,7 @@ export function ReplaceFromCsv({ buildId, sheetId }: { buildId: string; sheetId:
         tone: 'error',
         text: e instanceof Error ? e.message : 'Could not read the file.',
       });
-      if (e instanceof BenchImportError) {
+      if (e instanceof UploadError) {
         setRows(e.rows);
         if (e.fields?.file) setMessage({ tone: 'error', text: `${e.message} ${e.fields.file}.` });
       }

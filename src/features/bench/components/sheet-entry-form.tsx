@@ -20,11 +20,12 @@ import {
   type InjectorFlag,
 } from '../../../../shared/schemas/bench';
 import type { Part } from '../../../../shared/schemas/parts';
+import { FormActions } from '../../../components/ui/form-actions';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../components/ui/cn';
-import { FormError } from '../../../components/ui/form-error';
 import { FormField, SelectInput, TextArea, TextInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
 import { isApiError } from '../../../lib/api-client';
 import {
   newPointForm,
@@ -244,13 +245,7 @@ export function SheetEntryForm({
           <FormField label="Fluid temperature" optional error={err('fluidTemperature.value')}>
             {(c) => (
               <div className="flex gap-2">
-                <TextInput
-                  {...c}
-                  inputMode="decimal"
-                  autoComplete="off"
-                  className="tabular-nums"
-                  {...register('fluidTemperature.value')}
-                />
+                <NumberInput {...c} {...register('fluidTemperature.value')} />
                 <SelectInput
                   aria-label="Temperature unit"
                   className="w-24! shrink-0"
@@ -495,11 +490,9 @@ export function SheetEntryForm({
                               </option>
                             ))}
                           </SelectInput>
-                          <TextInput
+                          <NumberInput
                             {...c}
-                            inputMode="decimal"
-                            autoComplete="off"
-                            className="w-24! shrink-0 tabular-nums"
+                            className="w-24! shrink-0"
                             {...register(`points.${i}.tolerance.value`)}
                           />
                         </div>
@@ -511,27 +504,11 @@ export function SheetEntryForm({
                         optional
                         error={err(`points.${i}.returnLimit`)}
                       >
-                        {(c) => (
-                          <TextInput
-                            {...c}
-                            inputMode="decimal"
-                            autoComplete="off"
-                            className="tabular-nums"
-                            {...register(`points.${i}.returnLimit`)}
-                          />
-                        )}
+                        {(c) => <NumberInput {...c} {...register(`points.${i}.returnLimit`)} />}
                       </FormField>
                     ) : (
                       <FormField label="Maker’s figure" optional error={err(`points.${i}.nominal`)}>
-                        {(c) => (
-                          <TextInput
-                            {...c}
-                            inputMode="decimal"
-                            autoComplete="off"
-                            className="tabular-nums"
-                            {...register(`points.${i}.nominal`)}
-                          />
-                        )}
+                        {(c) => <NumberInput {...c} {...register(`points.${i}.nominal`)} />}
                       </FormField>
                     )}
                     {p?.unit === 'ml-per-min' && (
@@ -539,15 +516,7 @@ export function SheetEntryForm({
                         label="Strokes per minute"
                         error={err(`points.${i}.strokesPerMin`)}
                       >
-                        {(c) => (
-                          <TextInput
-                            {...c}
-                            inputMode="decimal"
-                            autoComplete="off"
-                            className="tabular-nums"
-                            {...register(`points.${i}.strokesPerMin`)}
-                          />
-                        )}
+                        {(c) => <NumberInput {...c} {...register(`points.${i}.strokesPerMin`)} />}
                       </FormField>
                     )}
                     <div className="sm:col-span-2">
@@ -594,15 +563,13 @@ export function SheetEntryForm({
         </div>
       </section>
 
-      <FormError message={errors.root?.server?.message} />
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" pending={isSubmitting}>
-          {submitLabel}
-        </Button>
-        <Button variant="secondary" onClick={onCancel} disabled={isSubmitting}>
-          Cancel
-        </Button>
-      </div>
+      <FormActions
+        layout="start"
+        error={errors.root?.server?.message}
+        onCancel={onCancel}
+        submitLabel={submitLabel}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -5,6 +5,7 @@
  * API's (`points.2.values.4`), so server errors land on the same cells.
  */
 import type { FieldErrors, Resolver } from 'react-hook-form';
+import { readNumber } from '../../../../shared/numbers';
 import {
   defaultTestPoints,
   defaultToleranceFor,
@@ -115,15 +116,12 @@ export function sheetFormFrom(sheet: BenchSheet, cylinders: number): SheetForm {
 
 type Issues = Record<string, string>;
 
-/** A figure of the point's settings: empty is "none", a decimal comma is read as a point. */
+/** A figure of the point's settings, read by the one number reader: empty is "none". */
 function figure(raw: string, path: string, issues: Issues, signed = false): number | null {
-  const t = raw.trim().replace(/^([+-]?\d+),(\d+)$/, '$1.$2');
-  if (t === '') return null;
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)$/.test(t) || (!signed && t.startsWith('-'))) {
-    issues[path] = signed ? 'Enter a number' : 'Enter a number of zero or more';
-    return null;
-  }
-  return Number(t);
+  const reading = readNumber(raw);
+  if (reading.ok && (signed || reading.value === null || reading.value >= 0)) return reading.value;
+  issues[path] = signed ? 'Enter a number' : 'Enter a number of zero or more';
+  return null;
 }
 
 /**

@@ -1,4 +1,4 @@
-import type { InputHTMLAttributes, ReactNode, Ref } from 'react';
+import type { ReactNode } from 'react';
 import { Controller, useForm, type DefaultValues, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
@@ -11,16 +11,11 @@ import {
   type Build,
 } from '../../../../shared/schemas/builds';
 import { currencies } from '../../../../shared/schemas/common';
-import { ButtonLink, Button } from '../../../components/ui/button';
-import {
-  FieldGroup,
-  FormField,
-  SelectInput,
-  TextInput,
-  type ControlProps,
-} from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
+import { parseNumber } from '../../../../shared/numbers';
+import { FormActions } from '../../../components/ui/form-actions';
+import { FieldGroup, FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
 import { MoneyInput } from '../../../components/ui/money-input';
+import { NumberInput } from '../../../components/ui/number-input';
 import { applyServerErrors } from '../../../lib/form-errors';
 
 // Create and edit validate with the same schema the server uses for create: an edit sends
@@ -30,14 +25,6 @@ export type BuildFormInput = z.input<typeof schema>;
 export type BuildFormValues = z.output<typeof schema>;
 
 const fieldNames = Object.keys(schema.shape) as Path<BuildFormInput>[];
-
-/** Text boxes give strings; the schema wants numbers. Empty means "not given" (null). */
-function toNumberOrNull(value: unknown): number | null {
-  if (value === null || value === undefined) return null;
-  if (typeof value === 'number') return value;
-  const text = String(value).trim();
-  return text === '' ? null : Number(text);
-}
 
 function toDateOrNull(value: unknown): string | null {
   return value === null || value === undefined || value === '' ? null : String(value);
@@ -84,26 +71,6 @@ export function buildToFormValues(build: Build): DefaultValues<BuildFormInput> {
   };
 }
 
-/** A text box with its unit shown inside on the right; the unit is also in the hint for readers. */
-function UnitInput({
-  unit,
-  ...props
-}: ControlProps & { unit: string } & InputHTMLAttributes<HTMLInputElement> & {
-    ref?: Ref<HTMLInputElement>;
-  }) {
-  return (
-    <div className="relative">
-      <TextInput {...props} className="pr-16 tabular-nums" />
-      <span
-        aria-hidden
-        className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm font-semibold text-muted"
-      >
-        {unit}
-      </span>
-    </div>
-  );
-}
-
 export function BuildForm({
   defaultValues,
   submitLabel,
@@ -143,7 +110,7 @@ export function BuildForm({
     }
   });
 
-  const numeric = { setValueAs: toNumberOrNull };
+  const numeric = { setValueAs: parseNumber };
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-5">
@@ -162,15 +129,7 @@ export function BuildForm({
 
       <FieldGroup legend="Truck">
         <FormField label="Model year" optional error={errors.vehicleYear?.message}>
-          {(c) => (
-            <TextInput
-              {...c}
-              {...register('vehicleYear', numeric)}
-              inputMode="numeric"
-              autoComplete="off"
-              className="tabular-nums"
-            />
-          )}
+          {(c) => <NumberInput {...c} {...register('vehicleYear', numeric)} integer />}
         </FormField>
         <FormField
           label="Vehicle"
@@ -191,26 +150,10 @@ export function BuildForm({
         </FormField>
         <div className="grid grid-cols-2 gap-4 sm:col-span-2 sm:grid-cols-3">
           <FormField label="Displacement" optional error={errors.displacementLiters?.message}>
-            {(c) => (
-              <UnitInput
-                {...c}
-                {...register('displacementLiters', numeric)}
-                unit="L"
-                inputMode="decimal"
-                autoComplete="off"
-              />
-            )}
+            {(c) => <NumberInput {...c} {...register('displacementLiters', numeric)} unit="L" />}
           </FormField>
           <FormField label="Cylinders" error={errors.cylinders?.message}>
-            {(c) => (
-              <TextInput
-                {...c}
-                {...register('cylinders', numeric)}
-                inputMode="numeric"
-                autoComplete="off"
-                className="tabular-nums"
-              />
-            )}
+            {(c) => <NumberInput {...c} {...register('cylinders', numeric)} integer />}
           </FormField>
           <FormField
             label="Aspiration"
@@ -245,15 +188,7 @@ export function BuildForm({
       >
         <div className="grid grid-cols-2 gap-4 sm:col-span-2">
           <FormField label="Stock power" optional error={errors.stockPowerHp?.message}>
-            {(c) => (
-              <UnitInput
-                {...c}
-                {...register('stockPowerHp', numeric)}
-                unit="hp"
-                inputMode="decimal"
-                autoComplete="off"
-              />
-            )}
+            {(c) => <NumberInput {...c} {...register('stockPowerHp', numeric)} unit="hp" />}
           </FormField>
           <FormField label="Stock basis" error={errors.stockPowerBasis?.message}>
             {(c) => (
@@ -269,15 +204,7 @@ export function BuildForm({
         </div>
         <div className="grid grid-cols-2 gap-4 sm:col-span-2">
           <FormField label="Target power" error={errors.targetPowerHp?.message}>
-            {(c) => (
-              <UnitInput
-                {...c}
-                {...register('targetPowerHp', numeric)}
-                unit="hp"
-                inputMode="decimal"
-                autoComplete="off"
-              />
-            )}
+            {(c) => <NumberInput {...c} {...register('targetPowerHp', numeric)} unit="hp" />}
           </FormField>
           <FormField label="Target basis" error={errors.targetPowerBasis?.message}>
             {(c) => (
@@ -292,15 +219,7 @@ export function BuildForm({
           </FormField>
         </div>
         <FormField label="Target torque" optional error={errors.targetTorqueLbft?.message}>
-          {(c) => (
-            <UnitInput
-              {...c}
-              {...register('targetTorqueLbft', numeric)}
-              unit="lbf·ft"
-              inputMode="decimal"
-              autoComplete="off"
-            />
-          )}
+          {(c) => <NumberInput {...c} {...register('targetTorqueLbft', numeric)} unit="lbf·ft" />}
         </FormField>
       </FieldGroup>
 
@@ -367,16 +286,12 @@ export function BuildForm({
         </FormField>
       </FieldGroup>
 
-      <FormError message={errors.root?.server?.message} />
-
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <ButtonLink to={cancelHref} variant="secondary">
-          Cancel
-        </ButtonLink>
-        <Button type="submit" pending={isSubmitting}>
-          {submitLabel}
-        </Button>
-      </div>
+      <FormActions
+        error={errors.root?.server?.message}
+        cancelHref={cancelHref}
+        submitLabel={submitLabel}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

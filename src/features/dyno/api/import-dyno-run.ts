@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { DynoRun, ImportDynoRunFields } from '../../../../shared/schemas/dyno';
 import { dynoFileField } from '../../../../shared/schemas/dyno';
 import { invalidateDyno } from './keys';
-import { sendFile } from './send-file';
+import { uploadFile } from '../../../lib/upload';
 
 export type ImportDynoRunResult = { dryRun: false; run: DynoRun; reordered: boolean };
 
@@ -25,7 +25,7 @@ export function importDynoRun({
   const body = new FormData();
   body.append('run', JSON.stringify(fields));
   body.append(dynoFileField, file, file.name);
-  return sendFile(
+  return uploadFile(
     'POST',
     `/api/builds/${encodeURIComponent(buildId)}/dyno-sessions/${encodeURIComponent(sessionId)}/runs/import`,
     body,

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { dynoFileField, type DynoRun } from '../../../../shared/schemas/dyno';
 import { invalidateDyno } from './keys';
-import { sendFile } from './send-file';
+import { uploadFile } from '../../../lib/upload';
 
 /** Replaces a run's curve with a CSV's; the run takes the file's units (typed figures are converted). */
 export function replaceDynoCurve({
@@ -15,7 +15,7 @@ export function replaceDynoCurve({
 }): Promise<{ dryRun: false; run: DynoRun; reordered: boolean }> {
   const body = new FormData();
   body.append(dynoFileField, file, file.name);
-  return sendFile(
+  return uploadFile(
     'PUT',
     `/api/builds/${encodeURIComponent(buildId)}/dyno-runs/${encodeURIComponent(runId)}/curve.csv`,
     body,

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { dynoFileField, type DynoRun } from '../../../../shared/schemas/dyno';
 import { invalidateDyno } from './keys';
-import { sendFile } from './send-file';
+import { uploadFile } from '../../../lib/upload';
 
 /** Puts the dyno's own file or a photo of its printout on a run (it replaces any before it). */
 export async function uploadDynoAttachment({
@@ -15,7 +15,7 @@ export async function uploadDynoAttachment({
 }): Promise<DynoRun> {
   const body = new FormData();
   body.append(dynoFileField, file, file.name);
-  const data = await sendFile<{ run: DynoRun }>(
+  const data = await uploadFile<{ run: DynoRun }>(
     'PUT',
     `/api/builds/${encodeURIComponent(buildId)}/dyno-runs/${encodeURIComponent(runId)}/attachment`,
     body,

@@ -12,11 +12,14 @@ import {
 } from '../../../../shared/schemas/dyno';
 import { standardShortLabels } from '../../../../shared/dyno/vocabulary';
 import { formatNumber } from '../../../../shared/format';
+import { parseNumber } from '../../../../shared/numbers';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
-import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
+import { FormField, SelectInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
 import { factorText } from '../format';
-import { ShowWorking, WorkingBody } from './working';
+import { ShowWorking } from '../../../components/ui/working';
+import { WorkingBody } from './working';
 
 /**
  * The standard the figures are shown in. For R85, the engine's aspiration and the engine
@@ -35,7 +38,7 @@ export function StandardPicker({
   const [fmText, setFmText] = useState(
     choice.engineFactor != null ? String(choice.engineFactor) : '',
   );
-  const fm = fmText.trim() === '' ? null : Number(fmText);
+  const fm = parseNumber(fmText);
   const fmInvalid = fm !== null && !(fm >= engineFactorLimits.min && fm <= engineFactorLimits.max);
   return (
     <div className="flex flex-col gap-3">
@@ -90,14 +93,11 @@ export function StandardPicker({
             }
           >
             {(c) => (
-              <TextInput
+              <NumberInput
                 {...c}
-                inputMode="decimal"
                 value={fmText}
-                onChange={(e) => {
-                  setFmText(e.target.value);
-                  const text = e.target.value.trim();
-                  const n = text === '' ? null : Number(text);
+                onChange={(e) => setFmText(e.target.value)}
+                onNumber={(n) => {
                   if (n === null) onChange({ ...choice, engineFactor: undefined });
                   else if (n >= engineFactorLimits.min && n <= engineFactorLimits.max) {
                     onChange({ ...choice, engineFactor: n });

@@ -13,7 +13,8 @@ import { cn } from '../../../components/ui/cn';
 import { getDynoCurveCsvHref } from '../api/export-dyno-curve';
 import { factorText, powerText, rpmText, torqueText, weatherText } from '../format';
 import { EngineFactorLine } from './correction-panel';
-import { ShowWorking, WorkingBody } from './working';
+import { ShowWorking } from '../../../components/ui/working';
+import { WorkingBody } from './working';
 
 export type RunActions = {
   onEdit?: () => void;

@@ -3,7 +3,6 @@ import {
   boostUnitLabels,
   boostUnits,
   createDynoRunInputSchema,
-  defaultRunUnits,
   dynoPowerUnitLabels,
   dynoPowerUnits,
   dynoTemperatureUnitLabels,
@@ -12,106 +11,21 @@ import {
   dynoTorqueUnits,
   mixtureKindLabels,
   mixtureKinds,
-  runStatusLabels,
-  runStatuses,
-  type CreateDynoRunInput,
   type DynoRun,
   type DynoRunInput,
-  type RunStatus,
-  type RunUnits,
 } from '../../../../shared/schemas/dyno';
-import { Button } from '../../../components/ui/button';
-import {
-  FieldGroup,
-  FormField,
-  SelectInput,
-  TextArea,
-  TextInput,
-} from '../../../components/ui/form-field';
+import { FormActions } from '../../../components/ui/form-actions';
+import { FieldGroup, FormField, SelectInput, TextArea } from '../../../components/ui/form-field';
+import { RunBasicsFields } from './run-basics-fields';
+import { NumberInput } from '../../../components/ui/number-input';
 import { FormError } from '../../../components/ui/form-error';
 import { Modal } from '../../../components/ui/modal';
 import { useCreateDynoRun } from '../api/create-dyno-run';
 import { useUpdateDynoRun } from '../api/update-dyno-run';
-import {
-  applyFieldErrors,
-  num,
-  numText,
-  schemaResolver,
-  weatherFromForm,
-  weatherToForm,
-  type WeatherFormValues,
-} from '../form';
+import { applyFieldErrors, schemaResolver } from '../form';
 import { WeatherFields } from './weather-fields';
 
-type RunFormValues = WeatherFormValues &
-  RunUnits & {
-    status: RunStatus;
-    abortReason: string;
-    gear: string;
-    tuneRevision: string;
-    notes: string;
-    peakPower: string;
-    peakPowerRpm: string;
-    peakTorque: string;
-    peakTorqueRpm: string;
-    boost: string;
-    egt: string;
-    mixture: string;
-    ownWeather: boolean;
-  };
-
-function toInput(v: RunFormValues, run: DynoRun | undefined): CreateDynoRunInput {
-  const curve = run?.curve.length ? run.curve : null;
-  // A run with a curve keeps its units (their boxes are disabled, so the form may not hold them).
-  const unit = <K extends keyof RunUnits>(key: K): RunUnits[K] =>
-    (curve && run ? run[key] : undefined) ?? v[key];
-  return {
-    status: v.status,
-    abortReason: v.status === 'aborted' ? v.abortReason : null,
-    gear: v.gear,
-    tuneRevision: v.tuneRevision,
-    notes: v.notes,
-    powerUnit: unit('powerUnit'),
-    torqueUnit: unit('torqueUnit'),
-    boostUnit: unit('boostUnit'),
-    egtUnit: unit('egtUnit'),
-    mixtureKind: unit('mixtureKind'),
-    peakPower: num(v.peakPower),
-    peakPowerRpm: num(v.peakPowerRpm),
-    peakTorque: num(v.peakTorque),
-    peakTorqueRpm: num(v.peakTorqueRpm),
-    boost: num(v.boost),
-    egt: num(v.egt),
-    mixture: num(v.mixture),
-    weather: v.ownWeather ? weatherFromForm(v) : null,
-    // The stored curve is checked with the run (its boost, EGT and mixture follow the units).
-    curve,
-  };
-}
-
-function defaults(run?: DynoRun): RunFormValues {
-  return {
-    status: run?.status ?? 'complete',
-    abortReason: run?.abortReason ?? '',
-    gear: run?.gear ?? '',
-    tuneRevision: run?.tuneRevision ?? '',
-    notes: run?.notes ?? '',
-    powerUnit: run?.powerUnit ?? defaultRunUnits.powerUnit,
-    torqueUnit: run?.torqueUnit ?? defaultRunUnits.torqueUnit,
-    boostUnit: run?.boostUnit ?? defaultRunUnits.boostUnit,
-    egtUnit: run?.egtUnit ?? defaultRunUnits.egtUnit,
-    mixtureKind: run?.mixtureKind ?? defaultRunUnits.mixtureKind,
-    peakPower: numText(run?.peakPower),
-    peakPowerRpm: numText(run?.peakPowerRpm),
-    peakTorque: numText(run?.peakTorque),
-    peakTorqueRpm: numText(run?.peakTorqueRpm),
-    boost: numText(run?.boost),
-    egt: numText(run?.egt),
-    mixture: numText(run?.mixture),
-    ownWeather: Boolean(run?.weather),
-    ...weatherToForm(run?.weather ?? null),
-  };
-}
+import { defaults, toInput, type RunFormValues } from './run-form-values';
 
 /** A run typed in from the dyno's screen or printout: its peaks, and whatever else was logged. */
 export function RunFormDialog({
@@ -229,7 +143,7 @@ function RunForm({
     hint?: string,
   ) => (
     <FormField label={label} optional hint={hint} error={errors[name]?.message}>
-      {(c) => <TextInput {...c} inputMode="decimal" {...register(name)} />}
+      {(c) => <NumberInput {...c} {...register(name)} />}
     </FormField>
   );
 
@@ -237,28 +151,16 @@ function RunForm({
     <form onSubmit={submit} noValidate className="flex flex-col gap-5">
       <FormError message={errors.root?.server?.message ?? errors.root?.message} />
       <FieldGroup legend="The pull">
-        <FormField label="Status" error={errors.status?.message}>
-          {(c) => (
-            <SelectInput {...c} {...register('status')}>
-              {runStatuses.map((s) => (
-                <option key={s} value={s}>
-                  {runStatusLabels[s]}
-                </option>
-              ))}
-            </SelectInput>
-          )}
-        </FormField>
-        {status === 'aborted' && (
-          <FormField label="Why it was stopped" error={errors.abortReason?.message}>
-            {(c) => <TextInput {...c} {...register('abortReason')} />}
-          </FormField>
-        )}
-        <FormField label="Gear" optional error={errors.gear?.message}>
-          {(c) => <TextInput {...c} {...register('gear')} />}
-        </FormField>
-        <FormField label="Tune revision" optional error={errors.tuneRevision?.message}>
-          {(c) => <TextInput {...c} {...register('tuneRevision')} />}
-        </FormField>
+        <RunBasicsFields
+          status={status}
+          bind={(name) => register(name)}
+          errors={{
+            status: errors.status?.message,
+            abortReason: errors.abortReason?.message,
+            gear: errors.gear?.message,
+            tuneRevision: errors.tuneRevision?.message,
+          }}
+        />
       </FieldGroup>
       <FieldGroup
         legend="Peaks, as measured"
@@ -327,14 +229,11 @@ function RunForm({
           </div>
         )}
       </FieldGroup>
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <Button variant="secondary" onClick={onCancel} disabled={isSubmitting}>
-          Cancel
-        </Button>
-        <Button type="submit" pending={isSubmitting}>
-          {run ? 'Save changes' : 'Add run'}
-        </Button>
-      </div>
+      <FormActions
+        onCancel={onCancel}
+        submitLabel={run ? 'Save changes' : 'Add run'}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -8,7 +8,7 @@ import {
   type DynoKind,
   type DynoSession,
 } from '../../../../shared/schemas/dyno';
-import { Button } from '../../../components/ui/button';
+import { FormActions } from '../../../components/ui/form-actions';
 import {
   FieldGroup,
   FormField,
@@ -205,14 +205,11 @@ function SessionForm({
           <WeatherFields register={register} errors={errors} humidityKind={watch('humidityKind')} />
         </div>
       </FieldGroup>
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <Button variant="secondary" onClick={onCancel} disabled={isSubmitting}>
-          Cancel
-        </Button>
-        <Button type="submit" pending={isSubmitting}>
-          {session ? 'Save changes' : 'Add session'}
-        </Button>
-      </div>
+      <FormActions
+        onCancel={onCancel}
+        submitLabel={session ? 'Save changes' : 'Add session'}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

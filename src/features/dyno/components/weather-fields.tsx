@@ -5,7 +5,8 @@ import {
   dynoTemperatureUnitLabels,
   dynoTemperatureUnits,
 } from '../../../../shared/schemas/dyno';
-import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
+import { FormField, SelectInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
 import type { WeatherFormValues } from '../form';
 
 /**
@@ -28,7 +29,7 @@ export function WeatherFields<V extends WeatherFormValues>({
     <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
       <div className="grid grid-cols-[1fr_6rem] items-start gap-2">
         <FormField label="Air temperature (dry bulb)" error={err('temperature')}>
-          {(c) => <TextInput {...c} inputMode="decimal" {...reg('temperature')} />}
+          {(c) => <NumberInput {...c} {...reg('temperature')} />}
         </FormField>
         <FormField label="Temperature unit">
           {(c) => (
@@ -48,7 +49,7 @@ export function WeatherFields<V extends WeatherFormValues>({
           hint="As read at the dyno, not the sea-level figure a forecast gives"
           error={err('pressure')}
         >
-          {(c) => <TextInput {...c} inputMode="decimal" {...reg('pressure')} />}
+          {(c) => <NumberInput {...c} {...reg('pressure')} />}
         </FormField>
         <FormField label="Pressure unit">
           {(c) => (
@@ -77,7 +78,7 @@ export function WeatherFields<V extends WeatherFormValues>({
           optional
           error={err('humidity')}
         >
-          {(c) => <TextInput {...c} inputMode="decimal" {...reg('humidity')} />}
+          {(c) => <NumberInput {...c} {...reg('humidity')} />}
         </FormField>
       )}
     </div>

@@ -1,4 +1,4 @@
-import { useState, type InputHTMLAttributes, type Ref } from 'react';
+import { useState } from 'react';
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
@@ -19,14 +19,11 @@ import {
 } from '../../../../shared/schemas/estimate';
 import { convertBsfc } from '../../../../shared/units/convert';
 import { formatNumber } from '../../../../shared/format';
+import { parseNumber } from '../../../../shared/numbers';
 import { Button } from '../../../components/ui/button';
 import { FormError } from '../../../components/ui/form-error';
-import {
-  FormField,
-  SelectInput,
-  TextInput,
-  type ControlProps,
-} from '../../../components/ui/form-field';
+import { FormField } from '../../../components/ui/form-field';
+import { NumberInput, UnitInput } from '../../../components/ui/number-input';
 import { PageSpinner } from '../../../components/ui/spinner';
 import { ErrorState } from '../../../components/ui/states';
 import { applyServerErrors } from '../../../lib/form-errors';
@@ -57,11 +54,7 @@ const simpleFields = [
 ] as const;
 
 /** An empty or unreadable box is NaN, so the schema says "Enter the …" instead of using a default. */
-function toNumber(value: unknown): number {
-  if (typeof value === 'number') return value;
-  const text = String(value ?? '').trim();
-  return text === '' ? Number.NaN : Number(text);
-}
+const toNumber = (value: unknown): number => parseNumber(value) ?? Number.NaN;
 
 function roundBsfc(value: number, unit: BsfcUnit): number {
   return unit === 'g-per-kwh' ? Math.round(value * 10) / 10 : Math.round(value * 1000) / 1000;
@@ -75,24 +68,6 @@ function Source({ text }: { text: string }) {
       </summary>
       <p className="mt-1">{text}</p>
     </details>
-  );
-}
-
-function SuffixInput({
-  suffix,
-  ...props
-}: ControlProps &
-  InputHTMLAttributes<HTMLInputElement> & { suffix: string; ref?: Ref<HTMLInputElement> }) {
-  return (
-    <div className="relative">
-      <TextInput {...props} inputMode="decimal" className="pr-16 tabular-nums" />
-      <span
-        aria-hidden
-        className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm font-semibold text-muted"
-      >
-        {suffix}
-      </span>
-    </div>
   );
 }
 
@@ -168,8 +143,6 @@ function AssumptionsForm({
     register,
     handleSubmit,
     watch,
-    getValues,
-    setValue,
     setError,
     formState: { errors, isSubmitting, isDirty },
   } = useForm<FormInput, unknown, FormOutput>({
@@ -224,41 +197,16 @@ function AssumptionsForm({
             }
           >
             {(control) => (
-              <div className="flex gap-2">
-                <div className="min-w-0 flex-1">
-                  <TextInput
-                    {...control}
-                    {...register('bsfc', numeric)}
-                    inputMode="decimal"
-                    className="tabular-nums"
-                  />
-                </div>
-                <div className="w-36 shrink-0">
-                  <SelectInput
-                    aria-label="Unit of brake specific fuel consumption"
-                    {...register('bsfcUnit', {
-                      onChange: (e: { target: { value: BsfcUnit } }) => {
-                        // Same fuel, other unit: convert the figure in the box rather than reinterpret it.
-                        const to = e.target.value;
-                        const from: BsfcUnit = to === 'g-per-kwh' ? 'lb-per-hp-h' : 'g-per-kwh';
-                        const value = toNumber(getValues('bsfc'));
-                        if (Number.isFinite(value)) {
-                          setValue('bsfc', roundBsfc(convertBsfc(value, from, to), to), {
-                            shouldDirty: true,
-                            shouldValidate: true,
-                          });
-                        }
-                      },
-                    })}
-                  >
-                    {bsfcUnits.map((u) => (
-                      <option key={u} value={u}>
-                        {bsfcUnitLabels[u]}
-                      </option>
-                    ))}
-                  </SelectInput>
-                </div>
-              </div>
+              <UnitInput
+                {...control}
+                {...register('bsfc', numeric)}
+                unitLabel="Unit of brake specific fuel consumption"
+                units={bsfcUnits}
+                unitLabels={bsfcUnitLabels}
+                unitSelect={register('bsfcUnit')}
+                // Same fuel, other unit: convert the figure in the box rather than reinterpret it.
+                convert={(value, from, to) => roundBsfc(convertBsfc(value, from, to), to)}
+              />
             )}
           </FormField>
           <Source text={bsfcSpec.source} />
@@ -273,7 +221,7 @@ function AssumptionsForm({
                 hint={`Default ${formatFigure(spec.default, spec.unit)}. Between ${formatNumber(spec.min, 3)} and ${formatNumber(spec.max, 3)}.`}
               >
                 {(control) => (
-                  <SuffixInput {...control} suffix={suffix} {...register(name, numeric)} />
+                  <NumberInput {...control} unit={suffix} {...register(name, numeric)} />
                 )}
               </FormField>
               <Source text={spec.source} />

@@ -3,8 +3,9 @@ import { Eye, Save, Undo2 } from 'lucide-react';
 import { powerBasisLabels } from '../../../../shared/schemas/builds';
 import type { EstimateResult } from '../../../../shared/schemas/estimate';
 import { formatNumber } from '../../../../shared/format';
+import { parseNumber } from '../../../../shared/numbers';
 import { Button } from '../../../components/ui/button';
-import { TextInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
 import { formatFigure } from '../format';
 import { whatIfRange } from '../what-if';
 
@@ -43,9 +44,9 @@ export function TargetPanel({
   // Keep the box in step when the slider (or "back to saved") moves the value.
   if (textFor !== current) {
     setTextFor(current);
-    if (Number(text) !== current) setText(String(current));
+    if (parseNumber(text) !== current) setText(String(current));
   }
-  const typed = text.trim() === '' ? Number.NaN : Number(text);
+  const typed = parseNumber(text) ?? Number.NaN;
   const typedInvalid = !(typed > 0 && typed <= 5000);
 
   const set = (value: number) => onPreview(value === target.powerHp ? null : value);
@@ -91,17 +92,14 @@ export function TargetPanel({
           />
           <div className="flex items-center gap-2">
             <div className="w-28 shrink-0">
-              <TextInput
+              <NumberInput
                 id={`${id}-number`}
                 aria-label={`What-if target in ${basis}`}
                 aria-invalid={typedInvalid || undefined}
-                inputMode="decimal"
-                className="tabular-nums"
                 value={text}
-                onChange={(e) => {
-                  setText(e.target.value);
-                  const v = e.target.value.trim() === '' ? Number.NaN : Number(e.target.value);
-                  if (v > 0 && v <= 5000) {
+                onChange={(e) => setText(e.target.value)}
+                onNumber={(v) => {
+                  if (v !== null && v > 0 && v <= 5000) {
                     setTextFor(v);
                     set(v);
                   }

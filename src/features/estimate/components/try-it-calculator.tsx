@@ -2,126 +2,13 @@ import { useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { CircleCheck, Info } from 'lucide-react';
 import { estimate } from '../../../../shared/estimate';
 import { unitLabels } from '../../../../shared/units/labels';
-import {
-  estimateRequestSchema,
-  type EstimateRequestInput,
-  type EstimateResult,
-} from '../../../../shared/schemas/estimate';
-import {
-  partCategoryLabels,
-  type PartCategory,
-  type RatingUnit,
-} from '../../../../shared/schemas/parts';
-import { paths } from '../../../config/paths';
-import { ButtonLink } from '../../../components/ui/button';
+import { estimateRequestSchema, type EstimateResult } from '../../../../shared/schemas/estimate';
 import { cn } from '../../../components/ui/cn';
-import { SelectInput, TextInput } from '../../../components/ui/form-field';
+import { SelectInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
 import { useStatelessEstimate } from '../api/post-estimate';
-import {
-  capitalise,
-  categoryPhrase,
-  formatFigure,
-  formatHeadroom,
-  formatShortfall,
-} from '../format';
-import { StatusBadge } from './status-badge';
-
-type PartKey = 'bottomEnd' | 'injectors' | 'turbo' | 'transmission';
-
-const partFields: {
-  key: PartKey;
-  label: string;
-  category: PartCategory;
-  unit: RatingUnit;
-  name: string;
-}[] = [
-  {
-    key: 'bottomEnd',
-    label: 'Bottom end',
-    category: 'bottom-end',
-    unit: 'hp-crank',
-    name: 'Bottom end',
-  },
-  {
-    key: 'injectors',
-    label: 'Injectors',
-    category: 'fuel-injection',
-    unit: 'mm3-per-stroke',
-    name: 'Injectors',
-  },
-  {
-    key: 'turbo',
-    label: 'Turbocharger',
-    category: 'turbocharger',
-    unit: 'lb-per-min',
-    name: 'Turbocharger',
-  },
-  {
-    key: 'transmission',
-    label: 'Transmission',
-    category: 'transmission',
-    unit: 'lbf-ft',
-    name: 'Transmission',
-  },
-];
-
-type Fields = {
-  powerHp: string;
-  basis: 'crank' | 'wheel';
-  cylinders: string;
-} & Record<PartKey, string>;
-
-// A common-rail V8 pickup with a stock bottom end: the bottom end is the one to watch.
-const initial: Fields = {
-  powerHp: '600',
-  basis: 'wheel',
-  cylinders: '8',
-  bottomEnd: '760',
-  injectors: '250',
-  turbo: '105',
-  transmission: '1500',
-};
-
-function num(text: string): number {
-  return text.trim() === '' ? Number.NaN : Number(text);
-}
-
-/** The request the boxes make, or the field messages that stop it. Empty part boxes are left out. */
-function toRequest(
-  f: Fields,
-):
-  | { request: EstimateRequestInput; errors: null }
-  | { request: null; errors: Record<string, string> } {
-  const request: EstimateRequestInput = {
-    target: { powerHp: num(f.powerHp), basis: f.basis },
-    assumptions: { cylinders: num(f.cylinders) },
-    components: partFields
-      .filter((p) => f[p.key].trim() !== '')
-      .map((p) => ({
-        id: p.key,
-        name: p.name,
-        category: p.category,
-        ratingValue: num(f[p.key]),
-        ratingUnit: p.unit,
-      })),
-  };
-  const parsed = estimateRequestSchema.safeParse(request);
-  if (parsed.success) return { request, errors: null };
-  const errors: Record<string, string> = {};
-  for (const issue of parsed.error.issues) {
-    const [head, second, third] = issue.path;
-    const field =
-      head === 'target'
-        ? 'powerHp'
-        : head === 'assumptions'
-          ? 'cylinders'
-          : head === 'components' && typeof second === 'number' && third === 'ratingValue'
-            ? (request.components?.[second]?.id ?? '')
-            : '';
-    if (field) errors[field] ??= issue.message;
-  }
-  return { request: null, errors };
-}
+import { initial, partFields, toRequest, type Fields } from './try-it-request';
+import { TryItResult } from './try-it-result';
 
 function useDebounced<T>(value: T, ms: number): T {
   const [debounced, setDebounced] = useState(value);
@@ -189,13 +76,11 @@ export function TryItCalculator() {
           >
             <div className="flex gap-2">
               <div className="min-w-0 flex-1">
-                <TextInput
+                <NumberInput
                   id={`${id}-power`}
-                  inputMode="decimal"
                   value={fields.powerHp}
                   onChange={set('powerHp')}
                   aria-invalid={errors?.powerHp ? true : undefined}
-                  className="tabular-nums"
                 />
               </div>
               <div className="w-32 shrink-0">
@@ -211,13 +96,12 @@ export function TryItCalculator() {
             </div>
           </Box>
           <Box label="Cylinders" error={errors?.cylinders} htmlFor={`${id}-cylinders`}>
-            <TextInput
+            <NumberInput
               id={`${id}-cylinders`}
-              inputMode="numeric"
+              integer
               value={fields.cylinders}
               onChange={set('cylinders')}
               aria-invalid={errors?.cylinders ? true : undefined}
-              className="tabular-nums"
             />
           </Box>
           {partFields.map((p) => (
@@ -227,23 +111,15 @@ export function TryItCalculator() {
               error={errors?.[p.key]}
               htmlFor={`${id}-${p.key}`}
             >
-              <div className="relative">
-                <TextInput
-                  id={`${id}-${p.key}`}
-                  inputMode="decimal"
-                  value={fields[p.key]}
-                  onChange={set(p.key)}
-                  placeholder="unknown"
-                  aria-invalid={errors?.[p.key] ? true : undefined}
-                  className="pr-28 tabular-nums"
-                />
-                <span
-                  aria-hidden
-                  className="pointer-events-none absolute inset-y-0 right-3 flex items-center text-sm font-semibold text-muted"
-                >
-                  {unitLabels[p.unit]}
-                </span>
-              </div>
+              <NumberInput
+                id={`${id}-${p.key}`}
+                unit={unitLabels[p.unit]}
+                value={fields[p.key]}
+                onChange={set(p.key)}
+                placeholder="unknown"
+                aria-invalid={errors?.[p.key] ? true : undefined}
+                className="pr-28"
+              />
             </Box>
           ))}
         </form>
@@ -303,71 +179,6 @@ function Box({
       </label>
       {children}
       {error && <p className="text-sm font-semibold text-over">{error}</p>}
-    </div>
-  );
-}
-
-function TryItResult({ result }: { result: EstimateResult }) {
-  const weakest = result.weakestLink;
-  const part = weakest ? result.components.find((c) => c.id === weakest.componentId) : undefined;
-  const bottomEnd = result.warnings.find((w) => w.code === 'target-exceeds-bottom-end');
-  return (
-    <div className="flex flex-col gap-3">
-      {bottomEnd?.shortfall && (
-        <div
-          role="alert"
-          className="rounded-md border-2 border-over bg-over-soft px-3.5 py-3 text-[#7d1f17]"
-        >
-          <p className="font-bold">
-            The target is past the bottom-end rating by {formatShortfall(bottomEnd.shortfall)}.
-          </p>
-        </div>
-      )}
-      {part && result.supported ? (
-        <div className="rounded-md border border-rule bg-paper/60 px-4 py-3">
-          <p className="text-sm font-semibold tracking-wide text-muted uppercase">Weakest link</p>
-          <p className="text-xl leading-snug font-bold text-ink">
-            {capitalise(categoryPhrase(part.category) ?? part.name)}{' '}
-            {part.status === 'over' ? 'gives out before the target' : 'gives out first'}:{' '}
-            {formatHeadroom(part.headroomPct.value)} headroom at{' '}
-            {formatFigure(result.requirements.crankPower.value, 'hp-crank')}
-          </p>
-          <p className="mt-2 text-ink-2">
-            The parts you rated support about{' '}
-            <strong className="text-ink">
-              {formatFigure(result.supported.crankPower.value, 'hp-crank')}
-            </strong>{' '}
-            ({formatFigure(result.supported.wheelPower.value, 'hp-wheel')}).
-          </p>
-        </div>
-      ) : (
-        <p className="rounded-md border border-dashed border-rule-strong px-4 py-4 text-muted">
-          Enter at least one rating to find the weakest link.
-        </p>
-      )}
-      <ul className="flex flex-col divide-y divide-rule rounded-md border border-rule">
-        {partFields.map((p) => {
-          const c = result.components.find((r) => r.id === p.key);
-          return (
-            <li key={p.key} className="flex flex-wrap items-center justify-between gap-2 px-3 py-2">
-              <span className="min-w-0">
-                <span className="font-semibold text-ink">{partCategoryLabels[p.category]}</span>
-                {c && (
-                  <span className="block text-sm text-ink-2 tabular-nums">
-                    rated {formatFigure(c.capacity.value, c.capacity.unit)}, needs{' '}
-                    {formatFigure(c.requirement.value, c.requirement.unit)} (
-                    {formatHeadroom(c.headroomPct.value)})
-                  </span>
-                )}
-              </span>
-              <StatusBadge status={c ? c.status : 'unknown'} />
-            </li>
-          );
-        })}
-      </ul>
-      <ButtonLink to={paths.auth.signUp.getHref()} variant="secondary" className="self-start">
-        Keep a whole build’s ratings: create an account
-      </ButtonLink>
     </div>
   );
 }

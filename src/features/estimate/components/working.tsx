@@ -1,7 +1,6 @@
 import type { ReactNode } from 'react';
-import { ChevronRight } from 'lucide-react';
 import type { Figure, WorkingInput } from '../../../../shared/schemas/estimate';
-import { cn } from '../../../components/ui/cn';
+import { ShowWorking, WorkingFigure } from '../../../components/ui/working';
 import { formatFigure } from '../format';
 
 /** Where an input comes from, in words. */
@@ -22,60 +21,13 @@ function constantText(value: number, unit: string): string {
   return unit === 'ratio' ? `${n}:1` : `${n} ${unit}`;
 }
 
-/** One figure's arithmetic: the formula, every input and where it came from, each constant's source. */
-function FigureWorking({ figure }: { figure: Figure }) {
-  const { formula, inputs, constants } = figure.working;
-  return (
-    <div className="flex flex-col gap-2">
-      <div>
-        <p className="font-semibold text-ink">{figure.label}</p>
-        <p className="font-mono text-sm break-words text-ink-2">{formula}</p>
-        {/* Rounded as on the rest of the page; the API keeps every digit. */}
-        <p className="font-semibold tabular-nums text-ink">
-          = {formatFigure(figure.value, figure.unit)}
-        </p>
-      </div>
-      {inputs.length > 0 && (
-        <div>
-          <p className="text-xs font-semibold tracking-wide text-muted uppercase">Inputs</p>
-          <ul className="flex flex-col gap-0.5">
-            {inputs.map((input, i) => (
-              <li key={`${input.name}-${i}`} className="flex flex-wrap gap-x-2">
-                <span className="text-ink-2">{input.name}</span>
-                <span className="font-semibold tabular-nums">
-                  {formatFigure(input.value, input.unit)}
-                </span>
-                <span className="text-sm text-muted">({workingSourceLabels[input.from]})</span>
-              </li>
-            ))}
-          </ul>
-        </div>
-      )}
-      {constants.length > 0 && (
-        <div>
-          <p className="text-xs font-semibold tracking-wide text-muted uppercase">Constants</p>
-          <ul className="flex flex-col gap-1">
-            {constants.map((c) => (
-              <li key={c.name}>
-                <span className="text-ink-2">{c.name}</span>{' '}
-                <span className="font-semibold tabular-nums">{constantText(c.value, c.unit)}</span>
-                <span className="block text-sm text-muted">Source: {c.source}</span>
-              </li>
-            ))}
-          </ul>
-        </div>
-      )}
-    </div>
-  );
-}
-
 /**
- * "Show the working" for one or more figures, on a native <details> so it opens by keyboard
- * and needs no state.
+ * "Show the working" for one or more figures: the formula, every input and where it came
+ * from, each constant's source. Rounded as on the rest of the page; the API keeps every digit.
  */
 export function Working({
   figures,
-  summary = 'Show the working',
+  summary,
   label,
   className,
 }: {
@@ -86,17 +38,25 @@ export function Working({
   className?: string;
 }) {
   return (
-    <details className={cn('group text-[15px]', className)}>
-      <summary className="inline-flex min-h-11 cursor-pointer list-none items-center gap-1 rounded font-semibold text-accent-700 hover:underline [&::-webkit-details-marker]:hidden">
-        <ChevronRight aria-hidden className="size-4 transition-transform group-open:rotate-90" />
-        {summary}
-        {label && <span className="sr-only">: {label}</span>}
-      </summary>
-      <div className="mt-1 flex flex-col gap-3 divide-y divide-rule rounded-md border border-rule bg-paper/60 px-3 py-3 [&>*+*]:pt-3">
-        {figures.map((f, i) => (
-          <FigureWorking key={`${f.label}-${i}`} figure={f} />
-        ))}
-      </div>
-    </details>
+    <ShowWorking summary={summary} label={label} className={className}>
+      {figures.map((figure, i) => (
+        <WorkingFigure
+          key={`${figure.label}-${i}`}
+          title={figure.label}
+          formula={figure.working.formula}
+          value={formatFigure(figure.value, figure.unit)}
+          inputs={figure.working.inputs.map((input) => ({
+            name: input.name,
+            value: formatFigure(input.value, input.unit),
+            from: workingSourceLabels[input.from],
+          }))}
+          constants={figure.working.constants.map((c) => ({
+            name: c.name,
+            value: constantText(c.value, c.unit),
+            source: c.source,
+          }))}
+        />
+      ))}
+    </ShowWorking>
   );
 }

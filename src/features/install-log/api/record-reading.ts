@@ -7,6 +7,7 @@ import type {
 } from '../../../../shared/schemas/install-log';
 import { api, isApiError } from '../../../lib/api-client';
 import { enqueue, isOffline, type QueuedWrite } from '../../../lib/offline-queue';
+import { serverNow } from '../../../lib/server-clock';
 import { invalidateInstallLog, invalidateReadings, setCachedFastener } from './invalidate';
 import { installBase, seg } from './paths';
 
@@ -56,16 +57,20 @@ export async function recordReading({
       label,
     }),
   });
-  if (isOffline()) return keep({ ...input, takenAt: new Date().toISOString() });
+  // The time it was taken goes with every reading, online too: a reading whose request is
+  // cut off is kept and sent again with the same key and the very same body (else the
+  // server would refuse the key as reused, or date it by when it finally arrived).
+  const body: CreateReadingInput = { ...input, takenAt: input.takenAt ?? serverNow() };
+  if (isOffline()) return keep(body);
   const key = crypto.randomUUID();
   try {
-    return await api.post<RecordedReading>(path, input, {
+    return await api.post<RecordedReading>(path, body, {
       headers: { [idempotencyKeyHeader]: key },
     });
   } catch (error) {
     // The signal dropped mid-request: it may have arrived, so the same key and body go
     // again from the queue (a repeat is stored once).
-    if (isApiError(error) && error.status === 0) return keep(input, key);
+    if (isApiError(error) && error.status === 0) return keep(body, key);
     throw error;
   }
 }

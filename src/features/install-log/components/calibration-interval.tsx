@@ -6,8 +6,9 @@ import {
   minCalibrationMonths,
 } from '../../../../shared/install-log/wrenches';
 import type { Build } from '../../../../shared/schemas/builds';
+import { parseNumber } from '../../../../shared/numbers';
 import { Button } from '../../../components/ui/button';
-import { TextInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
 import { isApiError } from '../../../lib/api-client';
 import { useUpdateBuild } from '../../builds/api/update-build';
 
@@ -34,7 +35,10 @@ export function CalibrationInterval({ build, canChange }: { build: Build; canCha
           onSubmit={(e) => {
             e.preventDefault();
             update.mutate(
-              { buildId: build.id, input: { wrenchCalibrationMonths: Number(months) } },
+              {
+                buildId: build.id,
+                input: { wrenchCalibrationMonths: parseNumber(months) ?? Number.NaN },
+              },
               { onSuccess: () => setEditing(false) },
             );
           }}
@@ -42,12 +46,12 @@ export function CalibrationInterval({ build, canChange }: { build: Build; canCha
           <label htmlFor={id} className="font-semibold text-ink">
             Torque wrenches need calibrating every
           </label>
-          <TextInput
+          <NumberInput
             id={id}
+            integer
             value={months}
             onChange={(e) => setMonths(e.target.value)}
-            inputMode="numeric"
-            className="w-20! tabular-nums"
+            className="w-20!"
             aria-invalid={error ? true : undefined}
             aria-describedby={error ? `${id}-error` : undefined}
           />

@@ -18,6 +18,7 @@ import { useCreateChecklistItem } from '../api/create-checklist-item';
 import { useDeleteChecklistItem } from '../api/delete-checklist-item';
 import { useUpdateChecklistItem } from '../api/update-checklist-item';
 import { formatWhen } from '../../../lib/dates';
+import { useOfflineQueue } from '../../../lib/offline-queue';
 
 type Input = z.input<typeof createChecklistItemInputSchema>;
 type Values = z.output<typeof createChecklistItemInputSchema>;
@@ -175,24 +176,33 @@ export function Checklist({
   canAdd: boolean;
   canDelete: boolean;
 }) {
+  // A tick kept on the phone shows as made, after a reload too (the saved step may predate it).
+  const waiting = useOfflineQueue().items.filter(
+    (w) => w.kind === 'tick' && w.stepId === stepId && !w.problem,
+  );
+  const shown = items.map((item) => {
+    const last = waiting.findLast((w) => w.path.endsWith(`/checklist/${item.id}`));
+    const done = (last?.body as { done?: boolean } | undefined)?.done;
+    return done === undefined ? item : { ...item, done, doneBy: null, doneAt: null };
+  });
   const remove = useDeleteChecklistItem();
   const [deleting, setDeleting] = useState<ChecklistItem | null>(null);
-  const done = items.filter((i) => i.done).length;
+  const done = shown.filter((i) => i.done).length;
   return (
     <section aria-labelledby="checklist-title" className="rounded-lg border border-rule bg-sheet">
       <div className="flex items-baseline justify-between gap-2 border-b border-rule px-4 py-2.5 sm:px-5">
         <h2 id="checklist-title" className="text-lg font-bold">
           Checklist
         </h2>
-        {items.length > 0 && (
+        {shown.length > 0 && (
           <span className="font-semibold text-ink-2 tabular-nums">
-            {done} of {items.length} ticked
+            {done} of {shown.length} ticked
           </span>
         )}
       </div>
-      {items.length > 0 ? (
+      {shown.length > 0 ? (
         <ul className="divide-y divide-rule">
-          {items.map((item) => (
+          {shown.map((item) => (
             <ChecklistRow
               key={item.id}
               buildId={buildId}

@@ -14,12 +14,14 @@ import {
 } from '../../../../shared/schemas/install-log';
 import { cylinderNames } from '../../../../shared/install-log/positions';
 import { toleranceTypes, torqueUnits } from '../../../../shared/install-log/torque';
+import { FormActions } from '../../../components/ui/form-actions';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
 import { FormField, SelectInput, TextArea, TextInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
+import { parseNumber } from '../../../../shared/numbers';
 import { applyServerErrors } from '../../../lib/form-errors';
-import { parseDecimal, parseDecimalOrNull, targetText, unitLabel } from '../lib/format';
+import { targetText, unitLabel } from '../lib/format';
 
 // The server's schema, plus the cross-field checks it runs (tolerance below the target,
 // stages below the final torque), so the form says so before it sends.
@@ -32,6 +34,9 @@ type Input = z.input<typeof schema>;
 type Values = z.output<typeof schema>;
 const fieldNames = Object.keys(createFastenerSpecInputSchema.shape) as Path<Input>[];
 
+/** An empty box is "not given" (undefined) for the required numbers, so the schema asks for one. */
+const toNumberOrUndefined = (value: unknown) => parseNumber(value) ?? undefined;
+
 /** "15, 25" → [15, 25]; an empty box → no stages. */
 function toStages(value: unknown): number[] | undefined {
   if (Array.isArray(value)) return value as number[];
@@ -41,7 +46,7 @@ function toStages(value: unknown): number[] | undefined {
   return text
     .split(/[,;\s]+/)
     .filter(Boolean)
-    .map((t) => Number(t));
+    .map((t) => parseNumber(t) ?? Number.NaN);
 }
 
 /** "Cyl 1, Cyl 2" → ['Cyl 1', 'Cyl 2']; an empty box → no names (#1 … #n). */
@@ -51,10 +56,6 @@ function toNames(value: unknown): string[] {
     .split(',')
     .map((t) => t.trim())
     .filter(Boolean);
-}
-
-function toIntOrNull(value: unknown): number | null {
-  return parseDecimalOrNull(value);
 }
 
 /** Any reading recorded against the spec, current, re-check or replaced. */
@@ -155,13 +156,7 @@ export function FastenerForm(props: FastenerFormProps) {
     <>
       <FormField label="Target torque" error={errors.targetValue?.message}>
         {(c) => (
-          <TextInput
-            {...c}
-            {...register('targetValue', { setValueAs: parseDecimal })}
-            inputMode="decimal"
-            autoComplete="off"
-            className="tabular-nums"
-          />
+          <NumberInput {...c} {...register('targetValue', { setValueAs: toNumberOrUndefined })} />
         )}
       </FormField>
       <FormField label="Unit" error={errors.targetUnit?.message}>
@@ -191,12 +186,9 @@ export function FastenerForm(props: FastenerFormProps) {
         error={errors.toleranceValue?.message}
       >
         {(c) => (
-          <TextInput
+          <NumberInput
             {...c}
-            {...register('toleranceValue', { setValueAs: parseDecimal })}
-            inputMode="decimal"
-            autoComplete="off"
-            className="tabular-nums"
+            {...register('toleranceValue', { setValueAs: toNumberOrUndefined })}
           />
         )}
       </FormField>
@@ -227,12 +219,10 @@ export function FastenerForm(props: FastenerFormProps) {
       <div className="grid grid-cols-2 gap-4 sm:grid-cols-3">
         <FormField label="How many" error={errors.count?.message}>
           {(c) => (
-            <TextInput
+            <NumberInput
               {...c}
-              {...register('count', { setValueAs: parseDecimal })}
-              inputMode="numeric"
-              autoComplete="off"
-              className="tabular-nums"
+              {...register('count', { setValueAs: toNumberOrUndefined })}
+              integer
             />
           )}
         </FormField>
@@ -290,12 +280,7 @@ export function FastenerForm(props: FastenerFormProps) {
           hint="For torque-to-angle fasteners"
         >
           {(c) => (
-            <TextInput
-              {...c}
-              {...register('finalAngleDeg', { setValueAs: parseDecimalOrNull })}
-              inputMode="decimal"
-              autoComplete="off"
-            />
+            <NumberInput {...c} {...register('finalAngleDeg', { setValueAs: parseNumber })} />
           )}
         </FormField>
       </div>
@@ -356,36 +341,32 @@ export function FastenerForm(props: FastenerFormProps) {
         <div className="grid grid-cols-2 gap-4">
           <FormField label="After heat cycles" error={errors.retorqueAfterHeatCycles?.message}>
             {(c) => (
-              <TextInput
+              <NumberInput
                 {...c}
-                {...register('retorqueAfterHeatCycles', { setValueAs: toIntOrNull })}
-                inputMode="numeric"
-                autoComplete="off"
+                {...register('retorqueAfterHeatCycles', { setValueAs: parseNumber })}
+                integer
               />
             )}
           </FormField>
           <FormField label="Or after miles" error={errors.retorqueAfterMiles?.message}>
             {(c) => (
-              <TextInput
+              <NumberInput
                 {...c}
-                {...register('retorqueAfterMiles', { setValueAs: toIntOrNull })}
-                inputMode="numeric"
-                autoComplete="off"
+                {...register('retorqueAfterMiles', { setValueAs: parseNumber })}
+                integer
               />
             )}
           </FormField>
         </div>
       </fieldset>
 
-      <FormError message={errors.root?.server?.message} />
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <Button variant="secondary" className="min-h-12!" onClick={onCancel}>
-          Cancel
-        </Button>
-        <Button type="submit" className="min-h-12!" pending={isSubmitting}>
-          {spec ? 'Save the spec' : 'Add the spec'}
-        </Button>
-      </div>
+      <FormActions
+        large
+        error={errors.root?.server?.message}
+        onCancel={onCancel}
+        submitLabel={spec ? 'Save the spec' : 'Add the spec'}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -2,8 +2,7 @@ import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { createJobInputSchema, type Job } from '../../../../shared/schemas/install-log';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
+import { FormActions } from '../../../components/ui/form-actions';
 import { FormField, TextArea, TextInput } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
 
@@ -54,15 +53,13 @@ export function JobForm({
       <FormField label="Notes" optional error={errors.notes?.message}>
         {(c) => <TextArea {...c} {...register('notes')} rows={3} />}
       </FormField>
-      <FormError message={errors.root?.server?.message} />
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <Button variant="secondary" className="min-h-12!" onClick={onCancel}>
-          Cancel
-        </Button>
-        <Button type="submit" className="min-h-12!" pending={isSubmitting}>
-          {submitLabel}
-        </Button>
-      </div>
+      <FormActions
+        large
+        error={errors.root?.server?.message}
+        onCancel={onCancel}
+        submitLabel={submitLabel}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

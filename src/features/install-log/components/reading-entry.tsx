@@ -107,6 +107,8 @@ export function ReadingEntry({
       });
       reset({ value: undefined, unit: values.unit, note: '' });
       if (isQueued(result)) {
+        // Cleared, so the value kept is not recorded a second time by a second tap.
+        if (inputRef.current) inputRef.current.value = '';
         setKept(`${formatTorque(values.value, unit)} kept on this phone: waiting to send.`);
         if (kind !== 'first') onCancel?.();
         return;

@@ -10,8 +10,8 @@ import {
 } from '../../../../shared/schemas/install-log';
 import { positionList } from '../../../../shared/install-log/positions';
 import { paths } from '../../../config/paths';
+import { FormActions } from '../../../components/ui/form-actions';
 import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
 import { FormField, TextArea } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useCloseRetorqueCheck } from '../api/close-retorque-check';
@@ -61,15 +61,13 @@ function CloseForm({
       >
         {(c) => <TextArea {...c} {...register('note')} rows={2} autoFocus />}
       </FormField>
-      <FormError message={errors.root?.server?.message} />
-      <div className="flex flex-col-reverse gap-2 sm:flex-row">
-        <Button variant="secondary" className="min-h-12!" onClick={onDone}>
-          Cancel
-        </Button>
-        <Button type="submit" className="min-h-12!" pending={isSubmitting}>
-          Close the re-check
-        </Button>
-      </div>
+      <FormActions
+        large
+        error={errors.root?.server?.message}
+        onCancel={onDone}
+        submitLabel="Close the re-check"
+        pending={isSubmitting}
+      />
     </form>
   );
 }

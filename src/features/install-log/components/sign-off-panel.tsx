@@ -15,6 +15,7 @@ import { applyServerErrors } from '../../../lib/form-errors';
 import { useReopenStep } from '../api/reopen-step';
 import { useSignOffStep } from '../api/sign-off-step';
 import { formatWhen } from '../../../lib/dates';
+import { useOfflineQueue } from '../../../lib/offline-queue';
 
 // For the override the reason is required (the shared schema has it optional for a plain sign-off).
 const overrideSchema = signOffInputSchema.required({ overrideReason: true });
@@ -107,6 +108,10 @@ export function SignOffPanel({
   const [confirming, setConfirming] = useState(false);
   const [reopening, setReopening] = useState(false);
   const [overriding, setOverriding] = useState(false);
+  // Readings and ticks kept on the phone are not on the server yet, so not in the blockers.
+  const waitingHere = useOfflineQueue().items.filter(
+    (i) => i.stepId === step.id && !i.problem,
+  ).length;
 
   let body;
   if (step.signOff) {
@@ -175,6 +180,11 @@ export function SignOffPanel({
         <Alert tone="warning" title={`Not ready to sign off: ${n} open item${n === 1 ? '' : 's'}`}>
           <BlockerList blockers={step.signOffBlockers} />
         </Alert>
+        {waitingHere > 0 && (
+          <p className="text-[15px] text-ink-2" data-testid="sign-off-waiting">
+            Entries waiting on this phone count here once they are sent.
+          </p>
+        )}
         {canSignOff && !canOverride && (
           <p className="text-[15px] text-ink-2">
             Sign-off opens when every position reads in spec and every check is ticked. Only the

@@ -10,8 +10,7 @@ import {
 } from '../../../../shared/install-log/cautions';
 import { createStepInputSchema, type Step } from '../../../../shared/schemas/install-log';
 import { partCategoryLabels, type Part } from '../../../../shared/schemas/parts';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
+import { FormActions } from '../../../components/ui/form-actions';
 import { FormField, TextArea, TextInput } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
 
@@ -181,15 +180,13 @@ export function StepForm({
         )}
       </fieldset>
 
-      <FormError message={errors.root?.server?.message} />
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        <Button variant="secondary" className="min-h-12!" onClick={onCancel}>
-          Cancel
-        </Button>
-        <Button type="submit" className="min-h-12!" pending={isSubmitting}>
-          {submitLabel}
-        </Button>
-      </div>
+      <FormActions
+        large
+        error={errors.root?.server?.message}
+        onCancel={onCancel}
+        submitLabel={submitLabel}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -4,6 +4,7 @@ import {
   type TorqueUnit,
 } from '../../../../shared/install-log/torque';
 import type { FastenerSpec, TorqueReading } from '../../../../shared/schemas/install-log';
+import { parseNumber } from '../../../../shared/numbers';
 
 /** A non-breaking space: "35 lbf·ft" never wraps between the number and its unit. */
 const nb = '\u00a0';
@@ -79,17 +80,13 @@ export function deviationText(reading: TorqueReading, spec: FastenerSpec): strin
   return `${amount} (${rounded(pct)}${nb}%) ${reading.verdict === 'over' ? 'over' : 'under'} the target`;
 }
 
-/** Text from a decimal box: "47,5" and "47.5" both read as 47.5; empty is undefined. */
+/**
+ * Text from a decimal box, read by the one number reader (shared/numbers: "47,5" and "47.5"
+ * are 47.5, "1,250" is 1250); empty is undefined. Kept for the step page's reading entry
+ * until it takes NumberInput.
+ */
 export function parseDecimal(value: unknown): number | undefined {
-  if (value === null || value === undefined) return undefined;
-  if (typeof value === 'number') return value;
-  const text = String(value).trim().replace(',', '.');
-  return text === '' ? undefined : Number(text);
-}
-
-/** Like parseDecimal, but an empty box means "none" (null) for optional numbers. */
-export function parseDecimalOrNull(value: unknown): number | null {
-  return parseDecimal(value) ?? null;
+  return parseNumber(value) ?? undefined;
 }
 
 /**

@@ -5,10 +5,8 @@ import { Send } from 'lucide-react';
 import { roleDescriptions, roleLabels, roles, type Role } from '../../../../shared/permissions';
 import { invitationValidDays } from '../../../../shared/invitations/rules';
 import type { createInvitationInputSchema } from '../../../../shared/schemas/invitations';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
+import { FormActions } from '../../../components/ui/form-actions';
 import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { lazyResolver } from '../../../lib/lazy-resolver';
 import { useCreateInvitation } from '../api/create-invitation';
@@ -92,13 +90,14 @@ export function InviteForm({ buildId }: { buildId: string }) {
       <p className="text-sm text-ink-2">
         <span className="font-semibold">{roleLabels[role]}:</span> {roleDescriptions[role]}
       </p>
-      <FormError message={errors.root?.server?.message} />
-      {sent && <Alert tone="ok">{sent}</Alert>}
-      <div>
-        <Button type="submit" pending={isSubmitting} icon={<Send aria-hidden className="size-4" />}>
-          Send invitation
-        </Button>
-      </div>
+      <FormActions
+        layout="start"
+        error={errors.root?.server?.message}
+        notice={sent}
+        submitLabel="Send invitation"
+        submitIcon={<Send aria-hidden className="size-4" />}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -11,14 +11,15 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Spinner } from '../../../components/ui/spinner';
 import { getPartsCsvHref } from '../api/export-parts-csv';
-import { ImportError, useImportParts, type ImportRowError } from '../api/import-parts';
+import { UploadError, type RowError } from '../../../lib/upload';
+import { useImportParts } from '../api/import-parts';
 import { Modal } from '../../../components/ui/modal';
 
 const previewLimit = 200;
 
 type Checked =
   | { kind: 'ok'; rows: CreatePartInput[] }
-  | { kind: 'rows'; message: string; rows: ImportRowError[] }
+  | { kind: 'rows'; message: string; rows: RowError[] }
   | { kind: 'file'; message: string };
 
 /**
@@ -57,7 +58,7 @@ export function ImportPartsDialog({
   }
 
   function describe(error: unknown): Checked {
-    if (error instanceof ImportError && error.code === 'invalid_rows') {
+    if (error instanceof UploadError && error.code === 'invalid_rows') {
       return { kind: 'rows', message: error.message, rows: error.rows };
     }
     return {

@@ -19,11 +19,33 @@ export async function updateMilestone({
   return data.milestone;
 }
 
+/**
+ * The tick shows at once and stays through a re-render of the list (it lives in the cached
+ * timeline, not in one row's mutation state); a refused change puts the old one back.
+ */
 export const useUpdateMilestone = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: updateMilestone,
-    onSuccess: (_m, { buildId }) =>
+    onMutate: async ({ buildId, milestoneId, input }) => {
+      const { queryKey } = getTimelineQueryOptions(buildId);
+      await queryClient.cancelQueries({ queryKey });
+      const before = queryClient.getQueryData(queryKey);
+      queryClient.setQueryData(queryKey, (t) =>
+        t?.milestones
+          ? {
+              ...t,
+              milestones: t.milestones.map((m) => (m.id === milestoneId ? { ...m, ...input } : m)),
+            }
+          : t,
+      );
+      return { before };
+    },
+    onError: (_e, { buildId }, context) => {
+      if (context?.before)
+        queryClient.setQueryData(getTimelineQueryOptions(buildId).queryKey, context.before);
+    },
+    onSettled: (_m, _e, { buildId }) =>
       queryClient.invalidateQueries({ queryKey: getTimelineQueryOptions(buildId).queryKey }),
   });
 };

@@ -2,8 +2,7 @@ import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { createMilestoneInputSchema, type Milestone } from '../../../../shared/schemas/timeline';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
+import { FormActions } from '../../../components/ui/form-actions';
 import { FormField, TextInput } from '../../../components/ui/form-field';
 import { applyServerErrors } from '../../../lib/form-errors';
 
@@ -63,17 +62,13 @@ export function MilestoneForm({
           {(c) => <TextInput {...c} {...register('dueOn')} type="date" />}
         </FormField>
       </div>
-      <FormError message={errors.root?.server?.message} />
-      <div className="flex flex-col-reverse gap-2 sm:flex-row sm:justify-end">
-        {onCancel && (
-          <Button variant="secondary" onClick={onCancel}>
-            Cancel
-          </Button>
-        )}
-        <Button type="submit" variant={milestone ? 'primary' : 'secondary'} pending={isSubmitting}>
-          {submitLabel}
-        </Button>
-      </div>
+      <FormActions
+        error={errors.root?.server?.message}
+        onCancel={onCancel}
+        submitLabel={submitLabel}
+        submitVariant={milestone ? 'primary' : 'secondary'}
+        pending={isSubmitting}
+      />
     </form>
   );
 }

@@ -31,8 +31,8 @@ function MilestoneRow({
   onDelete: () => void;
 }) {
   const update = useUpdateMilestone();
-  // The tick shows at once; the list catches up when the timeline is read again.
-  const done = update.isPending ? (update.variables.input.done ?? m.done) : m.done;
+  // The tick shows at once: the mutation writes it into the cached timeline first.
+  const done = m.done;
   const late = !done && m.dueOn < today;
   const checkId = `${milestoneElementId(m.id)}-done`;
   return (

@@ -12,6 +12,8 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { FormError } from '../../../components/ui/form-error';
 import { FormField, TextInput } from '../../../components/ui/form-field';
+import { NumberInput } from '../../../components/ui/number-input';
+import { parseNumber } from '../../../../shared/numbers';
 import { applyServerErrors } from '../../../lib/form-errors';
 import { useUpdateTimelineSettings } from '../api/update-timeline-settings';
 
@@ -20,8 +22,7 @@ type Values = z.output<typeof timelineSettingsInputSchema>;
 const fieldNames: Path<Input>[] = ['timeZone', 'bufferDays', 'stepsPerWeek'];
 
 /** A number box's text as the schema wants it: empty is "not given", anything else a number. */
-const toNumber = (empty: null | undefined) => (v: unknown) =>
-  v === '' || v === null || v === undefined ? empty : Number(v);
+const toNumber = (empty: null | undefined) => (v: unknown) => parseNumber(v) ?? empty;
 
 /** The owner's buffer before the target, pace of install work and the build's time zone. */
 export function SettingsForm({ buildId, timeline }: { buildId: string; timeline: Timeline }) {
@@ -104,10 +105,10 @@ export function SettingsForm({ buildId, timeline }: { buildId: string; timeline:
           hint={`Parts and send-outs should be back this long before the date; 0 to ${maxBufferDays}.`}
         >
           {(c) => (
-            <TextInput
+            <NumberInput
               {...c}
               {...register('bufferDays', { setValueAs: toNumber(undefined) })}
-              inputMode="numeric"
+              integer
             />
           )}
         </FormField>
@@ -118,11 +119,7 @@ export function SettingsForm({ buildId, timeline }: { buildId: string; timeline:
           hint="How many install steps you get through in a week. Empty: jobs are not checked."
         >
           {(c) => (
-            <TextInput
-              {...c}
-              {...register('stepsPerWeek', { setValueAs: toNumber(null) })}
-              inputMode="decimal"
-            />
+            <NumberInput {...c} {...register('stepsPerWeek', { setValueAs: toNumber(null) })} />
           )}
         </FormField>
       </div>
