@@ -43,6 +43,10 @@ export function createApp(opts: {
   const app = express();
 
   app.disable('x-powered-by');
+  // No automatic ETag: API answers are no-store, so hashing each one served nobody. Answers
+  // that are revalidated set their own (calendar feed, stored files: lib/etag.ts; the shared
+  // page: sharing.http.ts); express.static and sendFile keep theirs.
+  app.set('etag', false);
   // gzip for the client's files and large JSON (photo bytes are JPEG already and are skipped).
   // A smaller answer reaches the browser in the first round trip anyway (TCP's initial window
   // is about 14 KB), so gzip would only cost CPU: a zlib stream for every answer.

@@ -16,6 +16,7 @@ import { pipeline } from 'node:stream/promises';
 import { create as contentDispositionHeader } from 'content-disposition';
 import type { Response } from 'express';
 import { NotFoundError } from './errors';
+import { weakEtag } from './etag';
 import type { Storage } from './storage';
 
 export type StoredFileOptions = {
@@ -90,7 +91,7 @@ export async function sendStoredFile(
   if (!storage.open) {
     const data = await storage.get(key);
     if (!data) throw missing();
-    res.send(data);
+    res.set('ETag', weakEtag(data)).send(data);
     return;
   }
   const file = await storage.open(key);

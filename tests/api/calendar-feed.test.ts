@@ -149,6 +149,20 @@ describe('a member’s calendar feed', () => {
     expect(unfolded).toContain(`SUMMARY:Milestone: ${s.longTitle}\r\n`);
   });
 
+  it('answers a calendar polling with the ETag it was given 304, and 200 again once the feed changes', async () => {
+    const s = await scenario();
+    const feed = await makeFeed(s.owner, s.base);
+    const first = await fetchFeed(feed.url);
+    const etag = first.headers.etag;
+    expect(etag).toMatch(/^W\/"[0-9a-f]+-[A-Za-z0-9+/]{27}"$/);
+    const again = await app.bare().get(new URL(feed.url).pathname).set('If-None-Match', etag);
+    expect(again.status).toBe(304);
+    await s.owner.agent.patch(s.base).send({ targetDate: '2027-09-01' }).expect(200);
+    const changed = await app.bare().get(new URL(feed.url).pathname).set('If-None-Match', etag);
+    expect(changed.status).toBe(200);
+    expect(changed.headers.etag).not.toBe(etag);
+  });
+
   it('keeps each event’s UID when a date changes, so a calendar updates it instead of adding one', async () => {
     const s = await scenario();
     const feed = await makeFeed(s.owner, s.base);

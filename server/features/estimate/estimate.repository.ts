@@ -114,16 +114,19 @@ function toRatedPart(r: RatedPartRow): RatedPart {
 /**
  * What a build's estimate reads besides the build, in one statement: the saved
  * assumptions (if any) and the parts that carry a rating and have not been sent
- * back, ordered by category, name and id.
+ * back, ordered by category, name and id. A named statement (planned once per
+ * connection): its two columns are jsonb whatever the tables gain, so a migration
+ * adding a column cannot change its result type.
  */
 export async function findEstimateInputs(
   knex: Knex,
   buildId: string,
 ): Promise<{ assumptions: StoredAssumptions | undefined; parts: RatedPart[] }> {
-  const { rows } = await knex.raw<{
-    rows: { assumptions: AssumptionsRow | null; parts: RatedPartRow[] }[];
-  }>(
-    `select
+  const { rows } = await knex
+    .raw<{
+      rows: { assumptions: AssumptionsRow | null; parts: RatedPartRow[] }[];
+    }>(
+      `select
        (select to_jsonb(a) from build_assumptions a where a.build_id = :buildId) as assumptions,
        coalesce((
          select jsonb_agg(jsonb_build_object(
@@ -135,8 +138,9 @@ export async function findEstimateInputs(
          where p.build_id = :buildId and p.status <> 'returned'
            and p.rating_value is not null and p.rating_unit is not null
        ), '[]') as parts`,
-    { buildId },
-  );
+      { buildId },
+    )
+    .options({ name: 'estimate-inputs' });
   const row = rows[0];
   return {
     assumptions: row.assumptions ? toStoredAssumptions(row.assumptions) : undefined,

@@ -2,6 +2,7 @@
 import type { Knex } from 'knex';
 import type { TorqueUnit } from '../../../shared/install-log/torque';
 import type { ThreadCondition } from '../../../shared/schemas/install-log';
+import { namedRows } from '../../lib/named-query';
 import { iso, person } from './rows';
 
 export type SpecRow = {
@@ -103,33 +104,72 @@ export async function listSpecs(knex: Knex, stepIds: string[]) {
   return rows.map(toSpec);
 }
 
+/** What judging a reading needs of its spec, and what a step's progress counts. */
+export type SpecTarget = {
+  id: string;
+  stepId: string;
+  count: number;
+  targetValue: number;
+  targetUnit: TorqueUnit;
+  toleranceType: 'value' | 'percent';
+  toleranceValue: number;
+};
+
+export type SpecWithCurrent = {
+  spec: SpecTarget;
+  current: { position: number; value: number; unit: TorqueUnit }[];
+};
+
 /**
  * Every fastener spec of the build's steps with the current final fitting reading
- * of each position (value and unit only; stage readings left out), in one
- * statement: what progress counts need.
+ * of each position (value and unit only; stage readings left out), in one named
+ * statement with its columns written out: what progress counts need. A row a
+ * reading, or one with null reading columns for a spec without any.
  */
+const specsWithReadingsSql = `select f.id, f.step_id, f.count, f.target_value, f.target_unit,
+    f.tolerance_type, f.tolerance_value,
+    r.position as reading_position, r.value as reading_value, r.unit as reading_unit
+  from fastener_specs f
+  join install_steps s on s.id = f.step_id
+  left join torque_readings r on r.spec_id = f.id and r.kind = 'install'
+    and r.stage is null and r.superseded_at is null
+  where s.build_id = ?`;
+
 export async function listSpecsWithCurrentReadings(knex: Knex, buildId: string) {
-  const rows: (SpecRow & {
-    reading_position: number | null;
-    reading_value: number | null;
-    reading_unit: TorqueUnit | null;
-  })[] = await specs(knex)
-    .join('install_steps as s', 's.id', 'f.step_id')
-    .leftJoin('torque_readings as r', function () {
-      this.on('r.spec_id', 'f.id')
-        .andOnVal('r.kind', 'install')
-        .andOnNull('r.stage')
-        .andOnNull('r.superseded_at');
-    })
-    .where('s.build_id', buildId)
-    .select('r.position as reading_position', 'r.value as reading_value', 'r.unit as reading_unit');
-  const byId = new Map<
-    string,
-    { spec: SpecRecord; current: { position: number; value: number; unit: TorqueUnit }[] }
-  >();
+  const rows = await namedRows<
+    Pick<
+      SpecRow,
+      | 'id'
+      | 'step_id'
+      | 'count'
+      | 'target_value'
+      | 'target_unit'
+      | 'tolerance_type'
+      | 'tolerance_value'
+    > & {
+      reading_position: number | null;
+      reading_value: number | null;
+      reading_unit: TorqueUnit | null;
+    }
+  >(knex, 'specs-with-current-readings', specsWithReadingsSql, [buildId]);
+  const byId = new Map<string, SpecWithCurrent>();
   for (const row of rows) {
-    const entry = byId.get(row.id) ?? { spec: toSpec(row), current: [] };
-    byId.set(row.id, entry);
+    let entry = byId.get(row.id);
+    if (!entry) {
+      entry = {
+        spec: {
+          id: row.id,
+          stepId: row.step_id,
+          count: row.count,
+          targetValue: row.target_value,
+          targetUnit: row.target_unit,
+          toleranceType: row.tolerance_type,
+          toleranceValue: row.tolerance_value,
+        },
+        current: [],
+      };
+      byId.set(row.id, entry);
+    }
     if (row.reading_position != null && row.reading_value != null && row.reading_unit) {
       entry.current.push({
         position: row.reading_position,

@@ -1,6 +1,10 @@
 /** Jobs of a build: the install log's top level. */
 import type { Knex } from 'knex';
-import { person } from './rows';
+import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
+import type { StepStatus } from '../../../shared/schemas/install-log';
+import { namedRows } from '../../lib/named-query';
+import { iso, person } from './rows';
+import type { StepRow } from './steps.repository';
 
 type JobRow = {
   id: string;
@@ -41,6 +45,93 @@ export async function listJobs(knex: Knex, buildId: string) {
     { column: 'j.created_at' },
   ]);
   return rows.map(toJob);
+}
+
+/** A step as a job list shows it, with its checklist counts (see listJobsWithSteps). */
+export type StepCounts = {
+  id: string;
+  jobId: string;
+  position: number;
+  title: string;
+  status: StepStatus;
+  signedOffBy: ReturnType<typeof person>;
+  signedOffAt: string | null;
+  overrideReason: string | null;
+  overrideBlockers: SignOffBlocker[] | null;
+  checklistDone: number;
+  checklistTotal: number;
+};
+
+type JobStepRow = JobRow &
+  Pick<
+    StepRow,
+    | 'status'
+    | 'signed_off_by'
+    | 'signed_off_by_name'
+    | 'signed_off_at'
+    | 'override_reason'
+    | 'override_blockers'
+  > & {
+    step_id: string | null;
+    step_position: number;
+    step_title: string;
+    checklist_total: number;
+    checklist_done: number;
+  };
+
+/**
+ * Jobs in order, each with its steps in order and their checklist counts: a row a step (one
+ * with null step columns for a job without steps). A named statement with its columns
+ * written out. A non-null shop parameter keeps only the steps linked to a part sent to
+ * that shop (a job then may come with no step).
+ */
+const jobsWithStepsSql = `select j.id, j.build_id, j.position, j.title, j.notes, j.created_by,
+    cu.display_name as created_by_name, j.created_at, j.updated_at,
+    s.id as step_id, s.position as step_position, s.title as step_title, s.status,
+    s.signed_off_by, su.display_name as signed_off_by_name, s.signed_off_at,
+    s.override_reason, s.override_blockers,
+    c.total as checklist_total, c.done as checklist_done
+  from install_jobs j
+  left join users cu on cu.id = j.created_by
+  left join install_steps s on s.job_id = j.id and (?::uuid is null or exists (
+    select 1 from install_step_parts sp join parts p on p.id = sp.part_id
+    where sp.step_id = s.id and p.shop_user_id = ?))
+  left join users su on su.id = s.signed_off_by
+  left join lateral (
+    select count(*)::int as total, (count(*) filter (where i.done_at is not null))::int as done
+    from install_checklist_items i where i.step_id = s.id) c on true
+  where j.build_id = ?
+  order by j.position, j.created_at, j.id, s.position, s.created_at`;
+
+export async function listJobsWithSteps(knex: Knex, buildId: string, shopUserId: string | null) {
+  const rows = await namedRows<JobStepRow>(knex, 'jobs-with-steps', jobsWithStepsSql, [
+    shopUserId,
+    shopUserId,
+    buildId,
+  ]);
+  const jobs: (JobRecord & { steps: StepCounts[] })[] = [];
+  for (const r of rows) {
+    let job = jobs.at(-1);
+    if (job?.id !== r.id) {
+      job = { ...toJob(r), steps: [] };
+      jobs.push(job);
+    }
+    if (r.step_id === null) continue;
+    job.steps.push({
+      id: r.step_id,
+      jobId: r.id,
+      position: r.step_position,
+      title: r.step_title,
+      status: r.status,
+      signedOffBy: person(r.signed_off_by, r.signed_off_by_name),
+      signedOffAt: iso(r.signed_off_at),
+      overrideReason: r.override_reason,
+      overrideBlockers: r.override_blockers,
+      checklistDone: r.checklist_done,
+      checklistTotal: r.checklist_total,
+    });
+  }
+  return jobs;
 }
 
 export async function findJob(knex: Knex, buildId: string, jobId: string) {

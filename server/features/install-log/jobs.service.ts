@@ -6,19 +6,32 @@ import * as files from '../files';
 import { loadJob, visibleSteps } from './access';
 import * as repo from './jobs.repository';
 import { lockOrdering } from './ordering.repository';
-import { assembleSteps, numberAsSeen, summariesForBuild, summarize } from './steps.detail';
+import * as fastenersRepo from './fasteners.repository';
+import { assembleSteps, numberAsSeen, summarizeSteps, summarize } from './steps.detail';
 import * as stepsRepo from './steps.repository';
 
-/** Every job with its step summaries; a shop gets only jobs holding steps it may see. */
+/**
+ * Every job with its step summaries; a shop gets only jobs holding steps it may see, the
+ * steps numbered as it sees them. Two statements whatever the build's size: jobs with
+ * their steps and checklist counts, and the specs with their current readings.
+ */
 export async function listJobs(scope: BuildScope): Promise<Job[]> {
-  const [jobs, summaries] = await Promise.all([
-    repo.listJobs(scope.knex, scope.buildId),
-    summariesForBuild(scope),
-  ]);
   const shop = scope.caller.role === 'shop';
-  return jobs
-    .map((j) => ({ ...j, steps: summaries.filter((s) => s.jobId === j.id) }))
-    .filter((j) => !shop || j.steps.length > 0);
+  const [jobs, specs] = await Promise.all([
+    repo.listJobsWithSteps(scope.knex, scope.buildId, shop ? scope.caller.userId : null),
+    fastenersRepo.listSpecsWithCurrentReadings(scope.knex, scope.buildId),
+  ]);
+  const specsByStep = new Map<string, fastenersRepo.SpecWithCurrent[]>();
+  for (const f of specs) {
+    const list = specsByStep.get(f.spec.stepId);
+    if (list) list.push(f);
+    else specsByStep.set(f.spec.stepId, [f]);
+  }
+  const listed = jobs.map((j) => {
+    const steps = summarizeSteps(j.steps, specsByStep);
+    return { ...j, steps: shop ? numberAsSeen(steps) : steps };
+  });
+  return shop ? listed.filter((j) => j.steps.length > 0) : listed;
 }
 
 export async function getJob(scope: BuildScope, rawJobId: string): Promise<Job> {

@@ -17,13 +17,19 @@ import { visibleSteps } from './access';
 import { seesPart } from '../parts';
 import * as checklistRepo from './checklist.repository';
 import * as fastenersRepo from './fasteners.repository';
+import type * as jobsRepo from './jobs.repository';
 import { presentSpec } from './fasteners.present';
 import * as readingsRepo from './readings.repository';
 import * as stepPartsRepo from './step-parts.repository';
 import * as stepsRepo from './steps.repository';
 
 /** A step's sign-off as the API shows it, with the override's reason when there was one. */
-function signOffOf(s: stepsRepo.StepRecord): SignOff | null {
+function signOffOf(
+  s: Pick<
+    stepsRepo.StepRecord,
+    'signedOffAt' | 'signedOffBy' | 'overrideReason' | 'overrideBlockers'
+  >,
+): SignOff | null {
   if (!s.signedOffAt) return null;
   return {
     by: s.signedOffBy,
@@ -132,21 +138,16 @@ export function summarize(step: Step): StepSummary {
 }
 
 /**
- * The summaries of every step a caller may see, for job lists, in two
- * statements whatever the build's size: steps with checklist counts, sign-off
- * and override (shop filter included), and specs with their current readings,
- * judged here alike with the full step view. A shop's steps are numbered as it
- * sees them (numberAsSeen).
+ * The summaries of a job list's steps (the steps a caller may see, with checklist counts:
+ * jobsRepo.listJobsWithSteps), their fastener progress judged here from the specs' current
+ * readings (fastenersRepo.listSpecsWithCurrentReadings) alike with the full step view.
  */
-export async function summariesForBuild({ knex, buildId, caller }: BuildScope) {
-  const [steps, specs] = await Promise.all([
-    stepsRepo.listStepsWithCounts(knex, buildId, {
-      shopUserId: caller.role === 'shop' ? caller.userId : undefined,
-    }),
-    fastenersRepo.listSpecsWithCurrentReadings(knex, buildId),
-  ]);
-  const summaries = steps.map((s): StepSummary => {
-    const mine = specs.filter((f) => f.spec.stepId === s.id);
+export function summarizeSteps(
+  steps: jobsRepo.StepCounts[],
+  specsByStep: Map<string, fastenersRepo.SpecWithCurrent[]>,
+): StepSummary[] {
+  return steps.map((s): StepSummary => {
+    const mine = specsByStep.get(s.id) ?? [];
     const current = mine.flatMap(({ spec, current }) =>
       current.filter((r) => r.position <= spec.count).map((r) => judgeTorque(r, spec).verdict),
     );
@@ -167,7 +168,6 @@ export async function summariesForBuild({ knex, buildId, caller }: BuildScope) {
       },
     };
   });
-  return caller.role === 'shop' ? numberAsSeen(summaries) : summaries;
 }
 
 /**

@@ -5,7 +5,7 @@ import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
 import type { StepStatus } from '../../../shared/schemas/install-log';
 import { iso, person } from './rows';
 
-type StepRow = {
+export type StepRow = {
   id: string;
   build_id: string;
   job_id: string;
@@ -57,43 +57,6 @@ export async function listSteps(knex: Knex, buildId: string, opts: { jobId?: str
   if (opts.jobId) q.where('s.job_id', opts.jobId);
   const rows: StepRow[] = await q;
   return rows.map(toStep);
-}
-
-export type StepWithCounts = StepRecord & { checklistDone: number; checklistTotal: number };
-
-/**
- * Every step of the build (for a shop: only those linked to a part sent to it)
- * with its checklist counts, in one statement: what a job list needs.
- */
-export async function listStepsWithCounts(
-  knex: Knex,
-  buildId: string,
-  opts: { shopUserId?: string } = {},
-): Promise<StepWithCounts[]> {
-  const q = steps(knex, buildId)
-    .select(
-      knex.raw(
-        '(select count(*) from install_checklist_items c where c.step_id = s.id)::int as checklist_total',
-      ),
-      knex.raw(
-        '(select count(*) from install_checklist_items c where c.step_id = s.id and c.done_at is not null)::int as checklist_done',
-      ),
-    )
-    .orderBy([{ column: 's.position' }, { column: 's.created_at' }]);
-  if (opts.shopUserId) {
-    q.whereExists(
-      knex('install_step_parts as sp')
-        .join('parts as p', 'p.id', 'sp.part_id')
-        .whereRaw('sp.step_id = s.id')
-        .where('p.shop_user_id', opts.shopUserId),
-    );
-  }
-  const rows: (StepRow & { checklist_total: number; checklist_done: number })[] = await q;
-  return rows.map((r) => ({
-    ...toStep(r),
-    checklistDone: r.checklist_done,
-    checklistTotal: r.checklist_total,
-  }));
 }
 
 export async function findStep(knex: Knex, buildId: string, stepId: string) {

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { namedRows } from '../../lib/named-query';
 import type {
   CreatePartInput,
   PartCategory,
@@ -126,22 +127,35 @@ export function toRow(input: UpdatePartInput) {
   return row;
 }
 
+/** Every column toRecord reads, written out (a named statement may not select `p.*`). */
+const partColumns = [
+  'p.id',
+  'p.build_id',
+  ...Object.values(columns).map((c) => `p.${c}`),
+  'p.created_at',
+  'p.updated_at',
+  's.display_name as shop_name',
+];
+
 function base(knex: Knex, buildId: string) {
   return knex('parts as p')
     .leftJoin('users as s', 's.id', 'p.shop_user_id')
     .where('p.build_id', buildId)
-    .select('p.*', 's.display_name as shop_name');
+    .select(partColumns);
 }
 
+/**
+ * The ledger's list, read on every visit: a named statement (planned once per connection).
+ * A null shop parameter switches the shop filter off, so one text serves every role.
+ */
+const listSql = `select ${partColumns.join(', ')}
+  from parts p left join users s on s.id = p.shop_user_id
+  where p.build_id = ? and (?::uuid is null or p.shop_user_id = ?)
+  order by p.category, p.created_at, p.name, p.id`;
+
 export async function listParts(knex: Knex, buildId: string, opts: { shopUserId?: string } = {}) {
-  const q = base(knex, buildId).orderBy([
-    { column: 'p.category' },
-    { column: 'p.created_at' },
-    { column: 'p.name' },
-    { column: 'p.id' },
-  ]);
-  if (opts.shopUserId) q.where('p.shop_user_id', opts.shopUserId);
-  const rows: Row[] = await q;
+  const shop = opts.shopUserId ?? null;
+  const rows = await namedRows<Row>(knex, 'parts-list', listSql, [buildId, shop, shop]);
   return rows.map(toRecord);
 }
 

@@ -5,6 +5,7 @@ import {
   updateMilestoneInputSchema,
 } from '../../../shared/schemas/timeline';
 import type { AppDeps } from '../../lib/deps';
+import { weakEtag } from '../../lib/etag';
 import { param, scoped } from '../../lib/scope';
 import { validate } from '../../middleware/validate';
 import * as calendar from './calendar.service';
@@ -84,7 +85,8 @@ export function calendarFeedsRouter({ db: { knex }, config }: AppDeps) {
   const router = Router();
   router.get('/:token/calendar.ics', async (req, res) => {
     const ics = await calendar.renderFeed(knex, param(req, 'token'), config.appUrl);
-    res.type('text/calendar; charset=utf-8').send(ics);
+    // Calendar apps poll the feed; a matching If-None-Match answers 304.
+    res.type('text/calendar; charset=utf-8').set('ETag', weakEtag(ics)).send(ics);
   });
   return router;
 }
