@@ -29,9 +29,8 @@ export function feedIcs(opts: {
   buildName: string;
   timeline: Timeline;
   appUrl: string;
-  now: Date;
 }): string {
-  const { buildId, buildName, timeline, appUrl, now } = opts;
+  const { buildId, buildName, timeline, appUrl } = opts;
   const host = new URL(appUrl).hostname;
   const calendar = ical({
     name: `${buildName} · Headroom`,
@@ -57,7 +56,9 @@ export function feedIcs(opts: {
       start: utcDay(item.date),
       end: utcDay(addDays(item.date, 1)),
       allDay: true,
-      stamp: now,
+      // The build's day rather than the second: the feed's text, and so its ETag, stays the
+      // same between polls until something in it changes (or the day does).
+      stamp: utcDay(timeline.today),
       summary: summaries[item.kind](item),
       description,
       url: appUrl + linkPath(buildId, item.link),

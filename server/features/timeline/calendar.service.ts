@@ -44,5 +44,5 @@ export async function renderFeed(knex: Knex, token: string, appUrl: string, now 
   if (!feed || !role) throw notFound;
   const scope: BuildScope = { knex, buildId: feed.buildId, caller: { userId: feed.userId, role } };
   const { build, timeline } = await loadTimeline(scope, now);
-  return feedIcs({ buildId: feed.buildId, buildName: build.name, timeline, appUrl, now });
+  return feedIcs({ buildId: feed.buildId, buildName: build.name, timeline, appUrl });
 }
