@@ -9,6 +9,8 @@ const apiProxy = {
 };
 
 export default defineConfig({
+  // Path aliases (@/, @shared/, @server/, @db/) come from tsconfig.json's paths.
+  resolve: { tsconfigPaths: true },
   plugins: [
     react(),
     // Installs as an app on a phone and opens without signal. The service worker keeps only

@@ -9,7 +9,7 @@
  */
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type BrowserContext, type Page } from '@playwright/test';
-import type { Role } from '../shared/permissions';
+import type { Role } from '@shared/permissions';
 import { ensureDemo, mailedLinks, signedInState, type MailedLinks } from './demo';
 import {
   members,

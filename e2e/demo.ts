@@ -8,10 +8,10 @@
 import { request } from '@playwright/test';
 import { randomBytes } from 'node:crypto';
 import knexFactory, { type Knex } from 'knex';
-import { knexConfig } from '../db/knexfile';
-import { demoAccounts, demoPassword, seedDemo } from '../db/seeds/demo';
-import type { Role } from '../shared/permissions';
-import { createLocalDiskStorage } from '../server/lib/storage';
+import { knexConfig } from '@db/knexfile';
+import { demoAccounts, demoPassword, seedDemo } from '@db/seeds/demo';
+import type { Role } from '@shared/permissions';
+import { createLocalDiskStorage } from '@server/lib/storage';
 import { postJson as post, signUpThroughApi, uniqueEmail } from './helpers';
 import { linkTo, waitForMail } from './mail';
 

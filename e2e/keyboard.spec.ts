@@ -5,7 +5,7 @@
  * focus, keeps it while Tab goes round, closes on Escape and hands focus back to its button.
  */
 import { expect, test, type BrowserContext, type Locator, type Page } from '@playwright/test';
-import type { Role } from '../shared/permissions';
+import type { Role } from '@shared/permissions';
 import { ensureDemo, signedInState, type Demo } from './demo';
 import { postJson, signUpThroughApi } from './helpers';
 import { joinByInvitation } from './mail';

@@ -7,8 +7,8 @@
  * of a new module shows realistic content once the demo seed gives it some.
  */
 import { expect, type Locator, type Page } from '@playwright/test';
-import type { Role } from '../shared/permissions';
-import { paths } from '../src/config/paths';
+import type { Role } from '@shared/permissions';
+import { paths } from '@/config/paths';
 import type { Demo, MailedLinks } from './demo';
 
 /** A member of the demo build in that role, or a signed-out visitor. */

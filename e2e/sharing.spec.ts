@@ -6,7 +6,7 @@
  */
 import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
-import { paths } from '../src/config/paths';
+import { paths } from '@/config/paths';
 import { ensureDemo, signedInState } from './demo';
 import { postJson, signUpThroughApi } from './helpers';
 

@@ -5,7 +5,7 @@
  * milestone is added and ticked off, and a calendar link is made and answers iCalendar.
  */
 import { expect, test, type Page } from '@playwright/test';
-import { addDays, todayIn } from '../shared/dates';
+import { addDays, todayIn } from '@shared/dates';
 import { postJson, signUpThroughPage, uniqueEmail } from './helpers';
 
 const zone = 'America/Denver';

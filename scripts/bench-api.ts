@@ -17,9 +17,9 @@ import path from 'node:path';
 import { parseArgs } from 'node:util';
 import autocannon from 'autocannon';
 import knexFactory from 'knex';
-import { knexConfig } from '../db/knexfile';
-import { seedDemo } from '../db/seeds/demo';
-import { createLocalDiskStorage } from '../server/lib/storage';
+import { knexConfig } from '@db/knexfile';
+import { seedDemo } from '@db/seeds/demo';
+import { createLocalDiskStorage } from '@server/lib/storage';
 import { createPgCluster, freePort } from './lib/pg-cluster';
 import { clusterPids, cpuMsOf, rssOf } from './bench/proc';
 

@@ -11,9 +11,9 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium } from '@playwright/test';
 import knexFactory from 'knex';
-import { knexConfig } from '../db/knexfile';
-import { seedDemo } from '../db/seeds/demo';
-import { createLocalDiskStorage } from '../server/lib/storage';
+import { knexConfig } from '@db/knexfile';
+import { seedDemo } from '@db/seeds/demo';
+import { createLocalDiskStorage } from '@server/lib/storage';
 import { createPgCluster, freePort } from './lib/pg-cluster';
 
 const root = path.resolve(import.meta.dirname, '..');

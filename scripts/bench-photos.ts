@@ -8,7 +8,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
-import { processPhoto } from '../server/features/photos/photos.images';
+import { processPhoto } from '@server/features/photos/photos.images';
 
 const runs = 7;
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-bench-photos-'));

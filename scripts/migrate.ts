@@ -1,6 +1,6 @@
 // Brings the database in DATABASE_URL to the latest migration.
 import knexFactory from 'knex';
-import { knexConfig } from '../db/knexfile';
+import { knexConfig } from '@db/knexfile';
 
 const url = process.env.DATABASE_URL;
 if (!url) {

@@ -1,9 +1,9 @@
 // Seeds the demo build when the database has no users yet; never touches real data.
 import knexFactory from 'knex';
-import { knexConfig } from '../db/knexfile';
-import { seedDemo } from '../db/seeds/demo';
-import { createStorage } from '../server/lib/stores';
-import { objectStoreFromEnv } from '../server/storage-config';
+import { knexConfig } from '@db/knexfile';
+import { seedDemo } from '@db/seeds/demo';
+import { createStorage } from '@server/lib/stores';
+import { objectStoreFromEnv } from '@server/storage-config';
 
 const url = process.env.DATABASE_URL;
 if (!url) {

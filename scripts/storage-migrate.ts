@@ -7,9 +7,9 @@
 // when any file failed.
 import path from 'node:path';
 import { parseArgs } from 'node:util';
-import { createLocalDiskStorage } from '../server/lib/storage';
-import { createS3Storage } from '../server/lib/storage-s3';
-import { objectStoreFromEnv, type ObjectStoreSettings } from '../server/storage-config';
+import { createLocalDiskStorage } from '@server/lib/storage';
+import { createS3Storage } from '@server/lib/storage-s3';
+import { objectStoreFromEnv, type ObjectStoreSettings } from '@server/storage-config';
 import { migrateStorage } from './lib/storage-migrate';
 
 const { values: args } = parseArgs({

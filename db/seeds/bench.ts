@@ -10,10 +10,10 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import sharp from 'sharp';
-import { createBenchSheetInputSchema } from '../../shared/schemas/bench';
-import * as bench from '../../server/features/bench/bench.repository';
-import { processPhoto } from '../../server/features/photos/photos.images';
-import type { Storage } from '../../server/lib/storage';
+import { createBenchSheetInputSchema } from '@shared/schemas/bench';
+import * as bench from '@server/features/bench/bench.repository';
+import { processPhoto } from '@server/features/photos/photos.images';
+import type { Storage } from '@server/lib/storage';
 
 type Ids = { buildId: string; userIds: Record<string, string>; day: (offset: number) => string };
 

@@ -4,8 +4,8 @@
  * addresses use the reserved example.test domain.
  */
 import type { Knex } from 'knex';
-import { hashPassword } from '../../server/lib/auth';
-import { createLocalDiskStorage, type Storage } from '../../server/lib/storage';
+import { hashPassword } from '@server/lib/auth';
+import { createLocalDiskStorage, type Storage } from '@server/lib/storage';
 import { seedBench } from './bench';
 import { seedDyno } from './dyno';
 import { seedInstallLog } from './install-log';

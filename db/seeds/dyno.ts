@@ -8,10 +8,10 @@
  */
 import type { Knex } from 'knex';
 import sharp from 'sharp';
-import type { CurveRow } from '../../shared/schemas/dyno';
-import * as runs from '../../server/features/dyno/runs.repository';
-import * as sessions from '../../server/features/dyno/sessions.repository';
-import type { Storage } from '../../server/lib/storage';
+import type { CurveRow } from '@shared/schemas/dyno';
+import * as runs from '@server/features/dyno/runs.repository';
+import * as sessions from '@server/features/dyno/sessions.repository';
+import type { Storage } from '@server/lib/storage';
 
 type Ids = { buildId: string; userIds: Record<string, string> };
 

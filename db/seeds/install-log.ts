@@ -12,10 +12,10 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import sharp from 'sharp';
-import { processPhoto } from '../../server/features/photos/photos.images';
-import { insertPhotos, type NewPhoto } from '../../server/features/photos/photos.repository';
-import type { Storage } from '../../server/lib/storage';
-import { calibrationDueOn, defaultCalibrationMonths } from '../../shared/install-log/wrenches';
+import { processPhoto } from '@server/features/photos/photos.images';
+import { insertPhotos, type NewPhoto } from '@server/features/photos/photos.repository';
+import type { Storage } from '@server/lib/storage';
+import { calibrationDueOn, defaultCalibrationMonths } from '@shared/install-log/wrenches';
 
 const demoSource = (section: string) =>
   `Maker's service manual, ${section} — owner's entry. Demo values only: use your own service information.`;

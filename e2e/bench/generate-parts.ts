@@ -4,7 +4,7 @@ import {
   ratingUnits,
   type Part,
   type PartStatus,
-} from '../../shared/schemas/parts';
+} from '@shared/schemas/parts';
 
 /** A small seeded generator, so every run measures the same ledger. */
 function mulberry32(seed: number) {

@@ -7,13 +7,13 @@
 import '@fontsource/source-sans-3/400.css';
 import '@fontsource/source-sans-3/600.css';
 import '@fontsource/source-sans-3/700.css';
-import '../../src/styles.css';
+import '@/styles.css';
 import { StrictMode } from 'react';
 import { createRoot, type Root } from 'react-dom/client';
 import { flushSync } from 'react-dom';
-import type { Part } from '../../shared/schemas/parts';
-import { PartsLedger } from '../../src/features/parts/components/parts-ledger';
-import type { LedgerActions } from '../../src/features/parts/components/parts-columns';
+import type { Part } from '@shared/schemas/parts';
+import { PartsLedger } from '@/features/parts/components/parts-ledger';
+import type { LedgerActions } from '@/features/parts/components/parts-columns';
 import { generateParts } from './generate-parts';
 
 const actions: LedgerActions = {

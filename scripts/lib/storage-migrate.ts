@@ -5,8 +5,8 @@
  * and checksum is left alone, anything else is copied (again). Local files are
  * removed only when asked, and only after their copy was read back whole.
  */
-import type { LocalDiskStorage, Storage } from '../../server/lib/storage';
-import { sha256Hex } from '../../server/lib/storage';
+import type { LocalDiskStorage, Storage } from '@server/lib/storage';
+import { sha256Hex } from '@server/lib/storage';
 
 export type MigrationTarget = Storage & Required<Pick<Storage, 'head'>>;
 

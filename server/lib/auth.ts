@@ -7,7 +7,7 @@ import { NodePostgresAdapter } from '@lucia-auth/adapter-postgresql';
 import { Lucia, TimeSpan } from 'lucia';
 import type { Request, Response } from 'express';
 import type pg from 'pg';
-import type { Role } from '../../shared/permissions';
+import type { Role } from '@shared/permissions';
 import * as sessionsRepo from './sessions.repository';
 
 export const SESSION_COOKIE = 'headroom_session';

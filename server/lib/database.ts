@@ -1,6 +1,6 @@
 import knexFactory, { type Knex } from 'knex';
 import pg from 'pg';
-import { knexConfig } from '../../db/knexfile';
+import { knexConfig } from '@db/knexfile';
 
 // bigint (money in cents) and numeric come back from pg as strings; ours fit in a double.
 pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));

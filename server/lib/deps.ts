@@ -3,8 +3,8 @@
  * features depend on lib and never on the app that assembles them.
  */
 import type { RequestHandler } from 'express';
-import type { Action } from '../../shared/permissions';
-import type { AppConfig } from '../config';
+import type { Action } from '@shared/permissions';
+import type { AppConfig } from '@server/config';
 import type { Sessions } from './auth';
 import type { Database } from './database';
 import type { Logger } from './logger';

@@ -15,7 +15,7 @@ import {
   idempotencyKeepDays,
   idempotencyKeyHeader,
   idempotencyKeySchema,
-} from '../../shared/schemas/idempotency';
+} from '@shared/schemas/idempotency';
 import { AppError, ValidationError } from './errors';
 import * as repo from './idempotency.repository';
 import { scopeOf, type BuildScope } from './scope';

@@ -3,7 +3,7 @@
  * nodemailer exists. Without SMTP settings it talks to the local catcher.
  */
 import nodemailer from 'nodemailer';
-import type { MailConfig } from '../config';
+import type { MailConfig } from '@server/config';
 
 export type OutgoingMail = { to: string; subject: string; text: string; html: string };
 

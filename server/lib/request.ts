@@ -1,4 +1,4 @@
-import type { Role } from '../../shared/permissions';
+import type { Role } from '@shared/permissions';
 import type { SessionMembership, SessionUser } from './auth';
 import type { BuildRowJson } from './sessions.repository';
 

@@ -4,8 +4,8 @@
  */
 import type { Request, RequestHandler, Response } from 'express';
 import type { Knex } from 'knex';
-import type { Role } from '../../shared/permissions';
-import { idSchema } from '../../shared/schemas/common';
+import type { Role } from '@shared/permissions';
+import { idSchema } from '@shared/schemas/common';
 import { NotFoundError } from './errors';
 
 /** Who is asking, with their role on the build in the path. */

@@ -9,7 +9,7 @@
  * every request.
  */
 import type pg from 'pg';
-import type { Role } from '../../shared/permissions';
+import type { Role } from '@shared/permissions';
 
 export type SessionRow = {
   id: string;

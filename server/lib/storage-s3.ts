@@ -22,7 +22,7 @@ import {
   type S3ClientConfig,
 } from '@aws-sdk/client-s3';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
-import type { ObjectStoreSettings } from '../storage-config';
+import type { ObjectStoreSettings } from '@server/storage-config';
 import { assertValidKey, sha256Hex, StorageUnavailableError, type Storage } from './storage';
 
 export type S3Storage = Storage &

@@ -1,5 +1,5 @@
 /** The store the settings choose: the object store with STORAGE=s3, else the local disk. */
-import type { ObjectStoreSettings } from '../storage-config';
+import type { ObjectStoreSettings } from '@server/storage-config';
 import { createLocalDiskStorage, type Storage } from './storage';
 import { createS3Storage } from './storage-s3';
 

@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
-import { can, type Role } from '../../shared/permissions';
-import { idSchema } from '../../shared/schemas/common';
-import type { BuildAccess } from '../lib/deps';
-import { ForbiddenError, NotFoundError, UnauthorizedError } from '../lib/errors';
+import { can, type Role } from '@shared/permissions';
+import { idSchema } from '@shared/schemas/common';
+import type { BuildAccess } from '@server/lib/deps';
+import { ForbiddenError, NotFoundError, UnauthorizedError } from '@server/lib/errors';
 
 /** How the access check learns a member's role; the members feature supplies it. */
 export type FindRole = (knex: Knex, buildId: string, userId: string) => Promise<Role | undefined>;

@@ -1,10 +1,10 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { MulterError } from 'multer';
 import { ZodError } from 'zod';
-import { isDatabaseUnavailable } from '../lib/database';
-import { AppError, fieldsFromZod } from '../lib/errors';
-import type { Logger } from '../lib/logger';
-import { isStorageUnavailable } from '../lib/storage';
+import { isDatabaseUnavailable } from '@server/lib/database';
+import { AppError, fieldsFromZod } from '@server/lib/errors';
+import type { Logger } from '@server/lib/logger';
+import { isStorageUnavailable } from '@server/lib/storage';
 
 export const notFoundApi: RequestHandler = (req, res) => {
   res

@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import { stripMoney } from '../lib/money-filter';
+import { stripMoney } from '@server/lib/money-filter';
 
 /**
  * Wraps res.json so that when an access check has set res.locals.hideMoney, the

@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import { AppError } from '../lib/errors';
+import { AppError } from '@server/lib/errors';
 
 const stateChanging = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 

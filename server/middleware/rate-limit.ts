@@ -1,7 +1,7 @@
 import type { Request } from 'express';
 import { rateLimit, type Store, type ClientRateLimitInfo } from 'express-rate-limit';
 import type { Knex } from 'knex';
-import * as counters from '../lib/rate-limit.repository';
+import * as counters from '@server/lib/rate-limit.repository';
 
 /** Counters in PostgreSQL, shared by every app process and kept across restarts. */
 class PostgresStore implements Store {

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
-import type { Logger } from '../lib/logger';
-import { redactTokens } from '../lib/tokens';
+import type { Logger } from '@server/lib/logger';
+import { redactTokens } from '@server/lib/tokens';
 
 /**
  * One short line a request, once its answer has gone (or the client left):

@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
-import type { Sessions } from '../lib/auth';
-import { recordedByHeader } from '../../shared/idempotency';
-import { UnauthorizedError } from '../lib/errors';
+import type { Sessions } from '@server/lib/auth';
+import { recordedByHeader } from '@shared/idempotency';
+import { UnauthorizedError } from '@server/lib/errors';
 
 // /builds/<uuid>… relative to /api: the build a request is about, looked up with the session.
 const buildInPath =

@@ -1,7 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
-import { nulMessage } from '../../shared/schemas/common';
-import { ValidationError } from '../lib/errors';
+import { nulMessage } from '@shared/schemas/common';
+import { ValidationError } from '@server/lib/errors';
 
 /** The path of the first string (or key) holding U+0000, which PostgreSQL cannot store. */
 export function findNul(value: unknown, path: string[] = []): string | null {

@@ -31,7 +31,7 @@ import type {
   ReturnFlowCheck,
   SheetStatus,
   TestPoint,
-} from '../schemas/bench';
+} from '@shared/schemas/bench';
 import { BENCH_MAX_CYLINDERS } from './limits';
 import { BENCH_EDGE_EPSILON, WORN_RETURN_FLOW_RATIO } from './points';
 import { benchStatistics, median } from './statistics';

@@ -9,7 +9,7 @@ import {
   type BenchComparison,
   type BenchStatistics,
   type PointComparison,
-} from '../schemas/bench';
+} from '@shared/schemas/bench';
 import { valuesByPosition, type BenchPointInput } from './analyse';
 import { BENCH_MAX_CYLINDERS } from './limits';
 import { benchStatistics } from './statistics';

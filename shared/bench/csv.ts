@@ -16,7 +16,7 @@
  * ambiguous. Thousands separators are not accepted.
  */
 import Papa from 'papaparse';
-import { normalizeLabel, type BenchCellError } from '../schemas/bench';
+import { normalizeLabel, type BenchCellError } from '@shared/schemas/bench';
 import { BENCH_MAX_CYLINDERS, BENCH_MAX_VALUE } from './limits';
 
 export type { BenchCellError };

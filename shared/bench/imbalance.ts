@@ -18,7 +18,7 @@ import type {
   BenchWorkingStep,
   ImbalanceCost,
   ImbalanceRecovery,
-} from '../schemas/bench';
+} from '@shared/schemas/bench';
 import { analyseBenchPoint, type BenchPointInput } from './analyse';
 import { BENCH_MAX_CYLINDERS } from './limits';
 import { benchUnitLabels } from './units';

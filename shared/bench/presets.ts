@@ -1,5 +1,5 @@
 /** Ready-made test points for a new sheet (they need the sheet schema's types, so they live apart from points.ts). */
-import type { TestPointInput } from '../schemas/bench';
+import type { TestPointInput } from '@shared/schemas/bench';
 import {
   defaultToleranceFor,
   defaultUnitOfKind,

@@ -18,7 +18,7 @@
  * NumAcc1, 10000001, 10000003, 10000002, must give a sample SD of exactly 1;
  * the same set shifted to 1e12 gives NaN one-pass).
  */
-import type { BenchStatistics } from '../schemas/bench';
+import type { BenchStatistics } from '@shared/schemas/bench';
 
 export type { BenchStatistics };
 

@@ -11,8 +11,8 @@
  * - ml/min at a stated stroke rate: mm³/stroke = ml/min × 1000 ÷ strokes/min.
  *   Without the stroke rate ml/min cannot be turned into a volume per stroke.
  */
-import { convertPressure } from '../units/convert';
-import { labelsOf } from '../units/labels';
+import { convertPressure } from '@shared/units/convert';
+import { labelsOf } from '@shared/units/labels';
 
 /** Units of delivered (or returned) volume. */
 export const benchFlowUnits = ['mm3-per-stroke', 'ml-per-1000-strokes', 'ml-per-min'] as const;

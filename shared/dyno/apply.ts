@@ -3,7 +3,7 @@
  * corrected power = factor × measured power, and corrected torque = factor ×
  * measured torque (a correction scales the whole curve: rpm does not change).
  */
-import type { BsfcUnit } from '../units/convert';
+import type { BsfcUnit } from '@shared/units/convert';
 import {
   basisForDynoKind,
   type CorrectedRun,
@@ -16,7 +16,7 @@ import {
   type PowerBasis,
   type RunPeaks,
   type Weather,
-} from '../schemas/dyno';
+} from '@shared/schemas/dyno';
 import { correctionFactor } from './correction';
 import { completeCurve, curvePeaks } from './curve';
 import { dynoFigure, fmt, step, withUnit, working } from './working';

@@ -6,8 +6,8 @@
  * air and power") — so every conversion names the loss it used. Losses are
  * percentages here, as the estimator's `drivetrainLossPct`.
  */
-import { convertPower } from '../units/convert';
-import type { DynoFigure, DynoPowerUnit, PowerBasis } from '../schemas/dyno';
+import { convertPower } from '@shared/units/convert';
+import type { DynoFigure, DynoPowerUnit, PowerBasis } from '@shared/schemas/dyno';
 import { assertFinite, dynoFigure, fmt, step, withUnit, working } from './working';
 
 /** A power with its unit and where it was measured or meant. */

@@ -5,14 +5,14 @@
  * or the estimate's — moving a measured figure across with the drivetrain
  * loss when the bases differ (shared/dyno/basis.ts), and in hp.
  */
-import { convertPower } from '../units/convert';
+import { convertPower } from '@shared/units/convert';
 import type {
   CorrectedRun,
   DynoFigure,
   DynoWorkingInput,
   PowerBasis,
   RunStatus,
-} from '../schemas/dyno';
+} from '@shared/schemas/dyno';
 import { convertBasis, type PowerAt } from './basis';
 import { dynoFigure, fmt, step, withUnit, working } from './working';
 

@@ -33,7 +33,7 @@ import {
   convertPressure,
   convertTemperature,
   type BsfcUnit,
-} from '../units/convert';
+} from '@shared/units/convert';
 import {
   correctionStandardLabels,
   engineFactorLimits,
@@ -49,7 +49,7 @@ import {
   type PowerBasis,
   type Weather,
   type WorkingConstant,
-} from '../schemas/dyno';
+} from '@shared/schemas/dyno';
 import { ambientFromWeather, type Ambient } from './vapour-pressure';
 import { assertFinite, fmt, step, withUnit, working } from './working';
 

@@ -37,7 +37,7 @@ import {
   type DynoTorqueUnit,
   type MixtureKind,
   type RunUnits,
-} from '../schemas/dyno';
+} from '@shared/schemas/dyno';
 import { isSortedByRpm, sortCurve } from './curve';
 
 type Field = 'rpm' | 'power' | 'torque' | 'boost' | 'egt' | 'mixture';

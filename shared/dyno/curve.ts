@@ -4,14 +4,14 @@
  * trade's units hp = T[lbf·ft] × rpm / 5252.1131220 (33000/2π), in SI
  * kW = T[N·m] × rpm / 9549.2965855 (60000/2π) — shared/units/power-torque.
  */
-import { powerFromTorque, torqueFromPower } from '../units/power-torque';
+import { powerFromTorque, torqueFromPower } from '@shared/units/power-torque';
 import type {
   CompletedCurveRow,
   CurveRow,
   DynoPowerUnit,
   DynoTorqueUnit,
   RunPeaks,
-} from '../schemas/dyno';
+} from '@shared/schemas/dyno';
 
 /** True when every row's rpm is at least the one before it. */
 export function isSortedByRpm(rows: readonly { rpm: number }[]): boolean {

@@ -17,7 +17,7 @@ import {
   type PowerBasis,
   type RunStatus,
   type Weather,
-} from '../schemas/dyno';
+} from '@shared/schemas/dyno';
 import { correctRunFor, runPeaks, type DynoRunData, type RunContext } from './apply';
 import { convertBasis, drivetrainLossSource, impliedDrivetrainLoss } from './basis';
 import {

@@ -27,14 +27,14 @@
  *
  * Dry-air pressure p_d = p − p_v (Dalton's law of partial pressures).
  */
-import { convertPressure, convertTemperature } from '../units/convert';
+import { convertPressure, convertTemperature } from '@shared/units/convert';
 import type {
   DynoFigure,
   DynoStep,
   DynoWorkingInput,
   Weather,
   WorkingConstant,
-} from '../schemas/dyno';
+} from '@shared/schemas/dyno';
 import { assertFinite, dynoFigure, fmt, step, withUnit, working } from './working';
 
 /** Coefficients of Buck's equation (see the module note for the source). */

@@ -9,8 +9,8 @@ import type {
   DynoWorking,
   DynoWorkingInput,
   WorkingConstant,
-} from '../schemas/dyno';
-import { unitLabels } from '../units/labels';
+} from '@shared/schemas/dyno';
+import { unitLabels } from '@shared/units/labels';
 
 /** Short labels for every unit id a dyno figure or working can carry. */
 export const dynoUnitLabels: Record<string, string> = {

@@ -4,8 +4,8 @@
  * so a citation or a range is corrected once. Sources are those of
  * ../shared/reference.md ("common practice" where no publication fixes a value).
  */
-import { LB_PER_HP_H_IN_G_PER_KWH } from '../units/constants';
-import { convertBsfc, type BsfcUnit } from '../units/convert';
+import { LB_PER_HP_H_IN_G_PER_KWH } from '@shared/units/constants';
+import { convertBsfc, type BsfcUnit } from '@shared/units/convert';
 
 export type AssumptionSpec = {
   label: string;

@@ -3,7 +3,7 @@
  * power"), as small pure functions the estimator composes. Four-stroke engine:
  * one injection per cylinder every two revolutions.
  */
-import { POUND_KG } from '../units/constants';
+import { POUND_KG } from '@shared/units/constants';
 
 /**
  * 120 = 60 s/min × 2 revolutions per injection (four-stroke cycle): a cylinder

@@ -52,9 +52,9 @@ import {
   LB_PER_HP_H_IN_G_PER_KWH,
   POUND_KG,
   US_GALLON_L,
-} from '../units/constants';
-import { convertBsfc } from '../units/convert';
-import { unitLabels } from '../units/labels';
+} from '@shared/units/constants';
+import { convertBsfc } from '@shared/units/convert';
+import { unitLabels } from '@shared/units/labels';
 import {
   STOICHIOMETRIC_AFR_DIESEL,
   assumptionSpecs,
@@ -69,7 +69,7 @@ import {
   fuelKgPerHFromPowerKw,
   lambdaFromAfr,
 } from './chains';
-import { partCategories, type PartCategory, type RatingUnit } from '../schemas/parts';
+import { partCategories, type PartCategory, type RatingUnit } from '@shared/schemas/parts';
 import type {
   ComponentNote,
   ComponentResult,
@@ -82,7 +82,7 @@ import type {
   RequirementKey,
   WorkingConstant,
   WorkingInput,
-} from '../schemas/estimate';
+} from '@shared/schemas/estimate';
 
 /** Short unit labels for every unit id a figure can carry. */
 export const figureUnitLabels: Record<string, string> = {

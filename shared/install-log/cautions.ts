@@ -7,7 +7,7 @@
  * linked to the step and the words it uses, and a ticked caution always shows. A step
  * nobody has ticked cautions for shows the suggestions.
  */
-import { partCategoryLabels, type PartCategory } from '../schemas/parts';
+import { partCategoryLabels, type PartCategory } from '@shared/schemas/parts';
 
 export const cautionIds = [
   'service-information',

@@ -11,8 +11,8 @@
  * target is far below any wrench's resolution (a 100 lbf·ft target gets
  * 0.0000001 lbf·ft of slack) and far above float error (~1e-16 relative).
  */
-import { convertTorque, torqueUnits, type TorqueUnit } from '../units/convert';
-import { labelsOf } from '../units/labels';
+import { convertTorque, torqueUnits, type TorqueUnit } from '@shared/units/convert';
+import { labelsOf } from '@shared/units/labels';
 
 export { convertTorque, torqueUnits, type TorqueUnit };
 

@@ -1,4 +1,4 @@
-import type { Budget, BudgetLine, PartCategory, PartStatus } from '../schemas/parts';
+import type { Budget, BudgetLine, PartCategory, PartStatus } from '@shared/schemas/parts';
 import { coreOwedCents, partTotalCents, type PartMoney } from './cost';
 
 type BudgetPart = PartMoney & {

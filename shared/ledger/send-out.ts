@@ -1,4 +1,4 @@
-import { addDays, daysBetween } from '../dates';
+import { addDays, daysBetween } from '@shared/dates';
 
 /**
  * A part out at a shop: days it has been away, the date it was promised back

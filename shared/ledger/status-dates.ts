@@ -3,7 +3,7 @@ import {
   type PartFields,
   type PartStatus,
   type UpdatePartInput,
-} from '../schemas/parts';
+} from '@shared/schemas/parts';
 
 type DateField = 'orderedOn' | 'receivedOn' | 'sentOutOn' | 'backOn' | 'installedOn';
 type PartDates = Partial<Pick<PartFields, 'status' | 'expectedOn' | DateField>>;

@@ -18,11 +18,11 @@ import {
   BENCH_MAX_POINTS,
   BENCH_MAX_VALUE,
   benchFluidTemperatureRangeC,
-} from '../bench/limits';
-import { testPointKinds, toleranceTypes, unitFamilyOfKind } from '../bench/points';
-import { benchUnits, isFlowUnit, isPressureUnit } from '../bench/units';
-import { convertTemperature } from '../units/convert';
-import { labelsOf } from '../units/labels';
+} from '@shared/bench/limits';
+import { testPointKinds, toleranceTypes, unitFamilyOfKind } from '@shared/bench/points';
+import { benchUnits, isFlowUnit, isPressureUnit } from '@shared/bench/units';
+import { convertTemperature } from '@shared/units/convert';
+import { labelsOf } from '@shared/units/labels';
 import { powerBases } from './builds';
 import { idSchema, isoDateSchema, trimmed } from './common';
 import { workingConstantSchema } from './estimate';

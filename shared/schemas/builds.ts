@@ -1,12 +1,17 @@
 import { z } from 'zod';
-import { roles } from '../permissions';
+import { roles } from '@shared/permissions';
 import { centsSchema, currencies, currencySchema, isoDateSchema, trimmed } from './common';
 import { hasAtMostDecimals } from './precision';
 import { timeZoneSchema } from './time-zone';
-import { maxCalibrationMonths, minCalibrationMonths } from '../install-log/wrenches';
+import { maxCalibrationMonths, minCalibrationMonths } from '@shared/install-log/wrenches';
 
-export { aspirationLabels, aspirations, powerBases, powerBasisLabels } from '../builds/vocabulary';
-import { aspirations, powerBases } from '../builds/vocabulary';
+export {
+  aspirationLabels,
+  aspirations,
+  powerBases,
+  powerBasisLabels,
+} from '@shared/builds/vocabulary';
+import { aspirations, powerBases } from '@shared/builds/vocabulary';
 
 const optionalNumber = (schema: z.ZodNumber) => schema.nullable().optional();
 

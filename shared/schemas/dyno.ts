@@ -21,7 +21,7 @@ export {
   correctionStandardLabels,
   correctionStandards,
   type CorrectionStandard,
-} from '../dyno/vocabulary';
+} from '@shared/dyno/vocabulary';
 import {
   convertPressure,
   convertTemperature,
@@ -29,10 +29,10 @@ import {
   type PressureUnit,
   type TemperatureUnit,
   type TorqueUnit,
-} from '../units/convert';
-import { labelsOf, unitLabels } from '../units/labels';
+} from '@shared/units/convert';
+import { labelsOf, unitLabels } from '@shared/units/labels';
 import { aspirations, powerBases } from './builds';
-import { DEFAULT_CORRECTION_STANDARD, correctionStandards } from '../dyno/vocabulary';
+import { DEFAULT_CORRECTION_STANDARD, correctionStandards } from '@shared/dyno/vocabulary';
 import { idSchema, isoDateSchema, trimmed } from './common';
 import { workingConstantSchema } from './estimate';
 

@@ -10,9 +10,9 @@ import {
   bsfcRangeMessage,
   defaultBsfc,
   type AssumptionSpec,
-} from '../estimate/assumptions';
-import { labelsOf } from '../units/labels';
-import { bsfcUnits, type BsfcUnit } from '../units/convert';
+} from '@shared/estimate/assumptions';
+import { labelsOf } from '@shared/units/labels';
+import { bsfcUnits, type BsfcUnit } from '@shared/units/convert';
 import { powerBases } from './builds';
 import { trimmed } from './common';
 import { partCategories, ratingUnits } from './parts';

@@ -5,7 +5,7 @@
  */
 import { z } from 'zod';
 
-export { idempotencyKeepDays, idempotencyKeyHeader } from '../idempotency';
+export { idempotencyKeepDays, idempotencyKeyHeader } from '@shared/idempotency';
 
 export const idempotencyKeySchema = z.uuid({
   message: 'Send a UUID (a new one for each write, the same one when sending it again)',

@@ -8,11 +8,16 @@ import {
   choosableCautionIds,
   type Caution,
   type ChoosableCautionId,
-} from '../install-log/cautions';
-import type { RetorqueState } from '../install-log/retorque';
-import type { SignOffBlocker } from '../install-log/sign-off';
-import type { Calibration } from '../install-log/wrenches';
-import { toleranceTypes, torqueUnits, type TorqueUnit, type Verdict } from '../install-log/torque';
+} from '@shared/install-log/cautions';
+import type { RetorqueState } from '@shared/install-log/retorque';
+import type { SignOffBlocker } from '@shared/install-log/sign-off';
+import type { Calibration } from '@shared/install-log/wrenches';
+import {
+  toleranceTypes,
+  torqueUnits,
+  type TorqueUnit,
+  type Verdict,
+} from '@shared/install-log/torque';
 import { idSchema, trimmed } from './common';
 
 /** Headroom's own words for where a step is. */

@@ -1,9 +1,9 @@
 import { z } from 'zod';
-import type { Role } from '../permissions';
+import type { Role } from '@shared/permissions';
 import { displayNameSchema, emailSchema, passwordSchema } from './auth';
 import { roleSchema } from './builds';
 
-export { invitationValidDays } from '../invitations/rules';
+export { invitationValidDays } from '@shared/invitations/rules';
 
 /** POST /api/builds/:buildId/invitations */
 export const createInvitationInputSchema = z

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { Role } from '../permissions';
+import type { Role } from '@shared/permissions';
 
 /** What a member can be told about by e-mail. */
 export const noticeKinds = [

@@ -6,9 +6,9 @@
  * private photos, or members' names unless the owner chose to show names.
  */
 import { z } from 'zod';
-import type { aspirations, powerBases } from '../builds/vocabulary';
+import type { aspirations, powerBases } from '@shared/builds/vocabulary';
 import type { PartCategory, PartStatus, RatingUnit } from './parts';
-import type { Role } from '../permissions';
+import type { Role } from '@shared/permissions';
 import { idSchema } from './common';
 
 type PowerBasis = (typeof powerBases)[number];
@@ -20,13 +20,13 @@ export {
   shareSections,
   type ShareSection,
   type ShareSections,
-} from '../sharing/vocabulary';
+} from '@shared/sharing/vocabulary';
 import {
   shareSectionLabels,
   shareSections,
   type ShareSection,
   type ShareSections,
-} from '../sharing/vocabulary';
+} from '@shared/sharing/vocabulary';
 
 const flag = (what: string) => z.boolean({ message: `${what}: choose on or off` });
 

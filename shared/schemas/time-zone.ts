@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { canonicalTimeZone, isTimeZone } from '../dates';
+import { canonicalTimeZone, isTimeZone } from '@shared/dates';
 
 /**
  * An IANA time zone name ("America/Denver"); a build's "today" is counted in it. Its own

@@ -5,7 +5,7 @@
  * count with in shared/dates.
  */
 import { z } from 'zod';
-import type { IsoDate } from '../dates';
+import type { IsoDate } from '@shared/dates';
 import { isoDateSchema, trimmed } from './common';
 import { timeZoneSchema } from './time-zone';
 

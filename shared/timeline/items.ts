@@ -4,9 +4,9 @@
  * so the calendar feed's UIDs stay the same from one fetch to the next and a
  * phone's calendar updates an event instead of adding a second one.
  */
-import type { IsoDate } from '../dates';
-import type { DynoKind } from '../schemas/dyno';
-import type { Threat, TimelineItem } from '../schemas/timeline';
+import type { IsoDate } from '@shared/dates';
+import type { DynoKind } from '@shared/schemas/dyno';
+import type { Threat, TimelineItem } from '@shared/schemas/timeline';
 import {
   awaitedStatuses,
   dueBackOf,

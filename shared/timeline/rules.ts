@@ -8,10 +8,10 @@
  * parts and send-outs should be back by then, leaving the buffer to fit them.
  * A date exactly on the cut-off is in time; one day later misses by one day.
  */
-import { addDays, daysBetween, laterOf, shortDate, dayCount, type IsoDate } from '../dates';
-import { sendOutStatus } from '../ledger/send-out';
-import type { PartStatus } from '../schemas/parts';
-import type { Readiness, Threat, TimelineLink } from '../schemas/timeline';
+import { addDays, daysBetween, laterOf, shortDate, dayCount, type IsoDate } from '@shared/dates';
+import { sendOutStatus } from '@shared/ledger/send-out';
+import type { PartStatus } from '@shared/schemas/parts';
+import type { Readiness, Threat, TimelineLink } from '@shared/schemas/timeline';
 
 /** Today and the owner's settings: everything the rules count with. */
 export type Clock = {

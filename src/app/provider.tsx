@@ -1,8 +1,8 @@
 import { Component, type ErrorInfo, type ReactNode } from 'react';
 import { QueryClientProvider } from '@tanstack/react-query';
-import { setUnauthorizedHandler } from '../lib/api-client';
-import { handleSessionEnded } from '../lib/auth';
-import { queryClient } from '../lib/query-client';
+import { setUnauthorizedHandler } from '@/lib/api-client';
+import { handleSessionEnded } from '@/lib/auth';
+import { queryClient } from '@/lib/query-client';
 
 // Any 401 outside sign-in means the session is gone: forget the user, and the route guard
 // sends them to sign in with ?next= pointing back here.

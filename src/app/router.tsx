@@ -1,10 +1,10 @@
 import { lazy } from 'react';
 import { createBrowserRouter, RouterProvider } from 'react-router-dom';
-import { paths } from '../config/paths';
-import { RequireAuth } from '../lib/auth';
-import { RootLayout } from '../components/layouts/root-layout';
-import { BuildsLayout } from '../components/layouts/builds-layout';
-import { BuildSectionLayout } from '../components/layouts/build-section-layout';
+import { paths } from '@/config/paths';
+import { RequireAuth } from '@/lib/auth';
+import { RootLayout } from '@/components/layouts/root-layout';
+import { BuildsLayout } from '@/components/layouts/builds-layout';
+import { BuildSectionLayout } from '@/components/layouts/build-section-layout';
 import { RouteErrorPage } from './routes/route-error';
 import { NotFoundRoute } from './routes/not-found';
 

@@ -1,4 +1,4 @@
-import { paths } from '../../shared/paths';
+import { paths } from '@shared/paths';
 
 export { paths };
 

@@ -1,4 +1,4 @@
-import type { ApiErrorBody } from '../../shared/schemas/common';
+import type { ApiErrorBody } from '@shared/schemas/common';
 import { noteServerDate } from './server-clock';
 
 /** An answer from the API that was not a success, or no answer at all (status 0). */

@@ -1,14 +1,14 @@
 import { useCallback, type ReactNode } from 'react';
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
-import type { User } from '../../shared/schemas/auth';
-import { getMeQueryOptions, useMe } from '../features/auth/api/get-me';
-import { paths } from '../config/paths';
-import { PageSpinner } from '../components/ui/spinner';
+import type { User } from '@shared/schemas/auth';
+import { getMeQueryOptions, useMe } from '@/features/auth/api/get-me';
+import { paths } from '@/config/paths';
+import { PageSpinner } from '@/components/ui/spinner';
 import { leaveDevice } from './offline-cache';
 import { currentQueue } from './offline-queue';
 import { CloudOff } from 'lucide-react';
-import { EmptyState, ErrorState } from '../components/ui/states';
+import { EmptyState, ErrorState } from '@/components/ui/states';
 
 const meKey = getMeQueryOptions().queryKey;
 

@@ -9,7 +9,7 @@
  */
 import { useSyncExternalStore } from 'react';
 import { createStore, del, entries, set, type UseStore } from 'idb-keyval';
-import { idempotencyKeyHeader, recordedByHeader } from '../../shared/idempotency';
+import { idempotencyKeyHeader, recordedByHeader } from '@shared/idempotency';
 import { queryClient } from './query-client';
 
 export type QueuedWrite = {

@@ -3,10 +3,10 @@ import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { seedDemo } from '../../db/seeds/demo';
-import * as benchService from '../../server/features/bench/bench.service';
-import { createLocalDiskStorage } from '../../server/lib/storage';
-import { BENCH_ORIGINAL_MAX_BYTES } from '../../shared/schemas/bench';
+import { seedDemo } from '@db/seeds/demo';
+import * as benchService from '@server/features/bench/bench.service';
+import { createLocalDiskStorage } from '@server/lib/storage';
+import { BENCH_ORIGINAL_MAX_BYTES } from '@shared/schemas/bench';
 import { useTestApp } from '../helpers/app';
 import { addMember, buildWithCast, moneyKeys, signUp, type TestUser } from '../helpers/factories';
 

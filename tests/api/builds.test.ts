@@ -9,8 +9,8 @@ import {
   signUp,
 } from '../helpers/factories';
 
-import { findBuildForUser } from '../../server/features/builds/builds.repository';
-import { stripMoney } from '../../server/lib/money-filter';
+import { findBuildForUser } from '@server/features/builds/builds.repository';
+import { stripMoney } from '@server/lib/money-filter';
 
 const app = useTestApp();
 

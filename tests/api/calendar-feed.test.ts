@@ -7,8 +7,8 @@
  */
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
-import { addDays, todayIn } from '../../shared/dates';
-import { hashToken } from '../../server/lib/tokens';
+import { addDays, todayIn } from '@shared/dates';
+import { hashToken } from '@server/lib/tokens';
 import { useTestApp, type Agent } from '../helpers/app';
 import { buildWithCast, type TestUser } from '../helpers/factories';
 

@@ -10,9 +10,9 @@ import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { seedDemo } from '../../db/seeds/demo';
-import { listSessions } from '../../server/features/dyno/sessions.service';
-import { createLocalDiskStorage } from '../../server/lib/storage';
+import { seedDemo } from '@db/seeds/demo';
+import { listSessions } from '@server/features/dyno/sessions.service';
+import { createLocalDiskStorage } from '@server/lib/storage';
 import { useTestApp, type Agent } from '../helpers/app';
 import { addMember, buildWithCast, moneyKeys, signUp, type TestUser } from '../helpers/factories';
 

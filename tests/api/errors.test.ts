@@ -85,10 +85,10 @@ describe('unknown routes and unexpected failures', () => {
 
   it('answers 503 from /api/health and a clean 503 JSON error elsewhere when the database does not answer', async () => {
     // A second app whose database URL points at a closed port.
-    const { createApp } = await import('../../server/app');
-    const { loadConfig } = await import('../../server/config');
-    const { createDatabase } = await import('../../server/lib/database');
-    const { createLogger } = await import('../../server/lib/logger');
+    const { createApp } = await import('@server/app');
+    const { loadConfig } = await import('@server/config');
+    const { createDatabase } = await import('@server/lib/database');
+    const { createLogger } = await import('@server/lib/logger');
     const supertest = (await import('supertest')).default;
     const config = {
       ...loadConfig({ ...process.env, DATABASE_URL: 'postgres://headroom@127.0.0.1:1/none' }),

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { estimateResultSchema } from '../../shared/schemas/estimate';
+import { estimateResultSchema } from '@shared/schemas/estimate';
 import { useTestApp, type TestApp } from '../helpers/app';
 import { buildInput, buildWithCast, createBuild, moneyKeys, signUp } from '../helpers/factories';
 

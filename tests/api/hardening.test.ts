@@ -4,7 +4,7 @@
  */
 import http from 'node:http';
 import { describe, expect, it } from 'vitest';
-import { passwordChecks } from '../../server/lib/auth';
+import { passwordChecks } from '@server/lib/auth';
 import { useTestApp } from '../helpers/app';
 import {
   addMember,

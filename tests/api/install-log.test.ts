@@ -2,11 +2,11 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { seedDemo } from '../../db/seeds/demo';
-import { listJobs } from '../../server/features/install-log/jobs.service';
-import { listRetorqueChecks } from '../../server/features/install-log/retorque.service';
-import { getStep } from '../../server/features/install-log/steps.service';
-import { createLocalDiskStorage } from '../../server/lib/storage';
+import { seedDemo } from '@db/seeds/demo';
+import { listJobs } from '@server/features/install-log/jobs.service';
+import { listRetorqueChecks } from '@server/features/install-log/retorque.service';
+import { getStep } from '@server/features/install-log/steps.service';
+import { createLocalDiskStorage } from '@server/lib/storage';
 import { useTestApp, type Agent } from '../helpers/app';
 import { addMember, buildWithCast, moneyKeys, signUp } from '../helpers/factories';
 

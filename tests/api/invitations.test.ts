@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { hashToken } from '../../server/lib/tokens';
+import { hashToken } from '@server/lib/tokens';
 import { useTestApp } from '../helpers/app';
 import {
   addMember,

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { claimDue, enqueueMail } from '../../server/features/mail/mail.repository';
-import { createMailWorker, defaultMaxAttempts } from '../../server/features/mail/mail.worker';
-import { createLogger } from '../../server/lib/logger';
-import { createMailer } from '../../server/lib/mailer';
+import { claimDue, enqueueMail } from '@server/features/mail/mail.repository';
+import { createMailWorker, defaultMaxAttempts } from '@server/features/mail/mail.worker';
+import { createLogger } from '@server/lib/logger';
+import { createMailer } from '@server/lib/mailer';
 import { useTestApp } from '../helpers/app';
 import { buildWithCast, signUp, uniqueEmail } from '../helpers/factories';
 import { readMailbox, recipients } from '../helpers/mail';

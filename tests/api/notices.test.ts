@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { noticeKindDefaults } from '../../shared/schemas/notices';
-import { notify } from '../../server/features/notices/notices.service';
+import { noticeKindDefaults } from '@shared/schemas/notices';
+import { notify } from '@server/features/notices/notices.service';
 import { useTestApp } from '../helpers/app';
 import { buildWithCast, addMember, signUp } from '../helpers/factories';
 

@@ -7,9 +7,9 @@
  */
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { createFileWorker, pendingKeys } from '../../server/features/files';
-import { createLogger } from '../../server/lib/logger';
-import { signedUrlGraceSeconds } from '../../server/lib/stored-file';
+import { createFileWorker, pendingKeys } from '@server/features/files';
+import { createLogger } from '@server/lib/logger';
+import { signedUrlGraceSeconds } from '@server/lib/stored-file';
 import { useTestApp, type TestApp } from '../helpers/app';
 import { buildWithCast, type TestUser } from '../helpers/factories';
 

@@ -5,9 +5,9 @@
  * (mail: true), so the pass sees only its own parts.
  */
 import { describe, expect, it } from 'vitest';
-import { createOverdueWorker, notifyOverdueParts } from '../../server/features/parts';
-import { createDatabase } from '../../server/lib/database';
-import { createLogger } from '../../server/lib/logger';
+import { createOverdueWorker, notifyOverdueParts } from '@server/features/parts';
+import { createDatabase } from '@server/lib/database';
+import { createLogger } from '@server/lib/logger';
 import { useTestApp } from '../helpers/app';
 import { buildWithCast } from '../helpers/factories';
 import { recipients } from '../helpers/mail';

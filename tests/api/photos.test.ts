@@ -2,8 +2,8 @@ import fs from 'node:fs';
 import path from 'node:path';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
-import { loadConfig } from '../../server/config';
-import { defaultPhotoMaxBytes } from '../../shared/schemas/photos';
+import { loadConfig } from '@server/config';
+import { defaultPhotoMaxBytes } from '@shared/schemas/photos';
 import { useTestApp, type TestApp } from '../helpers/app';
 import { buildWithCast } from '../helpers/factories';
 

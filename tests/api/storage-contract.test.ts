@@ -13,11 +13,11 @@ import type { AddressInfo } from 'node:net';
 import { HeadObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import express from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { errorHandler } from '../../server/middleware/error-handler';
-import { createLogger } from '../../server/lib/logger';
-import { createLocalDiskStorage, sha256Hex, type Storage } from '../../server/lib/storage';
-import { createS3Storage } from '../../server/lib/storage-s3';
-import { sendStoredFile, signedUrlGraceSeconds } from '../../server/lib/stored-file';
+import { errorHandler } from '@server/middleware/error-handler';
+import { createLogger } from '@server/lib/logger';
+import { createLocalDiskStorage, sha256Hex, type Storage } from '@server/lib/storage';
+import { createS3Storage } from '@server/lib/storage-s3';
+import { sendStoredFile, signedUrlGraceSeconds } from '@server/lib/stored-file';
 import { fakeCredentials, startFakeS3, type FakeS3 } from '../helpers/s3';
 
 type Subject = { storage: Storage; close: () => Promise<void>; fake?: FakeS3 };

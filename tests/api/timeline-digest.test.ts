@@ -4,10 +4,10 @@
  * even with two server processes passing at the same moment.
  */
 import { describe, expect, it } from 'vitest';
-import { createDatabase } from '../../server/lib/database';
-import { createLogger } from '../../server/lib/logger';
-import { claimWeek } from '../../server/features/timeline/digest.repository';
-import { createDigestWorker } from '../../server/features/timeline/digest.worker';
+import { createDatabase } from '@server/lib/database';
+import { createLogger } from '@server/lib/logger';
+import { claimWeek } from '@server/features/timeline/digest.repository';
+import { createDigestWorker } from '@server/features/timeline/digest.worker';
 import { useTestApp } from '../helpers/app';
 import { recipients } from '../helpers/mail';
 import { buildWithCast } from '../helpers/factories';

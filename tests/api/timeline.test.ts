@@ -2,11 +2,11 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { seedDemo } from '../../db/seeds/demo';
-import { getTimeline } from '../../server/features/timeline/timeline.service';
-import { createLocalDiskStorage } from '../../server/lib/storage';
-import { addDays, todayIn } from '../../shared/dates';
-import type { Timeline } from '../../shared/schemas/timeline';
+import { seedDemo } from '@db/seeds/demo';
+import { getTimeline } from '@server/features/timeline/timeline.service';
+import { createLocalDiskStorage } from '@server/lib/storage';
+import { addDays, todayIn } from '@shared/dates';
+import type { Timeline } from '@shared/schemas/timeline';
 import { useTestApp } from '../helpers/app';
 import { addMember, buildWithCast, createBuild, moneyKeys, signUp } from '../helpers/factories';
 

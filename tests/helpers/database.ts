@@ -5,7 +5,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import knexFactory from 'knex';
-import { knexConfig } from '../../db/knexfile';
+import { knexConfig } from '@db/knexfile';
 
 async function adminQuery(baseUrl: string, sql: string) {
   const admin = knexFactory(knexConfig(baseUrl));

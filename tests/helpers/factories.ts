@@ -1,7 +1,7 @@
 /** Factories: every test makes its own people and builds, with unique e-mails. */
 import { randomUUID } from 'node:crypto';
 import { expect } from 'vitest';
-import type { Role } from '../../shared/permissions';
+import type { Role } from '@shared/permissions';
 import type { Agent, TestApp } from './app';
 
 export const password = 'correct-horse-battery';

@@ -1,7 +1,7 @@
 // Migrates the test database once, before any test file runs, so parallel files
 // never race for knex's migration lock. npm test starts the throwaway cluster.
 import knexFactory from 'knex';
-import { knexConfig } from '../../db/knexfile';
+import { knexConfig } from '@db/knexfile';
 
 export default async function setup() {
   const url = process.env.DATABASE_URL;

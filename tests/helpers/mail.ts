@@ -11,13 +11,13 @@ import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import knexFactory from 'knex';
 import { simpleParser, type ParsedMail } from 'mailparser';
-import { knexConfig } from '../../db/knexfile';
-import type { AppConfig } from '../../server/config';
-import type { Database } from '../../server/lib/database';
-import { createLogger } from '../../server/lib/logger';
-import { startMailCatcher, type MailCatcher } from '../../server/lib/mail-catcher';
-import { createMailer } from '../../server/lib/mailer';
-import { createMailWorker, type MailWorker } from '../../server/features/mail/mail.worker';
+import { knexConfig } from '@db/knexfile';
+import type { AppConfig } from '@server/config';
+import type { Database } from '@server/lib/database';
+import { createLogger } from '@server/lib/logger';
+import { startMailCatcher, type MailCatcher } from '@server/lib/mail-catcher';
+import { createMailer } from '@server/lib/mailer';
+import { createMailWorker, type MailWorker } from '@server/features/mail/mail.worker';
 
 export type CaughtMessage = ParsedMail & { file: string; textBody: string };
 

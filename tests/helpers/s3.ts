@@ -11,7 +11,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { AddressInfo } from 'node:net';
 import S3rver from 's3rver';
-import type { ObjectStoreSettings } from '../../server/storage-config';
+import type { ObjectStoreSettings } from '@server/storage-config';
 
 export type FakeS3 = {
   endpoint: string;

@@ -10,8 +10,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { promisify } from 'node:util';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createLocalDiskStorage, sha256Hex } from '../../server/lib/storage';
-import { createS3Storage, type S3Storage } from '../../server/lib/storage-s3';
+import { createLocalDiskStorage, sha256Hex } from '@server/lib/storage';
+import { createS3Storage, type S3Storage } from '@server/lib/storage-s3';
 import { contentTypeFor, migrateStorage } from '../../scripts/lib/storage-migrate';
 import { fakeCredentials, startFakeS3, type FakeS3 } from '../helpers/s3';
 

@@ -23,7 +23,15 @@ function sourceFiles(dir: string): string[] {
 const files = folders.flatMap(sourceFiles);
 const fileSet = new Set(files);
 
-/** Relative imports of a file (static, re-exports, dynamic), resolved to project files. */
+/** tsconfig.json's path aliases (checked against it below), each with its folder. */
+const aliases: [alias: string, folder: string][] = [
+  ['@shared/', 'shared/'],
+  ['@server/', 'server/'],
+  ['@db/', 'db/'],
+  ['@/', 'src/'],
+];
+
+/** Project imports of a file (static, re-exports, dynamic; relative or by alias), resolved to files. */
 function importsOf(file: string): string[] {
   const text = fs.readFileSync(path.join(root, file), 'utf8');
   const specs = [
@@ -33,8 +41,11 @@ function importsOf(file: string): string[] {
   ].map((m) => m[1]);
   const out: string[] = [];
   for (const spec of specs) {
-    if (!spec.startsWith('.')) continue;
-    const base = path.normalize(path.join(path.dirname(file), spec));
+    const alias = aliases.find(([a]) => spec.startsWith(a));
+    if (!alias && !spec.startsWith('.')) continue;
+    const base = alias
+      ? alias[1] + spec.slice(alias[0].length)
+      : path.normalize(path.join(path.dirname(file), spec));
     const found = ['', '.ts', '.tsx', '/index.ts', '/index.tsx']
       .map((ext) => base + ext)
       .find((c) => fileSet.has(c));
@@ -87,6 +98,23 @@ describe('the import graph', () => {
     expect(graph.get('shared/units/index.ts')).toContain('shared/units/labels.ts');
   });
 
+  it("reads imports by the same aliases as tsconfig.json's paths", () => {
+    const tsconfig = JSON.parse(fs.readFileSync(path.join(root, 'tsconfig.json'), 'utf8'));
+    const paths = Object.entries(tsconfig.compilerOptions.paths as Record<string, string[]>).map(
+      ([alias, [folder]]) => [
+        alias.replace(/\*$/, ''),
+        folder.replace(/^\.\//, '').replace(/\*$/, ''),
+      ],
+    );
+    expect(new Set(paths.map((p) => p.join(' ')))).toEqual(
+      new Set(aliases.map((a) => a.join(' '))),
+    );
+    // Imports by alias are in the graph: the parts page reaches the parts ledger.
+    expect(graph.get('src/app/routes/builds/parts.tsx')).toContain(
+      'src/features/parts/components/parts-ledger.tsx',
+    );
+  });
+
   it('has no circle', () => {
     expect(circles(graph)).toEqual([]);
   });
@@ -133,18 +161,28 @@ describe('the import graph', () => {
 describe("ESLint's walls", () => {
   // Each wall of DEVELOPERS.md tried on a file that breaks it (and one that keeps to it).
   const cases: [file: string, imports: string, fails: boolean][] = [
+    ['src/features/parts/components/x.tsx', '@/features/budget/components/budget-charts', true],
+    ['src/features/parts/components/x.tsx', '@/features/budget/lib/time-axis', true],
     ['src/features/parts/components/x.tsx', '../../budget/components/budget-charts', true],
-    ['src/features/parts/components/x.tsx', '../../budget/lib/time-axis', true],
-    ['src/features/parts/api/x.ts', '../../../app/router', true],
-    ['src/features/parts/components/x.tsx', '../../budget/api/get-budget', false],
+    ['src/features/parts/api/x.ts', '@/app/router', true],
+    ['src/features/parts/components/x.tsx', '@/features/budget/api/get-budget', false],
     ['src/features/parts/components/x.tsx', '../lib/status', false],
-    ['src/components/ui/x.tsx', '../../features/parts/api/get-parts', true],
-    ['src/app/routes/builds/x.tsx', '../../../../server/app', true],
-    ['shared/x.ts', '../src/lib/dates', true],
+    ['src/components/ui/x.tsx', '@/features/parts/api/get-parts', true],
+    ['src/app/routes/builds/x.tsx', '@server/app', true],
+    ['src/app/routes/builds/x.tsx', '@db/knexfile', true],
+    ['shared/x.ts', '@/lib/dates', true],
     ['shared/x.ts', '../server/lib/errors', true],
     ['shared/x.ts', './dates', false],
-    ['server/features/parts/x.ts', '../budget/budget.service', true],
-    ['server/lib/x.ts', '../features/parts', true],
+    ['server/features/parts/x.ts', '@server/features/budget/budget.service', true],
+    ['server/features/parts/x.ts', '@server/features/budget', false],
+    ['server/features/parts/x.ts', '@server/app', true],
+    ['server/lib/x.ts', '@server/features/parts', true],
+    ['server/lib/x.ts', './errors', false],
+    ['db/migrations/x.ts', '@shared/format', true],
+    // Leaving a feature's folder (or any folder outside a feature) goes by alias, not '../'.
+    ['src/lib/x.ts', '../components/ui/button', true],
+    ['src/lib/x.ts', '@/components/ui/button', false],
+    ['server/features/parts/x.ts', '../../lib/errors', true],
   ];
 
   it(
@@ -158,7 +196,7 @@ describe("ESLint's walls", () => {
         const code = `import { a } from '${spec}';\nexport const b = a;\n`;
         const [result] = await eslint.lintText(code, { filePath: path.join(root, file) });
         const walls = result.messages.filter((m) =>
-          ['no-restricted-imports', 'house/client-layers'].includes(m.ruleId ?? ''),
+          ['no-restricted-imports', 'house/walls'].includes(m.ruleId ?? ''),
         );
         if (walls.length > 0 !== fails) verdicts.push(`${file} importing ${spec}`);
       }

@@ -1,10 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  benchValuesToCsv,
-  parseBenchCsv,
-  parsePastedGrid,
-  readBenchCell,
-} from '../../shared/bench';
+import { benchValuesToCsv, parseBenchCsv, parsePastedGrid, readBenchCell } from '@shared/bench';
 
 const points = [{ label: 'Full load' }, { label: 'Idle' }, { label: 'Return flow' }];
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { analyseBenchSheet } from '../../shared/bench';
-import { canChangeBenchSheet, canDeleteBenchSheet, roles } from '../../shared/permissions';
+import { analyseBenchSheet } from '@shared/bench';
+import { canChangeBenchSheet, canDeleteBenchSheet, roles } from '@shared/permissions';
 import {
   emptySheetForm,
   previewPoints,
@@ -9,7 +9,7 @@ import {
   toInput,
   withKind,
   type SheetForm,
-} from '../../src/features/bench/lib/sheet-form';
+} from '@/features/bench/lib/sheet-form';
 
 const partId = '5b0c7f0e-3c1a-4a52-9d4b-1f2e3d4c5b6a';
 

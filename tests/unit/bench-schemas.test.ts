@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { defaultTestPoints, testPointPreset } from '../../shared/bench';
+import { defaultTestPoints, testPointPreset } from '@shared/bench';
 import {
   benchCylinderIssues,
   benchSheetInputSchemaFor,
@@ -7,9 +7,9 @@ import {
   testPointSchema,
   updateBenchSheetInputSchema,
   updateBenchSheetInputSchemaFor,
-} from '../../shared/schemas/bench';
-import { fieldsFromZod } from '../../server/lib/errors';
-import { nulMessage } from '../../shared/schemas/common';
+} from '@shared/schemas/bench';
+import { fieldsFromZod } from '@server/lib/errors';
+import { nulMessage } from '@shared/schemas/common';
 
 const partId = '6f1c1f0e-8a4b-4c55-9d7e-2f0a1b2c3d4e';
 

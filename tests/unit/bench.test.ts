@@ -17,15 +17,15 @@ import {
   testPointPreset,
   toMm3PerStroke,
   type BenchPointInput,
-} from '../../shared/bench';
+} from '@shared/bench';
 import {
   benchComparisonSchema,
   benchSheetResultSchema,
   createBenchSheetInputSchema,
   imbalanceRecoverySchema,
   type TestPoint,
-} from '../../shared/schemas/bench';
-import { convertPressure } from '../../shared/units';
+} from '@shared/schemas/bench';
+import { convertPressure } from '@shared/units';
 
 function expectRel(actual: number | null, expected: number, rel: number) {
   expect(actual).not.toBeNull();

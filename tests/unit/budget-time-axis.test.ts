@@ -1,10 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  dayTime,
-  formatTick,
-  timeDomain,
-  timeTicks,
-} from '../../src/features/budget/lib/time-axis';
+import { dayTime, formatTick, timeDomain, timeTicks } from '@/features/budget/lib/time-axis';
 
 const day = 86_400_000;
 const iso = (t: number) => new Date(t).toISOString().slice(0, 10);

@@ -15,8 +15,8 @@ import {
   saturationVapourPressureKpa,
   vapourPressure,
   type EngineFactorRunInput,
-} from '../../shared/dyno';
-import type { Weather } from '../../shared/schemas/dyno';
+} from '@shared/dyno';
+import type { Weather } from '@shared/schemas/dyno';
 
 function expectRel(actual: number, expected: number, rel: number) {
   expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(

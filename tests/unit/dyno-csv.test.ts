@@ -7,13 +7,13 @@ import {
   type CurveCsvResult,
   type DynoRunData,
   type RunContext,
-} from '../../shared/dyno';
+} from '@shared/dyno';
 import {
   MAX_CURVE_ROWS,
   correctionStandards,
   type CurveRow,
   type RunUnits,
-} from '../../shared/schemas/dyno';
+} from '@shared/schemas/dyno';
 
 function ok(result: CurveCsvResult) {
   if (!result.ok) throw new Error(`expected the file to be read: ${JSON.stringify(result.errors)}`);

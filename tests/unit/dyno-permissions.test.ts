@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { can, roles } from '../../shared/permissions';
+import { can, roles } from '@shared/permissions';
 
 // Issue #10, "Who may": owner and crew record and assign, a shop records at its own dyno
 // (the service limits it to its sessions), a viewer reads, only the owner deletes.

@@ -5,8 +5,8 @@ import {
   withCurveBoost,
   withoutCurves,
   type ReportRunInput,
-} from '../../shared/dyno';
-import type { DynoPlan, Weather } from '../../shared/schemas/dyno';
+} from '@shared/dyno';
+import type { DynoPlan, Weather } from '@shared/schemas/dyno';
 
 function expectRel(actual: number, expected: number, rel = 1e-9) {
   expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(

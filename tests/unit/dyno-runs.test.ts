@@ -13,12 +13,8 @@ import {
   versusSupported,
   type DynoRunData,
   type RunForComparison,
-} from '../../shared/dyno';
-import {
-  correctedRunSchema,
-  correctionResultSchema,
-  type Weather,
-} from '../../shared/schemas/dyno';
+} from '@shared/dyno';
+import { correctedRunSchema, correctionResultSchema, type Weather } from '@shared/schemas/dyno';
 
 function expectRel(actual: number, expected: number, rel: number) {
   expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(

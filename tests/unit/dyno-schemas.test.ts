@@ -1,4 +1,4 @@
-import { nulMessage } from '../../shared/schemas/common';
+import { nulMessage } from '@shared/schemas/common';
 import { describe, expect, it } from 'vitest';
 import {
   MAX_CURVE_ROWS,
@@ -12,7 +12,7 @@ import {
   weatherSchema,
   type CreateDynoRunInput,
   type Weather,
-} from '../../shared/schemas/dyno';
+} from '@shared/schemas/dyno';
 
 /** The issues of a failed parse as "path: message". */
 function issuesOf(result: {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { completeCurve, curvePeaks } from '../../shared/dyno';
-import { convertPressure, convertTemperature } from '../../shared/units';
-import type { CurveRow } from '../../shared/schemas/dyno';
+import { completeCurve, curvePeaks } from '@shared/dyno';
+import { convertPressure, convertTemperature } from '@shared/units';
+import type { CurveRow } from '@shared/schemas/dyno';
 
 function expectRel(actual: number, expected: number, rel: number) {
   expect(Math.abs(actual - expected), `${actual} vs ${expected}`).toBeLessThanOrEqual(

@@ -8,17 +8,17 @@ import {
   fuelKgPerHFromAirLbPerMin,
   fuelKgPerHFromPowerKw,
   powerKwFromFuelKgPerH,
-} from '../../shared/estimate';
+} from '@shared/estimate';
 import {
   estimateRequestSchema,
   assumptionsInputSchema,
   type EstimateRequestInput,
   type EstimateResult,
   type Figure,
-} from '../../shared/schemas/estimate';
-import { ratingUnits, type PartCategory, type RatingUnit } from '../../shared/schemas/parts';
-import { convertPower } from '../../shared/units';
-import { formatFigure, formatHeadroom } from '../../src/features/estimate/format';
+} from '@shared/schemas/estimate';
+import { ratingUnits, type PartCategory, type RatingUnit } from '@shared/schemas/parts';
+import { convertPower } from '@shared/units';
+import { formatFigure, formatHeadroom } from '@/features/estimate/format';
 
 // reference.md's full value of lbf·ft → N·m (NIST SP 811 (2008) B.9, from the exact definitions);
 // parsed from text because the literal has one more digit than a double holds.

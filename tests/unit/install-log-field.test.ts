@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { cautionsForStep, suggestCautions } from '../../shared/install-log/cautions';
-import { cylinderNames, positionLabel, positionList } from '../../shared/install-log/positions';
-import { signOffBlockers } from '../../shared/install-log/sign-off';
-import { calibrationDueOn, calibrationOn } from '../../shared/install-log/wrenches';
-import { fastenerSpecIssues } from '../../shared/schemas/install-log';
+import { cautionsForStep, suggestCautions } from '@shared/install-log/cautions';
+import { cylinderNames, positionLabel, positionList } from '@shared/install-log/positions';
+import { signOffBlockers } from '@shared/install-log/sign-off';
+import { calibrationDueOn, calibrationOn } from '@shared/install-log/wrenches';
+import { fastenerSpecIssues } from '@shared/schemas/install-log';
 
 const step = { title: 'Fit', description: '', partCategories: [] as string[] };
 const ids = (s: Partial<typeof step>) => suggestCautions({ ...step, ...s }).map((c) => c.id);

@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { cautionsForStep } from '../../shared/install-log/cautions';
+import { cautionsForStep } from '@shared/install-log/cautions';
 import {
   describeRetorque,
   openReadingKind,
   readingKindRefusal,
   retorqueState,
-} from '../../shared/install-log/retorque';
-import { signOffBlockers } from '../../shared/install-log/sign-off';
-import { fastenerSpecIssues } from '../../shared/schemas/install-log';
+} from '@shared/install-log/retorque';
+import { signOffBlockers } from '@shared/install-log/sign-off';
+import { fastenerSpecIssues } from '@shared/schemas/install-log';
 
 describe('sign-off blockers', () => {
   const fastener = (positions: ({ verdict: 'in-spec' | 'under' | 'over' } | null)[]) => ({

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { pageRows } from '../../src/features/parts/lib/page-rows';
+import { pageRows } from '@/features/parts/lib/page-rows';
 
 type R = { header: string } | { part: string };
 const isHeader = (r: R) => 'header' in r;

@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { computeBudget } from '../../shared/ledger/budget';
-import { coreOwedCents, partTotalCents } from '../../shared/ledger/cost';
-import { addDays, daysBetween } from '../../shared/dates';
-import { csvColumnOfField, csvMoneyColumns } from '../../shared/ledger/csv';
-import { sendOutStatus } from '../../shared/ledger/send-out';
-import { stampStatusDates } from '../../shared/ledger/status-dates';
-import { centsToInput, parseMoneyToCents } from '../../shared/format';
-import type { PartStatus } from '../../shared/schemas/parts';
+import { computeBudget } from '@shared/ledger/budget';
+import { coreOwedCents, partTotalCents } from '@shared/ledger/cost';
+import { addDays, daysBetween } from '@shared/dates';
+import { csvColumnOfField, csvMoneyColumns } from '@shared/ledger/csv';
+import { sendOutStatus } from '@shared/ledger/send-out';
+import { stampStatusDates } from '@shared/ledger/status-dates';
+import { centsToInput, parseMoneyToCents } from '@shared/format';
+import type { PartStatus } from '@shared/schemas/parts';
 
 const money = {
   quantity: 1,

@@ -1,8 +1,8 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { loadConfig } from '../../server/config';
-import { renderMail } from '../../server/features/mail/mail.templates';
-import { retryDelayMs } from '../../server/features/mail/mail.worker';
-import { hashToken, isTokenShaped, newToken, redactTokens } from '../../server/lib/tokens';
+import { loadConfig } from '@server/config';
+import { renderMail } from '@server/features/mail/mail.templates';
+import { retryDelayMs } from '@server/features/mail/mail.worker';
+import { hashToken, isTokenShaped, newToken, redactTokens } from '@server/lib/tokens';
 
 const env = { DATABASE_URL: 'postgres://headroom@127.0.0.1:5432/x' };
 

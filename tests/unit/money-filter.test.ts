@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { stripMoney } from '../../server/lib/money-filter';
+import { stripMoney } from '@server/lib/money-filter';
 
 describe('stripMoney', () => {
   it('removes every …Cents key at any depth and keeps the rest', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { notANumberMessage, numberToInput, parseNumber, readNumber } from '../../shared/numbers';
+import { notANumberMessage, numberToInput, parseNumber, readNumber } from '@shared/numbers';
 
 // The rule is Headroom's own (US English screens): see the header of shared/numbers.ts.
 // Expected values are the numbers a person means by the text, written out by hand.

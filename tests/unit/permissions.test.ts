@@ -1,11 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  can,
-  canAddPhotosTo,
-  canCaptionPhoto,
-  capabilities,
-  roles,
-} from '../../shared/permissions';
+import { can, canAddPhotosTo, canCaptionPhoto, capabilities, roles } from '@shared/permissions';
 
 // The role table of product.md, "Users and roles (per build)".
 describe('can()', () => {

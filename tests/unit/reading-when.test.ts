@@ -1,6 +1,6 @@
 /** A reading sent late from the offline queue shows when it was taken and when it arrived. */
 import { describe, expect, it } from 'vitest';
-import { readingWhen } from '../../src/features/install-log/lib/format';
+import { readingWhen } from '@/features/install-log/lib/format';
 
 const hhmm = (iso: string) => iso.slice(11, 16);
 

@@ -5,11 +5,11 @@
  * by when it finally arrived).
  */
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import type { CreateReadingInput } from '../../shared/schemas/install-log';
+import type { CreateReadingInput } from '@shared/schemas/install-log';
 
 const queued: { key?: string; body?: unknown }[] = [];
 let offline = false;
-vi.mock('../../src/lib/offline-queue', () => ({
+vi.mock('@/lib/offline-queue', () => ({
   isOffline: () => offline,
   enqueue: vi.fn(async (write: { key?: string; body?: unknown }) => {
     queued.push(write);
@@ -17,8 +17,8 @@ vi.mock('../../src/lib/offline-queue', () => ({
   }),
 }));
 
-const { recordReading } = await import('../../src/features/install-log/api/record-reading');
-const { noteServerDate } = await import('../../src/lib/server-clock');
+const { recordReading } = await import('@/features/install-log/api/record-reading');
+const { noteServerDate } = await import('@/lib/server-clock');
 
 const input: CreateReadingInput = {
   position: 1,

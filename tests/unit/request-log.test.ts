@@ -4,7 +4,7 @@ import express from 'express';
 import { pino } from 'pino';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
-import { requestLog } from '../../server/middleware/request-log';
+import { requestLog } from '@server/middleware/request-log';
 
 function appWithLog() {
   const lines: Record<string, unknown>[] = [];

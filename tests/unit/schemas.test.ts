@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { signUpInputSchema } from '../../shared/schemas/auth';
-import { createBuildInputSchema, updateBuildInputSchema } from '../../shared/schemas/builds';
-import { fieldsFromZod } from '../../server/lib/errors';
+import { signUpInputSchema } from '@shared/schemas/auth';
+import { createBuildInputSchema, updateBuildInputSchema } from '@shared/schemas/builds';
+import { fieldsFromZod } from '@server/lib/errors';
 
 describe('shared schemas', () => {
   it('trims and lower-cases e-mail on sign-up', () => {

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import type { ViewDynoBest, ViewFastener } from '../../shared/schemas/sharing';
+import type { ViewDynoBest, ViewFastener } from '@shared/schemas/sharing';
 import {
   dynoPower,
   dynoTorque,
   headroomText,
   percent,
   readingsText,
-} from '../../src/features/sharing/components/view-text';
+} from '@/features/sharing/components/view-text';
 
 const fastener = (over: Partial<ViewFastener>): ViewFastener => ({
   name: 'Head stud nuts',

@@ -4,8 +4,8 @@
  * amber and red of "tight" and "over".
  */
 import { describe, expect, it } from 'vitest';
-import { partStatuses } from '../../shared/schemas/parts';
-import { statusTone } from '../../src/features/parts/lib/status';
+import { partStatuses } from '@shared/schemas/parts';
+import { statusTone } from '@/features/parts/lib/status';
 
 const warningLooks =
   /\b(?:[a-z-]+-)?(?:tight|over|accent)(?:-[a-z0-9]+)?\b|#6b4408|#7d1f17|#a76a0c|#b93226/;

@@ -8,9 +8,9 @@ import {
   bucketNameProblem,
   objectStoreFromEnv,
   type ObjectStoreSettings,
-} from '../../server/storage-config';
-import { createS3Storage, signedUrlOriginFor } from '../../server/lib/storage-s3';
-import { signingWindow, signedUrlGraceSeconds } from '../../server/lib/stored-file';
+} from '@server/storage-config';
+import { createS3Storage, signedUrlOriginFor } from '@server/lib/storage-s3';
+import { signingWindow, signedUrlGraceSeconds } from '@server/lib/stored-file';
 
 describe('storage settings', () => {
   it('keeps files on the local disk unless STORAGE=s3', () => {

@@ -18,7 +18,7 @@ import {
   todayIn,
   wallClock,
   weekOf,
-} from '../../shared/dates';
+} from '@shared/dates';
 
 const denver = 'America/Denver';
 

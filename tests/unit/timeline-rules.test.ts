@@ -7,9 +7,9 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { threatRules } from '../../shared/schemas/timeline';
-import { todayIn } from '../../shared/dates';
-import { jobItems, partItems } from '../../shared/timeline/items';
+import { threatRules } from '@shared/schemas/timeline';
+import { todayIn } from '@shared/dates';
+import { jobItems, partItems } from '@shared/timeline/items';
 import {
   cutoffOf,
   daysLeftOf,
@@ -21,7 +21,7 @@ import {
   type Clock,
   type JobFacts,
   type PartFacts,
-} from '../../shared/timeline/rules';
+} from '@shared/timeline/rules';
 
 const zone = 'America/Denver';
 const target = '2027-03-20';

@@ -8,7 +8,7 @@ import {
   restateTarget,
   toleranceBand,
   type TorqueTarget,
-} from '../../shared/install-log/torque';
+} from '@shared/install-log/torque';
 
 const spec = (
   targetValue: number,

@@ -1,14 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { benchUnitLabels } from '../../shared/bench/units';
-import { torqueUnitLabels } from '../../shared/install-log/torque';
+import { benchUnitLabels } from '@shared/bench/units';
+import { torqueUnitLabels } from '@shared/install-log/torque';
 import {
   barometerUnitLabels,
   boostUnitLabels,
   dynoPowerUnitLabels,
   dynoTorqueUnitLabels,
-} from '../../shared/schemas/dyno';
-import { labelsOf } from '../../shared/units/labels';
+} from '@shared/schemas/dyno';
+import { labelsOf } from '@shared/units/labels';
 import {
   HP_TORQUE_RPM_CONSTANT,
   HP_W,
@@ -44,7 +44,7 @@ import {
   torqueUnits,
   volumeFlowUnits,
   volumeUnits,
-} from '../../shared/units';
+} from '@shared/units';
 
 /** |actual − expected| ≤ rel × |expected|. */
 // reference.md's full value of lbf·ft → N·m (NIST SP 811 (2008) B.9, from the exact definitions);

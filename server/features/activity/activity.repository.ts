@@ -4,8 +4,8 @@
  * `limit` of each. `shopUserId` narrows every statement to what that shop may see.
  */
 import type { Knex } from 'knex';
-import { wallClock } from '../../../shared/dates';
-import type { ActivityEvent, ActivityKind } from '../../../shared/schemas/activity';
+import { wallClock } from '@shared/dates';
+import type { ActivityEvent, ActivityKind } from '@shared/schemas/activity';
 
 type Filter = {
   buildId: string;

@@ -1,7 +1,7 @@
 import { Router } from 'express';
-import type { AppDeps } from '../../lib/deps';
-import { scoped } from '../../lib/scope';
-import * as builds from '../builds';
+import type { AppDeps } from '@server/lib/deps';
+import { scoped } from '@server/lib/scope';
+import * as builds from '@server/features/builds';
 import * as service from './activity.service';
 
 /** Mounted at /api/builds/:buildId/activity: what has happened lately, as the caller may see it. */

@@ -3,8 +3,8 @@
  * newest first. A shop gets only what concerns its own parts (the parts, the steps that
  * use them, their photos, its own bench sheets); no event carries money for anyone.
  */
-import { activityLimit, type ActivityEvent } from '../../../shared/schemas/activity';
-import type { BuildScope } from '../../lib/scope';
+import { activityLimit, type ActivityEvent } from '@shared/schemas/activity';
+import type { BuildScope } from '@server/lib/scope';
 import * as repo from './activity.repository';
 
 /** Newest first: by day, then by the moment where known (a dated part event ends its day). */

@@ -4,11 +4,11 @@ import {
   changePasswordInputSchema,
   emailChangeRequestedMessage,
   updateProfileInputSchema,
-} from '../../../shared/schemas/account';
-import type { AppDeps } from '../../lib/deps';
-import { requireAuth } from '../../middleware/require-auth';
-import { createRateLimit } from '../../middleware/rate-limit';
-import { validate } from '../../middleware/validate';
+} from '@shared/schemas/account';
+import type { AppDeps } from '@server/lib/deps';
+import { requireAuth } from '@server/middleware/require-auth';
+import { createRateLimit } from '@server/middleware/rate-limit';
+import { validate } from '@server/middleware/validate';
 import * as service from './account.service';
 
 /**

@@ -13,15 +13,15 @@ import {
   type ChangePasswordInput,
   type EmailChangePreview,
   type UpdateProfileInput,
-} from '../../../shared/schemas/account';
-import { hashPassword, verifyPassword, type SessionUser } from '../../lib/auth';
-import { AppError, ConflictError, UnauthorizedError, ValidationError } from '../../lib/errors';
-import { hashToken, isTokenShaped, newToken } from '../../lib/tokens';
-import { enqueueMail, mailDateTime } from '../mail';
+} from '@shared/schemas/account';
+import { hashPassword, verifyPassword, type SessionUser } from '@server/lib/auth';
+import { AppError, ConflictError, UnauthorizedError, ValidationError } from '@server/lib/errors';
+import { hashToken, isTokenShaped, newToken } from '@server/lib/tokens';
+import { enqueueMail, mailDateTime } from '@server/features/mail';
 import * as repo from './account.repository';
 import { setPasswordHash } from './password-reset.repository';
 import { forgotPasswordPath } from './password-reset.service';
-import { paths } from '../../../shared/paths';
+import { paths } from '@shared/paths';
 
 /** Where the client confirms a new address; the mail's button leads here. */
 

@@ -1,9 +1,9 @@
 import { Router } from 'express';
-import { signInInputSchema, signUpInputSchema } from '../../../shared/schemas/auth';
-import type { AppDeps } from '../../lib/deps';
-import { requireAuth } from '../../middleware/require-auth';
-import { authLimits } from '../../middleware/rate-limit';
-import { validate } from '../../middleware/validate';
+import { signInInputSchema, signUpInputSchema } from '@shared/schemas/auth';
+import type { AppDeps } from '@server/lib/deps';
+import { requireAuth } from '@server/middleware/require-auth';
+import { authLimits } from '@server/middleware/rate-limit';
+import { validate } from '@server/middleware/validate';
 import * as service from './auth.service';
 
 export function authRouter({ db, config, sessions }: AppDeps) {

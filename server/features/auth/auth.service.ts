@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
-import type { SignInInput, SignUpInput } from '../../../shared/schemas/auth';
-import { hashPassword, verifyPassword, type SessionUser } from '../../lib/auth';
-import { ConflictError, UnauthorizedError } from '../../lib/errors';
+import type { SignInInput, SignUpInput } from '@shared/schemas/auth';
+import { hashPassword, verifyPassword, type SessionUser } from '@server/lib/auth';
+import { ConflictError, UnauthorizedError } from '@server/lib/errors';
 import * as repo from './auth.repository';
 
 export async function signUp(knex: Knex, input: SignUpInput): Promise<SessionUser> {

@@ -3,10 +3,10 @@ import {
   completePasswordResetInputSchema,
   passwordResetRequestedMessage,
   requestPasswordResetInputSchema,
-} from '../../../shared/schemas/password-reset';
-import type { AppDeps } from '../../lib/deps';
-import { authLimits, createRateLimit } from '../../middleware/rate-limit';
-import { validate } from '../../middleware/validate';
+} from '@shared/schemas/password-reset';
+import type { AppDeps } from '@server/lib/deps';
+import { authLimits, createRateLimit } from '@server/middleware/rate-limit';
+import { validate } from '@server/middleware/validate';
 import * as service from './password-reset.service';
 
 /** Mounted at /api/auth/password-reset. */

@@ -2,14 +2,14 @@ import type { Knex } from 'knex';
 import {
   passwordResetErrorCodes as codes,
   passwordResetValidMinutes,
-} from '../../../shared/schemas/password-reset';
-import { hashPassword, type SessionUser } from '../../lib/auth';
-import { AppError } from '../../lib/errors';
-import { hashToken, isTokenShaped, newToken } from '../../lib/tokens';
-import { countQueuedSince, enqueueMail, mailDateTime } from '../mail';
+} from '@shared/schemas/password-reset';
+import { hashPassword, type SessionUser } from '@server/lib/auth';
+import { AppError } from '@server/lib/errors';
+import { hashToken, isTokenShaped, newToken } from '@server/lib/tokens';
+import { countQueuedSince, enqueueMail, mailDateTime } from '@server/features/mail';
 import { findUserByEmail } from './auth.repository';
 import * as repo from './password-reset.repository';
-import { paths } from '../../../shared/paths';
+import { paths } from '@shared/paths';
 
 /** Where the client lets a person choose the new password; the mail's button leads here. */
 export const forgotPasswordPath = '/forgot-password';

@@ -6,9 +6,9 @@
  * No money is ever in a notice.
  */
 import type { Knex } from 'knex';
-import { quoted } from '../mail';
-import { actorName, notify } from '../notices';
-import { paths } from '../../../shared/paths';
+import { quoted } from '@server/features/mail';
+import { actorName, notify } from '@server/features/notices';
+import { paths } from '@shared/paths';
 
 export type SheetChange =
   'added' | 'changed' | 'original-attached' | 'original-removed' | 'removed';

@@ -8,9 +8,9 @@
  */
 import fs from 'node:fs/promises';
 import sharp from 'sharp';
-import type { BenchOriginalFormat } from '../../../shared/schemas/bench';
-import { AppError } from '../../lib/errors';
-import { processPhoto, type ProcessedPhoto } from '../photos';
+import type { BenchOriginalFormat } from '@shared/schemas/bench';
+import { AppError } from '@server/lib/errors';
+import { processPhoto, type ProcessedPhoto } from '@server/features/photos';
 
 export type UploadedFile = { path: string; originalname: string; size: number };
 

@@ -10,7 +10,7 @@ import type {
   FluidTemperatureUnit,
   TestPoint,
   UpdateBenchSheetInput,
-} from '../../../shared/schemas/bench';
+} from '@shared/schemas/bench';
 
 type Person = { id: string; name: string };
 

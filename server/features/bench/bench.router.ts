@@ -8,13 +8,13 @@ import {
   benchUploadField,
   createBenchSheetInputSchema,
   updateBenchSheetInputSchema,
-} from '../../../shared/schemas/bench';
-import type { AppDeps } from '../../lib/deps';
-import { AppError } from '../../lib/errors';
-import { param, scoped } from '../../lib/scope';
-import { sendStoredFile } from '../../lib/stored-file';
-import { receiveUpload } from '../../lib/uploads';
-import { validate } from '../../middleware/validate';
+} from '@shared/schemas/bench';
+import type { AppDeps } from '@server/lib/deps';
+import { AppError } from '@server/lib/errors';
+import { param, scoped } from '@server/lib/scope';
+import { sendStoredFile } from '@server/lib/stored-file';
+import { receiveUpload } from '@server/lib/uploads';
+import { validate } from '@server/middleware/validate';
 import * as service from './bench.service';
 
 /** A CSV of one sheet's values is small: 8–16 rows of a few numbers. */

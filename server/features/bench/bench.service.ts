@@ -19,8 +19,8 @@ import {
   imbalanceCostRecovered,
   parseBenchCsv,
   type BenchCellError,
-} from '../../../shared/bench';
-import { canChangeBenchSheet, canDeleteBenchSheet } from '../../../shared/permissions';
+} from '@shared/bench';
+import { canChangeBenchSheet, canDeleteBenchSheet } from '@shared/permissions';
 import {
   benchCylinderIssues,
   type BenchComparisonAnswer,
@@ -33,15 +33,15 @@ import {
   type CreateBenchSheetInput,
   type TestPoint,
   type UpdateBenchSheetInput,
-} from '../../../shared/schemas/bench';
-import { partCategoryLabels } from '../../../shared/schemas/parts';
-import { AppError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
-import type { Logger } from '../../lib/logger';
-import { parseId, type Caller } from '../../lib/scope';
-import type { Storage } from '../../lib/storage';
-import * as builds from '../builds';
-import * as storedFiles from '../files';
-import * as parts from '../parts';
+} from '@shared/schemas/bench';
+import { partCategoryLabels } from '@shared/schemas/parts';
+import { AppError, ForbiddenError, NotFoundError, ValidationError } from '@server/lib/errors';
+import type { Logger } from '@server/lib/logger';
+import { parseId, type Caller } from '@server/lib/scope';
+import type { Storage } from '@server/lib/storage';
+import * as builds from '@server/features/builds';
+import * as storedFiles from '@server/features/files';
+import * as parts from '@server/features/parts';
 import { notifyShopSheetChange, type SheetChange } from './bench.notices';
 import { cleanFileName, processOriginal, type UploadedFile } from './bench.originals';
 import * as repo from './bench.repository';

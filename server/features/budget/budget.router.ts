@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { AppDeps } from '../../lib/deps';
+import type { AppDeps } from '@server/lib/deps';
 import * as service from './budget.service';
 
 /** Mounted at /api/builds/:buildId/budget (owner only: it is all money). */

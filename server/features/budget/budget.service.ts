@@ -1,9 +1,9 @@
 /** The budget: planned, committed and spent against the build's budget, per category. */
 import type { Knex } from 'knex';
-import { computeBudget } from '../../../shared/ledger/budget';
-import { NotFoundError } from '../../lib/errors';
-import * as builds from '../builds';
-import * as parts from '../parts';
+import { computeBudget } from '@shared/ledger/budget';
+import { NotFoundError } from '@server/lib/errors';
+import * as builds from '@server/features/builds';
+import * as parts from '@server/features/parts';
 
 export async function get(knex: Knex, buildId: string, userId: string, known?: builds.KnownBuild) {
   const [build, all] = await Promise.all([

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
-import type { Role } from '../../../shared/permissions';
-import type { Build, CreateBuildInput, UpdateBuildInput } from '../../../shared/schemas/builds';
-import type { BuildRowJson } from '../../lib/sessions.repository';
+import type { Role } from '@shared/permissions';
+import type { Build, CreateBuildInput, UpdateBuildInput } from '@shared/schemas/builds';
+import type { BuildRowJson } from '@server/lib/sessions.repository';
 
 /** camelCase field → snake_case column, for every field an owner can write. */
 const columns = {

@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { createBuildInputSchema, updateBuildInputSchema } from '../../../shared/schemas/builds';
-import type { AppDeps } from '../../lib/deps';
-import { requireAuth } from '../../middleware/require-auth';
-import { validate } from '../../middleware/validate';
+import { createBuildInputSchema, updateBuildInputSchema } from '@shared/schemas/builds';
+import type { AppDeps } from '@server/lib/deps';
+import { requireAuth } from '@server/middleware/require-auth';
+import { validate } from '@server/middleware/validate';
 import * as service from './builds.service';
 
 /** Mounted at /api/builds. */

@@ -1,14 +1,14 @@
 import type { Knex } from 'knex';
-import { buildToday, fallbackTimeZone } from '../../../shared/dates';
-import { can, type Role } from '../../../shared/permissions';
-import type { CreateBuildInput, UpdateBuildInput } from '../../../shared/schemas/builds';
-import { stripMoney } from '../../lib/money-filter';
-import { NotFoundError } from '../../lib/errors';
-import type { BuildRowJson } from '../../lib/sessions.repository';
-import type { Logger } from '../../lib/logger';
-import type { Storage } from '../../lib/storage';
-import * as files from '../files';
-import * as members from '../members';
+import { buildToday, fallbackTimeZone } from '@shared/dates';
+import { can, type Role } from '@shared/permissions';
+import type { CreateBuildInput, UpdateBuildInput } from '@shared/schemas/builds';
+import { stripMoney } from '@server/lib/money-filter';
+import { NotFoundError } from '@server/lib/errors';
+import type { BuildRowJson } from '@server/lib/sessions.repository';
+import type { Logger } from '@server/lib/logger';
+import type { Storage } from '@server/lib/storage';
+import * as files from '@server/features/files';
+import * as members from '@server/features/members';
 import * as repo from './builds.repository';
 
 /** My builds, each shown as my role on it allows (money only where I own it). */

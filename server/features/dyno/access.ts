@@ -4,8 +4,8 @@
  * (its own dyno) and their runs. Something hidden answers 404, exactly like
  * something that does not exist.
  */
-import { NotFoundError } from '../../lib/errors';
-import { parseId, type BuildScope } from '../../lib/scope';
+import { NotFoundError } from '@server/lib/errors';
+import { parseId, type BuildScope } from '@server/lib/scope';
 import * as runsRepo from './runs.repository';
 import * as sessionsRepo from './sessions.repository';
 

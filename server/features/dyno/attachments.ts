@@ -11,8 +11,8 @@
  * - Text: valid UTF-8 with no control characters but tab, CR and LF.
  */
 import sharp from 'sharp';
-import type { DynoAttachmentKind } from '../../../shared/schemas/dyno';
-import { AppError } from '../../lib/errors';
+import type { DynoAttachmentKind } from '@shared/schemas/dyno';
+import { AppError } from '@server/lib/errors';
 
 export type CheckedAttachment = {
   kind: DynoAttachmentKind;

@@ -3,8 +3,8 @@
  * shared parser (shared/dyno/csv.ts), whose problems become a 400 naming the
  * file's header, or each bad row and column — nothing is saved.
  */
-import { parseCurveCsv, type CurveCsvError } from '../../../shared/dyno';
-import { AppError } from '../../lib/errors';
+import { parseCurveCsv, type CurveCsvError } from '@shared/dyno';
+import { AppError } from '@server/lib/errors';
 
 export type RowReport = { row: number; fields: Record<string, string> };
 

@@ -9,13 +9,13 @@ import {
   dynoFileField,
   updateDynoRunInputSchema,
   updateDynoSessionInputSchema,
-} from '../../../shared/schemas/dyno';
-import type { AppDeps } from '../../lib/deps';
-import { AppError, ValidationError, fieldsFromZod } from '../../lib/errors';
-import { param, scoped } from '../../lib/scope';
-import { receiveUpload } from '../../lib/uploads';
-import { sendStoredFile } from '../../lib/stored-file';
-import { validate } from '../../middleware/validate';
+} from '@shared/schemas/dyno';
+import type { AppDeps } from '@server/lib/deps';
+import { AppError, ValidationError, fieldsFromZod } from '@server/lib/errors';
+import { param, scoped } from '@server/lib/scope';
+import { receiveUpload } from '@server/lib/uploads';
+import { sendStoredFile } from '@server/lib/stored-file';
+import { validate } from '@server/middleware/validate';
 import * as runs from './runs.service';
 import * as sessions from './sessions.service';
 

@@ -2,7 +2,7 @@
  * The dyno feature's public surface: the dyno days a caller may see, for the timeline, and
  * sessions with their best runs, for the build sheet.
  */
-import type { BuildScope } from '../../lib/scope';
+import type { BuildScope } from '@server/lib/scope';
 import { sessionFilter } from './access';
 import * as sessionsRepo from './sessions.repository';
 

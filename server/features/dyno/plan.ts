@@ -3,10 +3,10 @@
  * "most the build supports" and its assumptions (drivetrain loss for wheel ↔
  * crank, BSFC for R85's engine factor), and the engine itself.
  */
-import { engineAspirationForBuild, type DynoPlan } from '../../../shared/schemas/dyno';
-import type { BuildScope } from '../../lib/scope';
-import * as builds from '../builds';
-import * as estimate from '../estimate';
+import { engineAspirationForBuild, type DynoPlan } from '@shared/schemas/dyno';
+import type { BuildScope } from '@server/lib/scope';
+import * as builds from '@server/features/builds';
+import * as estimate from '@server/features/estimate';
 
 export async function loadPlan({ knex, buildId, caller }: BuildScope): Promise<DynoPlan> {
   const [build, saved, result] = await Promise.all([

@@ -1,5 +1,5 @@
 /** Row ↔ object helpers shared by the dyno repositories: weather columns and people. */
-import type { WeatherFields } from '../../../shared/schemas/dyno';
+import type { WeatherFields } from '@shared/schemas/dyno';
 
 export type WeatherRow = {
   weather_temperature: number | null;

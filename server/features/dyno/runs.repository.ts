@@ -7,8 +7,8 @@ import type {
   RunStatus,
   RunUnits,
   WeatherFields,
-} from '../../../shared/schemas/dyno';
-import { sortCurve } from '../../../shared/dyno';
+} from '@shared/schemas/dyno';
+import { sortCurve } from '@shared/dyno';
 import { person, weatherFromRow, weatherToRow, type WeatherRow } from './rows';
 
 /** A curve row as stored: `[rpm, power, torque, boost, egt, mixture]`, null where not logged. */

@@ -15,7 +15,7 @@ import {
   runPeaks,
   withCurveBoost,
   type CurveCsvUnits,
-} from '../../../shared/dyno';
+} from '@shared/dyno';
 import {
   createDynoRunInputSchema,
   defaultRunUnits,
@@ -26,25 +26,25 @@ import {
   type DynoRunInput,
   type RunUnits,
   type UpdateDynoRunInput,
-} from '../../../shared/schemas/dyno';
+} from '@shared/schemas/dyno';
 import {
   convertPower,
   convertPressure,
   convertTemperature,
   convertTorque,
-} from '../../../shared/units/convert';
+} from '@shared/units/convert';
 import {
   AppError,
   ConflictError,
   NotFoundError,
   ValidationError,
   fieldsFromZod,
-} from '../../lib/errors';
-import type { Logger } from '../../lib/logger';
-import type { BuildScope } from '../../lib/scope';
-import type { Storage } from '../../lib/storage';
-import { assertNoNul } from '../../middleware/validate';
-import * as files from '../files';
+} from '@server/lib/errors';
+import type { Logger } from '@server/lib/logger';
+import type { BuildScope } from '@server/lib/scope';
+import type { Storage } from '@server/lib/storage';
+import { assertNoNul } from '@server/middleware/validate';
+import * as files from '@server/features/files';
 import { loadRun, loadSession } from './access';
 import { checkAttachment } from './attachments';
 import { readCurveCsv } from './curve-csv';

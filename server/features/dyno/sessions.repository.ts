@@ -5,7 +5,7 @@ import {
   type DynoKind,
   type DynoSession,
   type WeatherFields,
-} from '../../../shared/schemas/dyno';
+} from '@shared/schemas/dyno';
 import { person, weatherFromRow, weatherToRow, type WeatherRow } from './rows';
 
 type SessionRow = WeatherRow & {

@@ -5,24 +5,19 @@
  * Lists and pages are read under a correction the caller chooses; the stored
  * figures are never corrected.
  */
-import {
-  buildReport,
-  sessionReport,
-  withoutCurves,
-  type SessionReport,
-} from '../../../shared/dyno';
+import { buildReport, sessionReport, withoutCurves, type SessionReport } from '@shared/dyno';
 import type {
   CorrectionChoice,
   CreateDynoSessionInput,
   DynoRun,
   DynoSessionSummary,
   UpdateDynoSessionInput,
-} from '../../../shared/schemas/dyno';
-import { can } from '../../../shared/permissions';
-import { ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
-import type { BuildScope } from '../../lib/scope';
-import * as files from '../files';
-import * as members from '../members';
+} from '@shared/schemas/dyno';
+import { can } from '@shared/permissions';
+import { ForbiddenError, NotFoundError, ValidationError } from '@server/lib/errors';
+import type { BuildScope } from '@server/lib/scope';
+import * as files from '@server/features/files';
+import * as members from '@server/features/members';
 import { loadSession, sessionFilter } from './access';
 import { loadPlan } from './plan';
 import * as runsRepo from './runs.repository';

@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
-import type { powerBases } from '../../../shared/schemas/builds';
-import type { EstimateComponent } from '../../../shared/schemas/estimate';
-import type { BsfcUnit } from '../../../shared/units/convert';
-import type { PartCategory, RatingUnit } from '../../../shared/schemas/parts';
+import type { powerBases } from '@shared/schemas/builds';
+import type { EstimateComponent } from '@shared/schemas/estimate';
+import type { BsfcUnit } from '@shared/units/convert';
+import type { PartCategory, RatingUnit } from '@shared/schemas/parts';
 
 /** The build fields the estimate starts from. */
 export type BuildTarget = {

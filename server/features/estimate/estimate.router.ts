@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { assumptionsInputSchema, estimateRequestSchema } from '../../../shared/schemas/estimate';
-import type { AppDeps } from '../../lib/deps';
-import { createRateLimit } from '../../middleware/rate-limit';
-import { validate } from '../../middleware/validate';
+import { assumptionsInputSchema, estimateRequestSchema } from '@shared/schemas/estimate';
+import type { AppDeps } from '@server/lib/deps';
+import { createRateLimit } from '@server/middleware/rate-limit';
+import { validate } from '@server/middleware/validate';
 import * as service from './estimate.service';
 
 /**

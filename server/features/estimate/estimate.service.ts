@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { estimate } from '../../../shared/estimate';
+import { estimate } from '@shared/estimate';
 import {
   assumptionsInputSchema,
   type Assumptions,
@@ -7,11 +7,11 @@ import {
   type EstimateComponent,
   type EstimateInput,
   type EstimateResult,
-} from '../../../shared/schemas/estimate';
-import { convertBsfc } from '../../../shared/units/convert';
-import { partCategoryLabels } from '../../../shared/schemas/parts';
-import { ConflictError, NotFoundError } from '../../lib/errors';
-import type { BuildRowJson } from '../../lib/sessions.repository';
+} from '@shared/schemas/estimate';
+import { convertBsfc } from '@shared/units/convert';
+import { partCategoryLabels } from '@shared/schemas/parts';
+import { ConflictError, NotFoundError } from '@server/lib/errors';
+import type { BuildRowJson } from '@server/lib/sessions.repository';
 import * as repo from './estimate.repository';
 
 /** The default assumptions, as the schema fills them in for an empty body (parsed once). */

@@ -5,8 +5,8 @@
  * is retried with backoff instead of being forgotten.
  */
 import type { Knex } from 'knex';
-import type { Logger } from '../../lib/logger';
-import type { Storage } from '../../lib/storage';
+import type { Logger } from '@server/lib/logger';
+import type { Storage } from '@server/lib/storage';
 import * as repo from './files.repository';
 
 export type FilesCtx = { knex: Knex; storage: Storage; logger: Logger };

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { AppDeps } from '../../lib/deps';
+import type { AppDeps } from '@server/lib/deps';
 
 export function healthRouter({ db }: AppDeps) {
   const router = Router();

@@ -5,8 +5,8 @@
  * answers 404, exactly like something that does not exist.
  */
 import type { Knex } from 'knex';
-import { ConflictError, NotFoundError } from '../../lib/errors';
-import { parseId, type BuildScope } from '../../lib/scope';
+import { ConflictError, NotFoundError } from '@server/lib/errors';
+import { parseId, type BuildScope } from '@server/lib/scope';
 import * as jobsRepo from './jobs.repository';
 import * as stepPartsRepo from './step-parts.repository';
 import * as stepsRepo from './steps.repository';

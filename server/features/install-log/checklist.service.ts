@@ -2,9 +2,9 @@
 import type {
   CreateChecklistItemInput,
   UpdateChecklistItemInput,
-} from '../../../shared/schemas/install-log';
-import { NotFoundError } from '../../lib/errors';
-import { parseId, type BuildScope } from '../../lib/scope';
+} from '@shared/schemas/install-log';
+import { NotFoundError } from '@server/lib/errors';
+import { parseId, type BuildScope } from '@server/lib/scope';
 import { loadStep, lockOpenStep, renameNotFound } from './access';
 import * as repo from './checklist.repository';
 import { lockOrdering } from './ordering.repository';

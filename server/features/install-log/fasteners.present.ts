@@ -5,14 +5,14 @@
  * alike). A stage reading is judged against its stage's torque with the spec's
  * tolerance (a percentage of the stage, or the same ± amount).
  */
-import { asksRetorque, describeRetorque } from '../../../shared/install-log/retorque';
+import { asksRetorque, describeRetorque } from '@shared/install-log/retorque';
 import {
   judgeTorque,
   otherSystemUnit,
   restateTarget,
   toleranceBand,
-} from '../../../shared/install-log/torque';
-import type { FastenerSpec, TorqueReading } from '../../../shared/schemas/install-log';
+} from '@shared/install-log/torque';
+import type { FastenerSpec, TorqueReading } from '@shared/schemas/install-log';
 import type { SpecRecord } from './fasteners.repository';
 import type { ReadingRecord } from './readings.repository';
 

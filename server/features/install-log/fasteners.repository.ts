@@ -1,8 +1,8 @@
 /** Fastener specs of a step: what to torque, to what, and whether to re-check it later. */
 import type { Knex } from 'knex';
-import type { TorqueUnit } from '../../../shared/install-log/torque';
-import type { ThreadCondition } from '../../../shared/schemas/install-log';
-import { namedRows } from '../../lib/named-query';
+import type { TorqueUnit } from '@shared/install-log/torque';
+import type { ThreadCondition } from '@shared/schemas/install-log';
+import { namedRows } from '@server/lib/named-query';
 import { iso, person } from './rows';
 
 export type SpecRow = {

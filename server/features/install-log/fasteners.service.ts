@@ -2,21 +2,21 @@
  * Fastener specs of a step and their torque readings: how readings supersede
  * each other, and who may change a target that readings were judged against.
  */
-import { positionLabel } from '../../../shared/install-log/positions';
-import { asksRetorque, readingKindRefusal } from '../../../shared/install-log/retorque';
-import { judgeTorque } from '../../../shared/install-log/torque';
-import { can } from '../../../shared/permissions';
+import { positionLabel } from '@shared/install-log/positions';
+import { asksRetorque, readingKindRefusal } from '@shared/install-log/retorque';
+import { judgeTorque } from '@shared/install-log/torque';
+import { can } from '@shared/permissions';
 import {
   fastenerSpecIssues,
   torqueDefiningFields,
   type CreateFastenerSpecInput,
   type CreateReadingInput,
   type UpdateFastenerSpecInput,
-} from '../../../shared/schemas/install-log';
-import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../../lib/errors';
-import { parseId, type BuildScope } from '../../lib/scope';
-import * as builds from '../builds';
-import { wrenchForReading } from '../wrenches';
+} from '@shared/schemas/install-log';
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '@server/lib/errors';
+import { parseId, type BuildScope } from '@server/lib/scope';
+import * as builds from '@server/features/builds';
+import { wrenchForReading } from '@server/features/wrenches';
 import { assertOpen, loadStep, lockOpenStep, lockStep, renameNotFound } from './access';
 import { presentReading, presentSpec } from './fasteners.present';
 import * as repo from './fasteners.repository';

@@ -1,6 +1,6 @@
 /** The install log's public surface: step visibility, for photos and notices of steps. */
 import type { Knex } from 'knex';
-import type { Caller } from '../../lib/scope';
+import type { Caller } from '@server/lib/scope';
 import { loadStep, visibleSteps as visibleIn } from './access';
 
 /** Steps a caller may read: all of them (null), or for a shop only those linked to its parts. */

@@ -13,11 +13,11 @@ import {
   type TorqueTarget,
   type TorqueUnit,
   type Verdict,
-} from '../../../shared/install-log/torque';
-import { quoted } from '../mail';
-import { actorName, notify } from '../notices';
+} from '@shared/install-log/torque';
+import { quoted } from '@server/features/mail';
+import { actorName, notify } from '@server/features/notices';
 import { shopsOfStep } from './step-parts.repository';
-import { paths } from '../../../shared/paths';
+import { paths } from '@shared/paths';
 
 /** The one shop whose parts the step fits, if exactly one. */
 async function stepShop(trx: Knex, stepId: string): Promise<string | null> {

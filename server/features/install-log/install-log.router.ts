@@ -11,12 +11,12 @@ import {
   updateFastenerSpecInputSchema,
   updateJobInputSchema,
   updateStepInputSchema,
-} from '../../../shared/schemas/install-log';
-import type { AppDeps } from '../../lib/deps';
-import { ValidationError } from '../../lib/errors';
-import { idempotentScoped } from '../../lib/idempotency';
-import { param, scoped } from '../../lib/scope';
-import { validate } from '../../middleware/validate';
+} from '@shared/schemas/install-log';
+import type { AppDeps } from '@server/lib/deps';
+import { ValidationError } from '@server/lib/errors';
+import { idempotentScoped } from '@server/lib/idempotency';
+import { param, scoped } from '@server/lib/scope';
+import { validate } from '@server/middleware/validate';
 import * as checklist from './checklist.service';
 import * as fasteners from './fasteners.service';
 import * as jobs from './jobs.service';

@@ -1,8 +1,8 @@
 /** Jobs of a build: the install log's top level. */
 import type { Knex } from 'knex';
-import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
-import type { StepStatus } from '../../../shared/schemas/install-log';
-import { namedRows } from '../../lib/named-query';
+import type { SignOffBlocker } from '@shared/install-log/sign-off';
+import type { StepStatus } from '@shared/schemas/install-log';
+import { namedRows } from '@server/lib/named-query';
 import { iso, person } from './rows';
 import type { StepRow } from './steps.repository';
 

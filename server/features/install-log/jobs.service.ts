@@ -1,8 +1,8 @@
 /** Jobs: the ordered top level of a build's install log, each a list of steps. */
-import type { CreateJobInput, Job, UpdateJobInput } from '../../../shared/schemas/install-log';
-import { NotFoundError } from '../../lib/errors';
-import type { BuildScope } from '../../lib/scope';
-import * as files from '../files';
+import type { CreateJobInput, Job, UpdateJobInput } from '@shared/schemas/install-log';
+import { NotFoundError } from '@server/lib/errors';
+import type { BuildScope } from '@server/lib/scope';
+import * as files from '@server/features/files';
 import { loadJob, visibleSteps } from './access';
 import * as repo from './jobs.repository';
 import { lockOrdering } from './ordering.repository';

@@ -3,11 +3,11 @@
  * target it was taken against.
  */
 import type { Knex } from 'knex';
-import { describeTarget } from '../../../shared/install-log/torque';
-import { idempotencyKeepDays } from '../../../shared/schemas/idempotency';
-import type { CreateReadingInput } from '../../../shared/schemas/install-log';
-import { torqueDefiningFields } from '../../../shared/schemas/install-log';
-import { ConflictError, ValidationError } from '../../lib/errors';
+import { describeTarget } from '@shared/install-log/torque';
+import { idempotencyKeepDays } from '@shared/schemas/idempotency';
+import type { CreateReadingInput } from '@shared/schemas/install-log';
+import { torqueDefiningFields } from '@shared/schemas/install-log';
+import { ConflictError, ValidationError } from '@server/lib/errors';
 import * as repo from './fasteners.repository';
 
 /** How far ahead of the server's clock a device's clock may run. */

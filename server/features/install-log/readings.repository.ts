@@ -1,7 +1,7 @@
 /** Torque readings: never edited, only superseded by a newer reading of the same position. */
 import type { Knex } from 'knex';
-import type { TorqueUnit } from '../../../shared/install-log/torque';
-import { buildToday } from '../../../shared/dates';
+import type { TorqueUnit } from '@shared/install-log/torque';
+import { buildToday } from '@shared/dates';
 import { iso, person } from './rows';
 
 type ReadingRow = {

@@ -1,6 +1,6 @@
 /** The whole install log in full, for the build sheet and the public page (sharing). */
-import type { Step } from '../../../shared/schemas/install-log';
-import type { BuildScope } from '../../lib/scope';
+import type { Step } from '@shared/schemas/install-log';
+import type { BuildScope } from '@server/lib/scope';
 import * as jobsRepo from './jobs.repository';
 import { assembleSteps } from './steps.detail';
 import * as stepsRepo from './steps.repository';

@@ -1,6 +1,6 @@
 /** Re-torque checks: the specs of a build that ask for a second torque pass after use. */
 import type { Knex } from 'knex';
-import type { StepStatus } from '../../../shared/schemas/install-log';
+import type { StepStatus } from '@shared/schemas/install-log';
 import { specs, toSpec, type SpecRow } from './fasteners.repository';
 import { iso } from './rows';
 

@@ -3,15 +3,11 @@
  * miles gets a check once its step is signed off; the check closes when every
  * position re-reads in spec, or by hand with a note.
  */
-import {
-  asksRetorque,
-  describeRetorque,
-  retorqueState,
-} from '../../../shared/install-log/retorque';
-import { judgeTorque, type Verdict } from '../../../shared/install-log/torque';
-import type { CloseRetorqueInput, RetorqueCheck } from '../../../shared/schemas/install-log';
-import { ConflictError, NotFoundError } from '../../lib/errors';
-import type { BuildScope } from '../../lib/scope';
+import { asksRetorque, describeRetorque, retorqueState } from '@shared/install-log/retorque';
+import { judgeTorque, type Verdict } from '@shared/install-log/torque';
+import type { CloseRetorqueInput, RetorqueCheck } from '@shared/schemas/install-log';
+import { ConflictError, NotFoundError } from '@server/lib/errors';
+import type { BuildScope } from '@server/lib/scope';
 import { visibleSteps } from './access';
 import { loadSpec } from './fasteners.service';
 import * as readingsRepo from './readings.repository';

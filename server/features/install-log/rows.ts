@@ -1,5 +1,5 @@
 /** Row → record helpers shared by the install log's repositories. */
-import type { Person } from '../../../shared/schemas/install-log';
+import type { Person } from '@shared/schemas/install-log';
 
 export const iso = (d: Date | null) => (d ? d.toISOString() : null);
 

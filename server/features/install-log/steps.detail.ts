@@ -3,18 +3,13 @@
  * readings, cautions, sign-off blockers, progress and photo count; and the
  * summary of it that a job lists.
  */
-import { cautionsForStep } from '../../../shared/install-log/cautions';
-import { signOffBlockers } from '../../../shared/install-log/sign-off';
-import { judgeTorque } from '../../../shared/install-log/torque';
-import type {
-  ChecklistItem,
-  SignOff,
-  Step,
-  StepSummary,
-} from '../../../shared/schemas/install-log';
-import type { BuildScope } from '../../lib/scope';
+import { cautionsForStep } from '@shared/install-log/cautions';
+import { signOffBlockers } from '@shared/install-log/sign-off';
+import { judgeTorque } from '@shared/install-log/torque';
+import type { ChecklistItem, SignOff, Step, StepSummary } from '@shared/schemas/install-log';
+import type { BuildScope } from '@server/lib/scope';
 import { visibleSteps } from './access';
-import { seesPart } from '../parts';
+import { seesPart } from '@server/features/parts';
 import * as checklistRepo from './checklist.repository';
 import * as fastenersRepo from './fasteners.repository';
 import type * as jobsRepo from './jobs.repository';

@@ -1,8 +1,8 @@
 /** Steps of a job, their status and sign-off, and the photo count shown on each step card. */
 import type { Knex } from 'knex';
-import type { ChoosableCautionId } from '../../../shared/install-log/cautions';
-import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
-import type { StepStatus } from '../../../shared/schemas/install-log';
+import type { ChoosableCautionId } from '@shared/install-log/cautions';
+import type { SignOffBlocker } from '@shared/install-log/sign-off';
+import type { StepStatus } from '@shared/schemas/install-log';
 import { iso, person } from './rows';
 
 export type StepRow = {

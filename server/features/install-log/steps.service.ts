@@ -1,15 +1,11 @@
 /** Steps of a job: adding, changing, moving and deleting them, and signing them off. */
-import type { ChoosableCautionId } from '../../../shared/install-log/cautions';
-import type { SignOffBlocker } from '../../../shared/install-log/sign-off';
-import { can } from '../../../shared/permissions';
-import type {
-  CreateStepInput,
-  SignOffInput,
-  UpdateStepInput,
-} from '../../../shared/schemas/install-log';
-import { ConflictError, ForbiddenError, ValidationError } from '../../lib/errors';
-import type { BuildScope } from '../../lib/scope';
-import * as files from '../files';
+import type { ChoosableCautionId } from '@shared/install-log/cautions';
+import type { SignOffBlocker } from '@shared/install-log/sign-off';
+import { can } from '@shared/permissions';
+import type { CreateStepInput, SignOffInput, UpdateStepInput } from '@shared/schemas/install-log';
+import { ConflictError, ForbiddenError, ValidationError } from '@server/lib/errors';
+import type { BuildScope } from '@server/lib/scope';
+import * as files from '@server/features/files';
 import { assertOpen, loadJob, loadStep, lockStep } from './access';
 import { notifyStepSignedOff } from './install-log.notices';
 import * as jobsRepo from './jobs.repository';

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import type { Role } from '../../../shared/permissions';
-import type { Invitation } from '../../../shared/schemas/invitations';
+import type { Role } from '@shared/permissions';
+import type { Invitation } from '@shared/schemas/invitations';
 
 export type InvitationRow = {
   id: string;

@@ -2,10 +2,10 @@ import { Router } from 'express';
 import {
   acceptInvitationInputSchema,
   createInvitationInputSchema,
-} from '../../../shared/schemas/invitations';
-import type { AppDeps } from '../../lib/deps';
-import { authLimits } from '../../middleware/rate-limit';
-import { validate } from '../../middleware/validate';
+} from '@shared/schemas/invitations';
+import type { AppDeps } from '@server/lib/deps';
+import { authLimits } from '@server/middleware/rate-limit';
+import { validate } from '@server/middleware/validate';
 import * as service from './invitations.service';
 
 /** Mounted at /api/builds/:buildId/invitations: the owner's side. */

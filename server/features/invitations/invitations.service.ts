@@ -1,21 +1,21 @@
 import type { Knex } from 'knex';
-import { roleDescriptions, type Role } from '../../../shared/permissions';
+import { roleDescriptions, type Role } from '@shared/permissions';
 import {
   invitationErrorCodes as codes,
   invitationValidDays,
   type AcceptInvitationInput,
   type CreateInvitationInput,
   type InvitationPreview,
-} from '../../../shared/schemas/invitations';
-import { idSchema } from '../../../shared/schemas/common';
-import { hashPassword, type SessionUser } from '../../lib/auth';
-import { AppError, ConflictError, NotFoundError, UnauthorizedError } from '../../lib/errors';
-import { hashToken, isTokenShaped, newToken } from '../../lib/tokens';
-import { createUser, findUserByEmail } from '../auth';
-import { enqueueMail, mailDateTime, quoted, type QueuedMail } from '../mail';
-import { addMember, findRole } from '../members';
+} from '@shared/schemas/invitations';
+import { idSchema } from '@shared/schemas/common';
+import { hashPassword, type SessionUser } from '@server/lib/auth';
+import { AppError, ConflictError, NotFoundError, UnauthorizedError } from '@server/lib/errors';
+import { hashToken, isTokenShaped, newToken } from '@server/lib/tokens';
+import { createUser, findUserByEmail } from '@server/features/auth';
+import { enqueueMail, mailDateTime, quoted, type QueuedMail } from '@server/features/mail';
+import { addMember, findRole } from '@server/features/members';
 import * as repo from './invitations.repository';
-import { paths } from '../../../shared/paths';
+import { paths } from '@shared/paths';
 
 /** Where the client shows an invitation; the mail's button leads here. */
 

@@ -5,14 +5,14 @@
  * and Playwright.
  */
 import { Router, type Request, type RequestHandler } from 'express';
-import type { AppConfig } from '../../config';
+import type { AppConfig } from '@server/config';
 import {
   listCaughtMail,
   readCaughtMail,
   readCaughtMailSource,
   type CaughtMail,
-} from '../../lib/mail-catcher';
-import { configuredHosts } from '../../middleware/origin-check';
+} from '@server/lib/mail-catcher';
+import { configuredHosts } from '@server/middleware/origin-check';
 import { escapeHtml } from './mail.templates';
 
 const wantsJson = (req: Request) =>

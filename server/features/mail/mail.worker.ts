@@ -5,8 +5,8 @@
  * themselves and never start the timer.
  */
 import type { Knex } from 'knex';
-import type { Logger } from '../../lib/logger';
-import type { Mailer } from '../../lib/mailer';
+import type { Logger } from '@server/lib/logger';
+import type { Mailer } from '@server/lib/mailer';
 import { renderMail } from './mail.templates';
 import * as repo from './mail.repository';
 

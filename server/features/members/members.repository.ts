@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { Role } from '../../../shared/permissions';
+import type { Role } from '@shared/permissions';
 
 type MemberRow = {
   user_id: string;

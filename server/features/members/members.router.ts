@@ -1,7 +1,7 @@
 import { Router } from 'express';
-import { updateMemberInputSchema } from '../../../shared/schemas/builds';
-import type { AppDeps } from '../../lib/deps';
-import { validate } from '../../middleware/validate';
+import { updateMemberInputSchema } from '@shared/schemas/builds';
+import type { AppDeps } from '@server/lib/deps';
+import { validate } from '@server/middleware/validate';
 import * as service from './members.service';
 
 /**

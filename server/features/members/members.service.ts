@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
-import { can, type Role } from '../../../shared/permissions';
-import type { UpdateMemberInput } from '../../../shared/schemas/builds';
-import { idSchema } from '../../../shared/schemas/common';
-import { ConflictError, NotFoundError } from '../../lib/errors';
+import { can, type Role } from '@shared/permissions';
+import type { UpdateMemberInput } from '@shared/schemas/builds';
+import { idSchema } from '@shared/schemas/common';
+import { ConflictError, NotFoundError } from '@server/lib/errors';
 import * as repo from './members.repository';
 
 function present(member: repo.MemberRecord, viewerRole: Role) {

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import type { Role } from '../../../shared/permissions';
-import { noticeKindDefaults, type NoticeKind } from '../../../shared/schemas/notices';
+import type { Role } from '@shared/permissions';
+import { noticeKindDefaults, type NoticeKind } from '@shared/schemas/notices';
 
 export type Recipient = { user_id: string; email: string; role: Role };
 

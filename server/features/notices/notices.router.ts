@@ -1,7 +1,7 @@
 import { Router } from 'express';
-import { noticePreferencesInputSchema } from '../../../shared/schemas/notices';
-import type { AppDeps } from '../../lib/deps';
-import { validate } from '../../middleware/validate';
+import { noticePreferencesInputSchema } from '@shared/schemas/notices';
+import type { AppDeps } from '@server/lib/deps';
+import { validate } from '@server/middleware/validate';
 import * as service from './notices.service';
 
 /** Mounted at /api/builds/:buildId/notice-preferences: each member's own choices. */

@@ -9,7 +9,7 @@
  * notice never carries money — callers must not put any in subject or text.
  */
 import type { Knex } from 'knex';
-import { roleLabels } from '../../../shared/permissions';
+import { roleLabels } from '@shared/permissions';
 import {
   noticeAudience,
   noticeKindDefaults,
@@ -18,8 +18,8 @@ import {
   type NoticeKind,
   type NoticePreferences,
   type NoticePreferencesInput,
-} from '../../../shared/schemas/notices';
-import { enqueueMail, quoted } from '../mail';
+} from '@shared/schemas/notices';
+import { enqueueMail, quoted } from '@server/features/mail';
 import * as repo from './notices.repository';
 
 export type Notice = {

@@ -4,8 +4,8 @@
  * import), the shop by its member's e-mail.
  */
 import Papa from 'papaparse';
-import { centsToInput, parseMoneyToCents } from '../../../shared/format';
-import { csvMoneyColumns } from '../../../shared/ledger/csv';
+import { centsToInput, parseMoneyToCents } from '@shared/format';
+import { csvMoneyColumns } from '@shared/ledger/csv';
 import {
   partCategories,
   partCategoryLabels,
@@ -13,7 +13,7 @@ import {
   partStatusLabels,
   ratingUnits,
   ratingUnitLabels,
-} from '../../../shared/schemas/parts';
+} from '@shared/schemas/parts';
 import type { PartRecord } from './parts.repository';
 
 export const csvColumns = [

@@ -4,11 +4,11 @@
  * parts.service update() inside the transaction of the change.
  */
 import type { Knex } from 'knex';
-import { partCategoryLabels, type UpdatePartInput } from '../../../shared/schemas/parts';
-import { quoted } from '../mail';
-import { actorName, notify } from '../notices';
+import { partCategoryLabels, type UpdatePartInput } from '@shared/schemas/parts';
+import { quoted } from '@server/features/mail';
+import { actorName, notify } from '@server/features/notices';
 import type { PartRecord } from './parts.repository';
-import { paths } from '../../../shared/paths';
+import { paths } from '@shared/paths';
 
 /** Client path of a build's parts ledger. */
 

@@ -10,13 +10,13 @@
  * that made it queues the notice, in the same transaction. Nothing is kept in memory.
  */
 import type { Knex } from 'knex';
-import { addDays, buildToday, daysBetween, fallbackTimeZone, todayIn } from '../../../shared/dates';
-import { partCategoryLabels } from '../../../shared/schemas/parts';
-import type { Logger } from '../../lib/logger';
-import { mailDate, quoted } from '../mail';
-import { notify } from '../notices';
+import { addDays, buildToday, daysBetween, fallbackTimeZone, todayIn } from '@shared/dates';
+import { partCategoryLabels } from '@shared/schemas/parts';
+import type { Logger } from '@server/lib/logger';
+import { mailDate, quoted } from '@server/features/mail';
+import { notify } from '@server/features/notices';
 import * as repo from './parts.repository';
-import { paths } from '../../../shared/paths';
+import { paths } from '@shared/paths';
 
 /**
  * The latest "today" any build can have at `now`: UTC's date plus one (no zone is more than

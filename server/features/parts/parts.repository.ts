@@ -1,12 +1,12 @@
 import type { Knex } from 'knex';
-import { namedRows } from '../../lib/named-query';
+import { namedRows } from '@server/lib/named-query';
 import type {
   CreatePartInput,
   PartCategory,
   PartStatus,
   RatingUnit,
   UpdatePartInput,
-} from '../../../shared/schemas/parts';
+} from '@shared/schemas/parts';
 
 /** camelCase field → snake_case column, for every writable field. */
 const columns = {

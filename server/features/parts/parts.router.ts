@@ -1,10 +1,10 @@
 import { Router } from 'express';
 import multer from 'multer';
-import { createPartInputSchema, updatePartInputSchema } from '../../../shared/schemas/parts';
-import type { AppDeps } from '../../lib/deps';
-import { AppError } from '../../lib/errors';
-import { validate } from '../../middleware/validate';
-import { receiveUpload } from '../../lib/uploads';
+import { createPartInputSchema, updatePartInputSchema } from '@shared/schemas/parts';
+import type { AppDeps } from '@server/lib/deps';
+import { AppError } from '@server/lib/errors';
+import { validate } from '@server/middleware/validate';
+import { receiveUpload } from '@server/lib/uploads';
 import * as service from './parts.service';
 
 export const maxCsvBytes = 2 * 1024 * 1024;

@@ -1,9 +1,9 @@
 import type { Knex } from 'knex';
-import { can } from '../../../shared/permissions';
-import { partTotalCents } from '../../../shared/ledger/cost';
-import { sendOutStatus } from '../../../shared/ledger/send-out';
-import { stampStatusDates } from '../../../shared/ledger/status-dates';
-import { idSchema } from '../../../shared/schemas/common';
+import { can } from '@shared/permissions';
+import { partTotalCents } from '@shared/ledger/cost';
+import { sendOutStatus } from '@shared/ledger/send-out';
+import { stampStatusDates } from '@shared/ledger/status-dates';
+import { idSchema } from '@shared/schemas/common';
 import {
   createPartInputSchema,
   partConsistencyIssues,
@@ -11,21 +11,21 @@ import {
   type CreatePartInput,
   type Part,
   type UpdatePartInput,
-} from '../../../shared/schemas/parts';
+} from '@shared/schemas/parts';
 import {
   AppError,
   ForbiddenError,
   NotFoundError,
   ValidationError,
   fieldsFromZod,
-} from '../../lib/errors';
-import type { Logger } from '../../lib/logger';
-import type { Caller } from '../../lib/scope';
-import type { BuildRowJson } from '../../lib/sessions.repository';
-import type { Storage } from '../../lib/storage';
-import * as files from '../files';
+} from '@server/lib/errors';
+import type { Logger } from '@server/lib/logger';
+import type { Caller } from '@server/lib/scope';
+import type { BuildRowJson } from '@server/lib/sessions.repository';
+import type { Storage } from '@server/lib/storage';
+import * as files from '@server/features/files';
 import { csvFileName, parseCsv, partsToCsv } from './parts.csv';
-import * as builds from '../builds';
+import * as builds from '@server/features/builds';
 import { notifyPartProgress } from './parts.notices';
 import * as repo from './parts.repository';
 

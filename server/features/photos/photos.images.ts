@@ -9,8 +9,8 @@
  */
 import os from 'node:os';
 import sharp, { type Metadata } from 'sharp';
-import { photoFormats, photoSizes, type PhotoFormat } from '../../../shared/schemas/photos';
-import { AppError } from '../../lib/errors';
+import { photoFormats, photoSizes, type PhotoFormat } from '@shared/schemas/photos';
+import { AppError } from '@server/lib/errors';
 
 export type ProcessedImage = { data: Buffer; width: number; height: number };
 export type ProcessedPhoto = {

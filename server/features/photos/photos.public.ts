@@ -4,9 +4,9 @@
  * feature's question; this answers which photos and their bytes.
  */
 import type { Knex } from 'knex';
-import type { PhotoSize } from '../../../shared/schemas/photos';
-import { NotFoundError } from '../../lib/errors';
-import { parseId } from '../../lib/scope';
+import type { PhotoSize } from '@shared/schemas/photos';
+import { NotFoundError } from '@server/lib/errors';
+import { parseId } from '@server/lib/scope';
 import * as repo from './photos.repository';
 import type { Ctx } from './photos.service';
 

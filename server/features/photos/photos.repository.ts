@@ -1,6 +1,6 @@
 /** The only place the photos table is queried. */
 import type { Knex } from 'knex';
-import type { Photo, PhotoFormat } from '../../../shared/schemas/photos';
+import type { Photo, PhotoFormat } from '@shared/schemas/photos';
 
 type PhotoRow = {
   id: string;

@@ -9,12 +9,12 @@ import {
   updatePhotoInputSchema,
   uploadPhotoFieldsSchema,
   type PhotoSize,
-} from '../../../shared/schemas/photos';
-import type { AppDeps } from '../../lib/deps';
-import { answerOnce } from '../../lib/idempotency';
-import { sendStoredFile } from '../../lib/stored-file';
-import { receiveUpload } from '../../lib/uploads';
-import { assertNoNul, validate } from '../../middleware/validate';
+} from '@shared/schemas/photos';
+import type { AppDeps } from '@server/lib/deps';
+import { answerOnce } from '@server/lib/idempotency';
+import { sendStoredFile } from '@server/lib/stored-file';
+import { receiveUpload } from '@server/lib/uploads';
+import { assertNoNul, validate } from '@server/middleware/validate';
 import * as service from './photos.service';
 
 /**

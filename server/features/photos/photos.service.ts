@@ -7,15 +7,15 @@
  */
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
-import { canAddPhotosTo, canCaptionPhoto } from '../../../shared/permissions';
-import type { Photo, PhotoSize, UpdatePhotoInput } from '../../../shared/schemas/photos';
-import { AppError, ForbiddenError, NotFoundError } from '../../lib/errors';
-import type { Logger } from '../../lib/logger';
-import { parseId, type Caller } from '../../lib/scope';
-import type { Storage } from '../../lib/storage';
-import * as storedFiles from '../files';
-import * as installLog from '../install-log';
-import * as parts from '../parts';
+import { canAddPhotosTo, canCaptionPhoto } from '@shared/permissions';
+import type { Photo, PhotoSize, UpdatePhotoInput } from '@shared/schemas/photos';
+import { AppError, ForbiddenError, NotFoundError } from '@server/lib/errors';
+import type { Logger } from '@server/lib/logger';
+import { parseId, type Caller } from '@server/lib/scope';
+import type { Storage } from '@server/lib/storage';
+import * as storedFiles from '@server/features/files';
+import * as installLog from '@server/features/install-log';
+import * as parts from '@server/features/parts';
 import * as repo from './photos.repository';
 import { processPhoto, type ProcessedPhoto } from './photos.images';
 

@@ -3,8 +3,8 @@
  * (shared by every process): the page's HTML and data on one counter, its photos
  * on another, per client address per minute.
  */
-import type { AppDeps } from '../../lib/deps';
-import { createRateLimit } from '../../middleware/rate-limit';
+import type { AppDeps } from '@server/lib/deps';
+import { createRateLimit } from '@server/middleware/rate-limit';
 
 export function sharedLimits({ db, config }: Pick<AppDeps, 'db' | 'config'>) {
   const message = 'Too many requests for shared builds from here. Wait a minute and try again.';

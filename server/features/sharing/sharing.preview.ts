@@ -3,11 +3,11 @@
  * image), written into the HTML that Express sends: link previews run no script.
  */
 import type { Knex } from 'knex';
-import { powerBasisLabels } from '../../../shared/builds/vocabulary';
-import { formatIsoDate, formatNumber } from '../../../shared/format';
-import * as builds from '../builds';
-import * as members from '../members';
-import * as photos from '../photos';
+import { powerBasisLabels } from '@shared/builds/vocabulary';
+import { formatIsoDate, formatNumber } from '@shared/format';
+import * as builds from '@server/features/builds';
+import * as members from '@server/features/members';
+import * as photos from '@server/features/photos';
 import type { ShareRecord } from './sharing.repository';
 
 export type Preview = {

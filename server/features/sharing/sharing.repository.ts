@@ -1,6 +1,6 @@
 /** The only place build_shares is queried. */
 import type { Knex } from 'knex';
-import { shareSections, type ShareSections } from '../../../shared/sharing/vocabulary';
+import { shareSections, type ShareSections } from '@shared/sharing/vocabulary';
 
 type ShareRow = {
   build_id: string;

@@ -5,20 +5,20 @@
  * writable). The public page's HTML is sharing.shell.ts, mounted by the app.
  */
 import { Router, type Request } from 'express';
-import { can } from '../../../shared/permissions';
+import { can } from '@shared/permissions';
 import {
   photoVisibilityInputSchema,
   regenerateShareInputSchema,
   sheetQuerySchema,
   updateShareInputSchema,
-} from '../../../shared/schemas/sharing';
-import { shareSections } from '../../../shared/sharing/vocabulary';
-import type { PhotoSize } from '../../../shared/schemas/photos';
-import type { AppDeps } from '../../lib/deps';
-import { NotFoundError, ValidationError, fieldsFromZod } from '../../lib/errors';
-import { param } from '../../lib/scope';
-import { validate } from '../../middleware/validate';
-import * as photos from '../photos';
+} from '@shared/schemas/sharing';
+import { shareSections } from '@shared/sharing/vocabulary';
+import type { PhotoSize } from '@shared/schemas/photos';
+import type { AppDeps } from '@server/lib/deps';
+import { NotFoundError, ValidationError, fieldsFromZod } from '@server/lib/errors';
+import { param } from '@server/lib/scope';
+import { validate } from '@server/middleware/validate';
+import * as photos from '@server/features/photos';
 import { publicHeaders, sendPublic } from './sharing.http';
 import { sharedLimits } from './sharing.limits';
 import * as service from './sharing.service';

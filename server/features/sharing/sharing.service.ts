@@ -10,12 +10,12 @@ import {
   defaultShareSections,
   type ShareSettings,
   type UpdateShareInput,
-} from '../../../shared/schemas/sharing';
-import { NotFoundError, ValidationError } from '../../lib/errors';
-import { isTokenShaped, newToken } from '../../lib/tokens';
-import * as photos from '../photos';
+} from '@shared/schemas/sharing';
+import { NotFoundError, ValidationError } from '@server/lib/errors';
+import { isTokenShaped, newToken } from '@server/lib/tokens';
+import * as photos from '@server/features/photos';
 import * as repo from './sharing.repository';
-import { paths } from '../../../shared/paths';
+import { paths } from '@shared/paths';
 
 export type ShareCtx = { knex: Knex; appUrl: string };
 

@@ -8,13 +8,13 @@
 import fs from 'node:fs/promises';
 import path from 'node:path';
 import type { RequestHandler } from 'express';
-import type { AppDeps } from '../../lib/deps';
-import { NotFoundError } from '../../lib/errors';
+import type { AppDeps } from '@server/lib/deps';
+import { NotFoundError } from '@server/lib/errors';
 import { noindex, sendPublic } from './sharing.http';
 import { previewOf, type Preview } from './sharing.preview';
 import { sharedLimits } from './sharing.limits';
 import * as service from './sharing.service';
-import { paths } from '../../../shared/paths';
+import { paths } from '@shared/paths';
 
 const escape = (s: string) =>
   s.replace(

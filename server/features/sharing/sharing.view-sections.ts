@@ -1,12 +1,12 @@
 /** The install log and the dyno days as BuildView shows them (see sharing.view.ts). */
-import { formatNumber } from '../../../shared/format';
-import { torqueUnitLabels } from '../../../shared/install-log/torque';
-import { DEFAULT_CORRECTION_STANDARD } from '../../../shared/schemas/dyno';
-import { threadConditionLabels } from '../../../shared/schemas/install-log';
-import type { FastenerSpec, Step } from '../../../shared/schemas/install-log';
-import type { ViewFastener } from '../../../shared/schemas/sharing';
-import type { BuildScope } from '../../lib/scope';
-import * as dyno from '../dyno';
+import { formatNumber } from '@shared/format';
+import { torqueUnitLabels } from '@shared/install-log/torque';
+import { DEFAULT_CORRECTION_STANDARD } from '@shared/schemas/dyno';
+import { threadConditionLabels } from '@shared/schemas/install-log';
+import type { FastenerSpec, Step } from '@shared/schemas/install-log';
+import type { ViewFastener } from '@shared/schemas/sharing';
+import type { BuildScope } from '@server/lib/scope';
+import * as dyno from '@server/features/dyno';
 
 type Options = { kind: 'public' | 'member'; showNames: boolean };
 

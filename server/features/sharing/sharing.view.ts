@@ -7,31 +7,26 @@
  * e-mail address survives it, whatever a field holds.
  */
 import type { Knex } from 'knex';
-import { computeBudget } from '../../../shared/ledger/budget';
-import { partTotalCents } from '../../../shared/ledger/cost';
+import { computeBudget } from '@shared/ledger/budget';
+import { partTotalCents } from '@shared/ledger/cost';
 import {
   partCategories,
   partCategoryLabels,
   partStatusLabels,
   ratingUnitLabels,
   type PartCategory,
-} from '../../../shared/schemas/parts';
-import type {
-  BuildView,
-  ShareSections,
-  ViewPart,
-  ViewPhoto,
-} from '../../../shared/schemas/sharing';
-import { AppError, NotFoundError } from '../../lib/errors';
-import { stripMoney } from '../../lib/money-filter';
-import type { BuildScope } from '../../lib/scope';
-import * as bench from '../bench';
-import * as builds from '../builds';
-import * as estimate from '../estimate';
-import * as installLog from '../install-log';
-import * as members from '../members';
-import * as parts from '../parts';
-import * as photos from '../photos';
+} from '@shared/schemas/parts';
+import type { BuildView, ShareSections, ViewPart, ViewPhoto } from '@shared/schemas/sharing';
+import { AppError, NotFoundError } from '@server/lib/errors';
+import { stripMoney } from '@server/lib/money-filter';
+import type { BuildScope } from '@server/lib/scope';
+import * as bench from '@server/features/bench';
+import * as builds from '@server/features/builds';
+import * as estimate from '@server/features/estimate';
+import * as installLog from '@server/features/install-log';
+import * as members from '@server/features/members';
+import * as parts from '@server/features/parts';
+import * as photos from '@server/features/photos';
 import { viewDyno, viewInstall } from './sharing.view-sections';
 
 export type ViewOptions = {

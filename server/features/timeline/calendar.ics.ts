@@ -8,8 +8,8 @@
  * Only what the timeline answer holds goes in: it carries no money.
  */
 import ical, { ICalCalendarMethod } from 'ical-generator';
-import { addDays } from '../../../shared/dates';
-import type { Timeline, TimelineItem } from '../../../shared/schemas/timeline';
+import { addDays } from '@shared/dates';
+import type { Timeline, TimelineItem } from '@shared/schemas/timeline';
 import { linkPath } from './links';
 
 const summaries: Record<TimelineItem['kind'], (i: TimelineItem) => string> = {

@@ -6,10 +6,10 @@
  * longer on the build. The feed shows what the member's current role shows.
  */
 import type { Knex } from 'knex';
-import { NotFoundError } from '../../lib/errors';
-import type { BuildScope } from '../../lib/scope';
-import { hashToken, isTokenShaped, newToken } from '../../lib/tokens';
-import { findRole } from '../members';
+import { NotFoundError } from '@server/lib/errors';
+import type { BuildScope } from '@server/lib/scope';
+import { hashToken, isTokenShaped, newToken } from '@server/lib/tokens';
+import { findRole } from '@server/features/members';
 import { feedIcs } from './calendar.ics';
 import * as repo from './calendar.repository';
 import { loadTimeline } from './timeline.service';

@@ -4,12 +4,12 @@
  * shop's digest is made from its own timeline, so it names only the parts sent to it.
  * No money: the timeline answer carries none.
  */
-import { addDays, longDate, shortDate, type IsoDate } from '../../../shared/dates';
-import { roleLabels, type Role } from '../../../shared/permissions';
-import { noticeKindLabels } from '../../../shared/schemas/notices';
-import type { Timeline } from '../../../shared/schemas/timeline';
-import { quoted, type QueuedMail } from '../mail';
-import { paths } from '../../../shared/paths';
+import { addDays, longDate, shortDate, type IsoDate } from '@shared/dates';
+import { roleLabels, type Role } from '@shared/permissions';
+import { noticeKindLabels } from '@shared/schemas/notices';
+import type { Timeline } from '@shared/schemas/timeline';
+import { quoted, type QueuedMail } from '@server/features/mail';
+import { paths } from '@shared/paths';
 
 const comingUpDays = 14;
 

@@ -1,6 +1,6 @@
 /** The record of weekly digests queued: one row per build, member and week. */
 import type { Knex } from 'knex';
-import type { IsoDate } from '../../../shared/dates';
+import type { IsoDate } from '@shared/dates';
 
 /** Members of a build whose digest for the week is already queued. */
 export async function sentForWeek(knex: Knex, buildId: string, weekOf: IsoDate) {

@@ -9,12 +9,12 @@
  * Builds without a target date, or whose target date has passed, send none.
  */
 import type { Knex } from 'knex';
-import { fallbackTimeZone, wallClock, weekOf } from '../../../shared/dates';
-import type { Role } from '../../../shared/permissions';
-import type { Logger } from '../../lib/logger';
-import * as builds from '../builds';
-import { enqueueMail } from '../mail';
-import { subscribers } from '../notices';
+import { fallbackTimeZone, wallClock, weekOf } from '@shared/dates';
+import type { Role } from '@shared/permissions';
+import type { Logger } from '@server/lib/logger';
+import * as builds from '@server/features/builds';
+import { enqueueMail } from '@server/features/mail';
+import { subscribers } from '@server/features/notices';
 import { digestMail } from './digest.mail';
 import * as repo from './digest.repository';
 import { loadTimeline } from './timeline.service';

@@ -1,6 +1,6 @@
 /** Client paths of what the timeline links to, for mails and calendar events (shared/paths). */
-import { paths } from '../../../shared/paths';
-import type { TimelineLink } from '../../../shared/schemas/timeline';
+import { paths } from '@shared/paths';
+import type { TimelineLink } from '@shared/schemas/timeline';
 
 export function linkPath(buildId: string, link: TimelineLink): string {
   const b = paths.builds;

@@ -4,7 +4,7 @@ import type {
   CreateMilestoneInput,
   Milestone,
   UpdateMilestoneInput,
-} from '../../../shared/schemas/timeline';
+} from '@shared/schemas/timeline';
 
 type Row = {
   id: string;

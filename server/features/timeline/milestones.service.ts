@@ -1,7 +1,7 @@
 /** Milestones: dated goals the owner sets on the way to the target date. */
-import type { CreateMilestoneInput, UpdateMilestoneInput } from '../../../shared/schemas/timeline';
-import { NotFoundError } from '../../lib/errors';
-import { parseId, type BuildScope } from '../../lib/scope';
+import type { CreateMilestoneInput, UpdateMilestoneInput } from '@shared/schemas/timeline';
+import { NotFoundError } from '@server/lib/errors';
+import { parseId, type BuildScope } from '@server/lib/scope';
 import * as repo from './milestones.repository';
 
 export const list = ({ knex, buildId }: BuildScope) => repo.listMilestones(knex, buildId);

@@ -1,6 +1,6 @@
 /** The owner's timeline settings; no row means the defaults. */
 import type { Knex } from 'knex';
-import { defaultBufferDays } from '../../../shared/schemas/timeline';
+import { defaultBufferDays } from '@shared/schemas/timeline';
 
 export type TimelineSettings = { bufferDays: number; stepsPerWeek: number | null };
 

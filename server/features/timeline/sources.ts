@@ -4,10 +4,10 @@
  * own adds one entry to `sources` (as dyno days do) — the page, the calendar feed and the
  * weekly digest then carry its items with no other change.
  */
-import { can } from '../../../shared/permissions';
-import { wallClock, type IsoDate } from '../../../shared/dates';
-import type { Threat, TimelineItem } from '../../../shared/schemas/timeline';
-import { dynoDayItem, jobItems, milestoneItem, partItems } from '../../../shared/timeline/items';
+import { can } from '@shared/permissions';
+import { wallClock, type IsoDate } from '@shared/dates';
+import type { Threat, TimelineItem } from '@shared/schemas/timeline';
+import { dynoDayItem, jobItems, milestoneItem, partItems } from '@shared/timeline/items';
 import {
   jobThreats,
   milestoneThreats,
@@ -15,11 +15,11 @@ import {
   sendOutThreats,
   type Clock,
   type JobFacts,
-} from '../../../shared/timeline/rules';
-import type { BuildScope } from '../../lib/scope';
-import * as dyno from '../dyno';
-import * as installLog from '../install-log';
-import * as parts from '../parts';
+} from '@shared/timeline/rules';
+import type { BuildScope } from '@server/lib/scope';
+import * as dyno from '@server/features/dyno';
+import * as installLog from '@server/features/install-log';
+import * as parts from '@server/features/parts';
 import * as milestonesRepo from './milestones.repository';
 
 export type SourceContext = { scope: BuildScope; clock: Clock; timeZone: string };

@@ -3,11 +3,11 @@ import {
   createMilestoneInputSchema,
   timelineSettingsInputSchema,
   updateMilestoneInputSchema,
-} from '../../../shared/schemas/timeline';
-import type { AppDeps } from '../../lib/deps';
-import { weakEtag } from '../../lib/etag';
-import { param, scoped } from '../../lib/scope';
-import { validate } from '../../middleware/validate';
+} from '@shared/schemas/timeline';
+import type { AppDeps } from '@server/lib/deps';
+import { weakEtag } from '@server/lib/etag';
+import { param, scoped } from '@server/lib/scope';
+import { validate } from '@server/middleware/validate';
 import * as calendar from './calendar.service';
 import * as milestones from './milestones.service';
 import * as timeline from './timeline.service';

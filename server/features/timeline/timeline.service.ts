@@ -3,19 +3,19 @@
  * countdown, what threatens the target date and every dated item. The page, the
  * calendar feed and the weekly digest all read this one answer.
  */
-import { fallbackTimeZone, todayIn } from '../../../shared/dates';
-import { can } from '../../../shared/permissions';
-import type { Build } from '../../../shared/schemas/builds';
+import { fallbackTimeZone, todayIn } from '@shared/dates';
+import { can } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
 import {
   threatRules,
   type Threat,
   type Timeline,
   type TimelineSettingsInput,
-} from '../../../shared/schemas/timeline';
-import { judgeItems, targetItem } from '../../../shared/timeline/items';
-import { cutoffOf, daysLeftOf, readinessOf, type Clock } from '../../../shared/timeline/rules';
-import type { BuildScope } from '../../lib/scope';
-import * as builds from '../builds';
+} from '@shared/schemas/timeline';
+import { judgeItems, targetItem } from '@shared/timeline/items';
+import { cutoffOf, daysLeftOf, readinessOf, type Clock } from '@shared/timeline/rules';
+import type { BuildScope } from '@server/lib/scope';
+import * as builds from '@server/features/builds';
 import * as milestonesRepo from './milestones.repository';
 import * as settingsRepo from './settings.repository';
 import { sources } from './sources';

@@ -1,6 +1,6 @@
 /** Each person's torque wrenches (torque_wrenches), and a build's calibration interval. */
 import type { Knex } from 'knex';
-import type { Wrench } from '../../../shared/schemas/wrenches';
+import type { Wrench } from '@shared/schemas/wrenches';
 
 type WrenchRow = {
   id: string;

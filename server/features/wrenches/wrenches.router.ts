@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { createWrenchInputSchema, updateWrenchInputSchema } from '../../../shared/schemas/wrenches';
-import type { AppDeps } from '../../lib/deps';
-import { requireAuth } from '../../middleware/require-auth';
-import { validate } from '../../middleware/validate';
+import { createWrenchInputSchema, updateWrenchInputSchema } from '@shared/schemas/wrenches';
+import type { AppDeps } from '@server/lib/deps';
+import { requireAuth } from '@server/middleware/require-auth';
+import { validate } from '@server/middleware/validate';
 import * as service from './wrenches.service';
 
 /** Mounted at /api/me/wrenches: the signed-in person's own torque wrenches. */

@@ -4,10 +4,10 @@
  * may only name a wrench of the person recording it.
  */
 import type { Knex } from 'knex';
-import { calibrationOn, type Calibration } from '../../../shared/install-log/wrenches';
-import type { CreateWrenchInput, UpdateWrenchInput } from '../../../shared/schemas/wrenches';
-import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
-import { parseId } from '../../lib/scope';
+import { calibrationOn, type Calibration } from '@shared/install-log/wrenches';
+import type { CreateWrenchInput, UpdateWrenchInput } from '@shared/schemas/wrenches';
+import { ConflictError, NotFoundError, ValidationError } from '@server/lib/errors';
+import { parseId } from '@server/lib/scope';
 import * as repo from './wrenches.repository';
 
 const nameTaken = () =>

@@ -1,14 +1,14 @@
 import { lazy, Suspense } from 'react';
 import { Navigate } from 'react-router-dom';
 import { Gauge, ReceiptText, Users, Wrench } from 'lucide-react';
-import { paths } from '../../config/paths';
-import { useMe } from '../../features/auth/api/get-me';
-import { ButtonLink } from '../../components/ui/button';
-import { PageSpinner } from '../../components/ui/spinner';
+import { paths } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
+import { ButtonLink } from '@/components/ui/button';
+import { PageSpinner } from '@/components/ui/spinner';
 
 // The calculator carries the estimator; the rest of the landing page does not wait for it.
 const TryItCalculator = lazy(() =>
-  import('../../features/estimate/components/try-it-calculator').then((m) => ({
+  import('@/features/estimate/components/try-it-calculator').then((m) => ({
     default: m.TryItCalculator,
   })),
 );

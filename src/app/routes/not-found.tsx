@@ -1,7 +1,7 @@
-import { useMe } from '../../features/auth/api/get-me';
-import { paths } from '../../config/paths';
-import { ButtonLink } from '../../components/ui/button';
-import { NotFoundState } from '../../components/ui/states';
+import { useMe } from '@/features/auth/api/get-me';
+import { paths } from '@/config/paths';
+import { ButtonLink } from '@/components/ui/button';
+import { NotFoundState } from '@/components/ui/states';
 
 export function NotFoundRoute() {
   const me = useMe();

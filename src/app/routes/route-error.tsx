@@ -1,6 +1,6 @@
 import { isRouteErrorResponse, useRouteError } from 'react-router-dom';
-import { ErrorState } from '../../components/ui/states';
-import { Button } from '../../components/ui/button';
+import { ErrorState } from '@/components/ui/states';
+import { Button } from '@/components/ui/button';
 
 /**
  * A page that crashed while rendering, or a lazy chunk that failed to load (often after a

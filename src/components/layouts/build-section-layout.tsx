@@ -1,7 +1,7 @@
 import { NavLink, Outlet, useParams } from 'react-router-dom';
-import { can } from '../../../shared/permissions';
-import { useBuild } from '../../features/builds/api/get-build';
-import { cn } from '../ui/cn';
+import { can } from '@shared/permissions';
+import { useBuild } from '@/features/builds/api/get-build';
+import { cn } from '@/components/ui/cn';
 import { buildSections } from './build-sections';
 
 /**

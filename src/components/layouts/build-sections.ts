@@ -20,8 +20,8 @@ import {
   Truck,
   type LucideIcon,
 } from 'lucide-react';
-import type { Action } from '../../../shared/permissions';
-import { paths } from '../../config/paths';
+import type { Action } from '@shared/permissions';
+import { paths } from '@/config/paths';
 
 export type BuildSection = {
   /** The tab's words: short, one or two words (the page's own heading may say more). */

@@ -1,10 +1,10 @@
 import { useEffect } from 'react';
 import { onlineManager, useQueryClient } from '@tanstack/react-query';
 import { CloudOff, Wifi } from 'lucide-react';
-import { useMe } from '../../features/auth/api/get-me';
-import { formatWhen } from '../../lib/dates';
-import { lastUser, persistCacheFor } from '../../lib/offline-cache';
-import { openQueue, useOfflineQueue } from '../../lib/offline-queue';
+import { useMe } from '@/features/auth/api/get-me';
+import { formatWhen } from '@/lib/dates';
+import { lastUser, persistCacheFor } from '@/lib/offline-cache';
+import { openQueue, useOfflineQueue } from '@/lib/offline-queue';
 
 /**
  * Follows the signed-in user: their saved cache and their queue of waiting writes (another

@@ -1,14 +1,14 @@
 import { Suspense, useState } from 'react';
 import { Link, Outlet, ScrollRestoration, useLocation } from 'react-router-dom';
 import { LogOut, UserRound } from 'lucide-react';
-import { useMe } from '../../features/auth/api/get-me';
-import { useSignOut } from '../../features/auth/api/sign-out';
-import { paths } from '../../config/paths';
-import { currentQueue } from '../../lib/offline-queue';
-import { Button, ButtonLink } from '../ui/button';
-import { ConfirmDialog } from '../ui/confirm-dialog';
-import { Wordmark } from '../ui/logo';
-import { PageSpinner } from '../ui/spinner';
+import { useMe } from '@/features/auth/api/get-me';
+import { useSignOut } from '@/features/auth/api/sign-out';
+import { paths } from '@/config/paths';
+import { currentQueue } from '@/lib/offline-queue';
+import { Button, ButtonLink } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { Wordmark } from '@/components/ui/logo';
+import { PageSpinner } from '@/components/ui/spinner';
 import { OfflineStatus } from './offline-status';
 
 function SignOutButton() {

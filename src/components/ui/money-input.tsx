@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState, type FocusEventHandler, type Ref } from 'react';
-import { centsToInput, parseMoneyToCents } from '../../../shared/format';
+import { centsToInput, parseMoneyToCents } from '@shared/format';
 import { TextInput, type ControlProps } from './form-field';
 
 type MoneyInputProps = ControlProps & {

@@ -7,7 +7,7 @@ import {
   type Ref,
   type SelectHTMLAttributes,
 } from 'react';
-import { numberToInput, parseNumber } from '../../../shared/numbers';
+import { numberToInput, parseNumber } from '@shared/numbers';
 import { cn } from './cn';
 import { SelectInput, TextInput } from './form-field';
 

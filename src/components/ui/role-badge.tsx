@@ -1,4 +1,4 @@
-import { roleLabels, type Role } from '../../../shared/permissions';
+import { roleLabels, type Role } from '@shared/permissions';
 import { Badge } from './badge';
 
 export function RoleBadge({ role, prefix }: { role: Role; prefix?: string }) {

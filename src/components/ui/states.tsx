@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { RefreshCw, SearchX, TriangleAlert } from 'lucide-react';
-import { isApiError } from '../../lib/api-client';
+import { isApiError } from '@/lib/api-client';
 import { Button } from './button';
 
 type TitleTag = 'p' | 'h1' | 'h2';

@@ -1,4 +1,4 @@
-import type { CorrectionChoice } from '../../../shared/schemas/dyno';
+import type { CorrectionChoice } from '@shared/schemas/dyno';
 
 /** The correction as a query string, for the API and for links between dyno pages. */
 export function choiceSearch(choice: CorrectionChoice): string {

@@ -4,7 +4,7 @@ import {
   DEFAULT_CORRECTION_STANDARD,
   correctionQuerySchema,
   type CorrectionChoice,
-} from '../../../shared/schemas/dyno';
+} from '@shared/schemas/dyno';
 import { choiceSearch } from './choice-search';
 
 /** A choice read from the address: anything unreadable falls back to the default standard. */

@@ -1,12 +1,8 @@
 import type { FieldErrors, FieldValues, Path, Resolver, UseFormSetError } from 'react-hook-form';
 import type { z } from 'zod';
-import type {
-  BarometerUnit,
-  DynoTemperatureUnit,
-  WeatherFields,
-} from '../../../shared/schemas/dyno';
-import { numberToInput, parseNumber } from '../../../shared/numbers';
-import { isApiError } from '../../lib/api-client';
+import type { BarometerUnit, DynoTemperatureUnit, WeatherFields } from '@shared/schemas/dyno';
+import { numberToInput, parseNumber } from '@shared/numbers';
+import { isApiError } from '@/lib/api-client';
 
 /**
  * The dyno forms hold what a person types (text in boxes); the shared zod schema checks the

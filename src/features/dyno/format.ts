@@ -1,17 +1,17 @@
-import { formatNumber } from '../../../shared/format';
-import { dynoUnitLabels } from '../../../shared/dyno/working';
+import { formatNumber } from '@shared/format';
+import { dynoUnitLabels } from '@shared/dyno/working';
 import {
   type DynoPowerUnit,
   type DynoTorqueUnit,
   type PowerBasis,
   type WeatherFields,
-} from '../../../shared/schemas/dyno';
+} from '@shared/schemas/dyno';
 import {
   convertPower,
   convertPressure,
   convertTemperature,
   convertTorque,
-} from '../../../shared/units/convert';
+} from '@shared/units/convert';
 
 /** Power for reading: hp first, and the run's own unit after it when that is another. */
 export function powerText(value: number, unit: DynoPowerUnit, basis?: PowerBasis): string {

@@ -1,6 +1,6 @@
-import { figureUnitLabels } from '../../../shared/estimate';
-import type { PartCategory } from '../../../shared/schemas/parts';
-import { formatNumber } from '../../../shared/format';
+import { figureUnitLabels } from '@shared/estimate';
+import type { PartCategory } from '@shared/schemas/parts';
+import { formatNumber } from '@shared/format';
 
 /** Decimals worth showing for a figure in a unit (ratios and densities need more). */
 function digitsFor(unit: string, value: number): number {

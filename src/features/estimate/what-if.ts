@@ -1,5 +1,5 @@
-import { estimate } from '../../../shared/estimate';
-import type { EstimateResult } from '../../../shared/schemas/estimate';
+import { estimate } from '@shared/estimate';
+import type { EstimateResult } from '@shared/schemas/estimate';
 
 /**
  * The estimate the server would give if the build's target were `powerHp` (in the build's

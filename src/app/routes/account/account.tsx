@@ -1,12 +1,12 @@
 import { KeyRound, Mail, UserRound, Wrench } from 'lucide-react';
-import { paths } from '../../../config/paths';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { Section } from '../../../components/ui/card';
-import { EmailForm } from '../../../features/account/components/email-form';
-import { PasswordForm } from '../../../features/account/components/password-form';
-import { ProfileForm } from '../../../features/account/components/profile-form';
-import { WrenchList } from '../../../features/wrenches/components/wrench-list';
-import { useUser } from '../../../lib/auth';
+import { paths } from '@/config/paths';
+import { PageHeader } from '@/components/layouts/page-header';
+import { Section } from '@/components/ui/card';
+import { EmailForm } from '@/features/account/components/email-form';
+import { PasswordForm } from '@/features/account/components/password-form';
+import { ProfileForm } from '@/features/account/components/profile-form';
+import { WrenchList } from '@/features/wrenches/components/wrench-list';
+import { useUser } from '@/lib/auth';
 
 /** "/account": my name, e-mail address, password and torque wrenches. */
 export function AccountRoute() {

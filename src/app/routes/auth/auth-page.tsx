@@ -1,11 +1,11 @@
 import { useEffect, useState, type ReactNode } from 'react';
 import { Navigate, useSearchParams } from 'react-router-dom';
-import { safeNext } from '../../../config/paths';
-import { useMe } from '../../../features/auth/api/get-me';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { HeadroomMark } from '../../../components/ui/logo';
-import { Alert } from '../../../components/ui/alert';
-import { forgetSignedOutNotice, justSignedOut } from '../../../lib/auth';
+import { safeNext } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
+import { PageSpinner } from '@/components/ui/spinner';
+import { HeadroomMark } from '@/components/ui/logo';
+import { Alert } from '@/components/ui/alert';
+import { forgetSignedOutNotice, justSignedOut } from '@/lib/auth';
 
 /**
  * The frame of the sign-in and sign-up pages. A signed-in visitor (including one who just

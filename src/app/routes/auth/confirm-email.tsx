@@ -1,15 +1,15 @@
 import { useParams } from 'react-router-dom';
-import { emailChangeErrorCodes as codes } from '../../../../shared/schemas/account';
-import { paths } from '../../../config/paths';
-import { useConfirmEmailChange } from '../../../features/account/api/confirm-email-change';
-import { useEmailChange } from '../../../features/account/api/get-email-change';
-import { AuthCard } from '../../../features/auth/components/auth-card';
-import { useMe } from '../../../features/auth/api/get-me';
-import { isApiError } from '../../../lib/api-client';
-import { Alert } from '../../../components/ui/alert';
-import { Button, ButtonLink } from '../../../components/ui/button';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState, NotFoundState } from '../../../components/ui/states';
+import { emailChangeErrorCodes as codes } from '@shared/schemas/account';
+import { paths } from '@/config/paths';
+import { useConfirmEmailChange } from '@/features/account/api/confirm-email-change';
+import { useEmailChange } from '@/features/account/api/get-email-change';
+import { AuthCard } from '@/features/auth/components/auth-card';
+import { useMe } from '@/features/auth/api/get-me';
+import { isApiError } from '@/lib/api-client';
+import { Alert } from '@/components/ui/alert';
+import { Button, ButtonLink } from '@/components/ui/button';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState, NotFoundState } from '@/components/ui/states';
 
 const refusals: Record<string, string> = {
   [codes.notFound]: 'Check that the whole link was copied from the mail.',

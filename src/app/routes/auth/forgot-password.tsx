@@ -1,6 +1,6 @@
 import { useLocation } from 'react-router-dom';
-import { AuthCard } from '../../../features/auth/components/auth-card';
-import { ForgotPasswordForm } from '../../../features/auth/components/forgot-password-form';
+import { AuthCard } from '@/features/auth/components/auth-card';
+import { ForgotPasswordForm } from '@/features/auth/components/forgot-password-form';
 
 /** "/forgot-password": ask for a link to set a new password (linked from sign-in). */
 export function ForgotPasswordRoute() {

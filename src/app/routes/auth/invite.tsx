@@ -1,23 +1,20 @@
 import { useState } from 'react';
 import { flushSync } from 'react-dom';
 import { useNavigate, useParams } from 'react-router-dom';
-import { roleDescriptions } from '../../../../shared/permissions';
-import {
-  invitationErrorCodes as codes,
-  invitationValidDays,
-} from '../../../../shared/schemas/invitations';
-import { formatTimestampDate } from '../../../../shared/format';
-import { paths } from '../../../config/paths';
-import { useMe } from '../../../features/auth/api/get-me';
-import { AuthCard } from '../../../features/auth/components/auth-card';
-import { RoleBadge } from '../../../components/ui/role-badge';
-import type { AcceptInvitationResult } from '../../../features/invitations/api/accept-invitation';
-import { useInvitationLink } from '../../../features/invitations/api/get-invitation-link';
-import { InvitationAnswer } from '../../../features/invitations/components/invitation-answer';
-import { isApiError } from '../../../lib/api-client';
-import { ButtonLink } from '../../../components/ui/button';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState, NotFoundState } from '../../../components/ui/states';
+import { roleDescriptions } from '@shared/permissions';
+import { invitationErrorCodes as codes, invitationValidDays } from '@shared/schemas/invitations';
+import { formatTimestampDate } from '@shared/format';
+import { paths } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
+import { AuthCard } from '@/features/auth/components/auth-card';
+import { RoleBadge } from '@/components/ui/role-badge';
+import type { AcceptInvitationResult } from '@/features/invitations/api/accept-invitation';
+import { useInvitationLink } from '@/features/invitations/api/get-invitation-link';
+import { InvitationAnswer } from '@/features/invitations/components/invitation-answer';
+import { isApiError } from '@/lib/api-client';
+import { ButtonLink } from '@/components/ui/button';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState, NotFoundState } from '@/components/ui/states';
 
 // The server's message repeats the title; the page says what to do next instead.
 const refusals: Record<string, { title: string; text: string }> = {

@@ -4,15 +4,15 @@ import { useNavigate, useParams } from 'react-router-dom';
 import {
   passwordResetErrorCodes as codes,
   passwordResetValidMinutes,
-} from '../../../../shared/schemas/password-reset';
-import { paths } from '../../../config/paths';
-import { usePasswordReset } from '../../../features/auth/api/get-password-reset';
-import { AuthCard } from '../../../features/auth/components/auth-card';
-import { ResetPasswordForm } from '../../../features/auth/components/reset-password-form';
-import { isApiError } from '../../../lib/api-client';
-import { ButtonLink } from '../../../components/ui/button';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState, NotFoundState } from '../../../components/ui/states';
+} from '@shared/schemas/password-reset';
+import { paths } from '@/config/paths';
+import { usePasswordReset } from '@/features/auth/api/get-password-reset';
+import { AuthCard } from '@/features/auth/components/auth-card';
+import { ResetPasswordForm } from '@/features/auth/components/reset-password-form';
+import { isApiError } from '@/lib/api-client';
+import { ButtonLink } from '@/components/ui/button';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState, NotFoundState } from '@/components/ui/states';
 
 // The server's message repeats the title; the page says what to do next instead.
 const refusals: Record<string, { title: string; text: string }> = {

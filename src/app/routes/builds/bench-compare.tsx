@@ -1,20 +1,20 @@
 import { useMemo } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { ArrowLeftRight } from 'lucide-react';
-import type { Build } from '../../../../shared/schemas/builds';
-import type { BenchSheetSummary } from '../../../../shared/schemas/bench';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { ButtonLink } from '../../../components/ui/button';
-import { FormField, SelectInput } from '../../../components/ui/form-field';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { EmptyState, ErrorState } from '../../../components/ui/states';
-import { paths } from '../../../config/paths';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useBenchComparison } from '../../../features/bench/api/get-bench-comparison';
-import { useBenchSheets } from '../../../features/bench/api/get-bench-sheets';
-import { ComparisonView } from '../../../features/bench/components/comparison-view';
-import { SheetStatusBadge } from '../../../features/bench/components/sheet-status-badge';
-import { dateText } from '../../../features/bench/lib/format';
+import type { Build } from '@shared/schemas/builds';
+import type { BenchSheetSummary } from '@shared/schemas/bench';
+import { PageHeader } from '@/components/layouts/page-header';
+import { ButtonLink } from '@/components/ui/button';
+import { FormField, SelectInput } from '@/components/ui/form-field';
+import { PageSpinner } from '@/components/ui/spinner';
+import { EmptyState, ErrorState } from '@/components/ui/states';
+import { paths } from '@/config/paths';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useBenchComparison } from '@/features/bench/api/get-bench-comparison';
+import { useBenchSheets } from '@/features/bench/api/get-bench-sheets';
+import { ComparisonView } from '@/features/bench/components/comparison-view';
+import { SheetStatusBadge } from '@/features/bench/components/sheet-status-badge';
+import { dateText } from '@/features/bench/lib/format';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/bench/compare?before=&after=" — two sheets of one injector set. */

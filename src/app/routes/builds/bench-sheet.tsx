@@ -12,37 +12,37 @@ import {
   Table2,
   Trash2,
 } from 'lucide-react';
-import { canChangeBenchSheet, canDeleteBenchSheet } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import { type BenchSheetAnswer } from '../../../../shared/schemas/bench';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { Alert } from '../../../components/ui/alert';
-import { Button, ButtonLink, buttonClasses } from '../../../components/ui/button';
-import { Section } from '../../../components/ui/card';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState, NotFoundState } from '../../../components/ui/states';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { useUser } from '../../../lib/auth';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useDeleteBenchSheet } from '../../../features/bench/api/delete-bench-sheet';
-import { useBenchSheet } from '../../../features/bench/api/get-bench-sheet';
-import { useBenchSheets } from '../../../features/bench/api/get-bench-sheets';
-import { getBenchCsvHref } from '../../../features/bench/api/paths';
-import { Findings } from '../../../features/bench/components/findings';
-import { ImbalancePanel } from '../../../features/bench/components/imbalance-panel';
-import { OriginalPanel } from '../../../features/bench/components/original-panel';
-import { ReplaceFromCsv } from '../../../features/bench/components/replace-from-csv';
-import { SheetStatusBadge } from '../../../features/bench/components/sheet-status-badge';
-import { SheetDetails } from '../../../features/bench/components/sheet-details';
-import { SheetTable } from '../../../features/bench/components/sheet-table';
-import { dateText } from '../../../features/bench/lib/format';
+import { canChangeBenchSheet, canDeleteBenchSheet } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import { type BenchSheetAnswer } from '@shared/schemas/bench';
+import { PageHeader } from '@/components/layouts/page-header';
+import { Alert } from '@/components/ui/alert';
+import { Button, ButtonLink, buttonClasses } from '@/components/ui/button';
+import { Section } from '@/components/ui/card';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState, NotFoundState } from '@/components/ui/states';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { useUser } from '@/lib/auth';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useDeleteBenchSheet } from '@/features/bench/api/delete-bench-sheet';
+import { useBenchSheet } from '@/features/bench/api/get-bench-sheet';
+import { useBenchSheets } from '@/features/bench/api/get-bench-sheets';
+import { getBenchCsvHref } from '@/features/bench/api/paths';
+import { Findings } from '@/features/bench/components/findings';
+import { ImbalancePanel } from '@/features/bench/components/imbalance-panel';
+import { OriginalPanel } from '@/features/bench/components/original-panel';
+import { ReplaceFromCsv } from '@/features/bench/components/replace-from-csv';
+import { SheetStatusBadge } from '@/features/bench/components/sheet-status-badge';
+import { SheetDetails } from '@/features/bench/components/sheet-details';
+import { SheetTable } from '@/features/bench/components/sheet-table';
+import { dateText } from '@/features/bench/lib/format';
 import { BuildLoadError } from './build-states';
 
 // recharts is the heaviest thing on the page: the table and the words arrive first.
 const PointCharts = lazy(() =>
-  import('../../../features/bench/components/point-charts').then((m) => ({
+  import('@/features/bench/components/point-charts').then((m) => ({
     default: m.PointCharts,
   })),
 );

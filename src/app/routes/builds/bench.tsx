@@ -1,21 +1,21 @@
 import { useMemo } from 'react';
 import { useParams } from 'react-router-dom';
 import { ArrowLeftRight, Droplets, Plus } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import type { BenchSheetSummary } from '../../../../shared/schemas/bench';
-import type { Part } from '../../../../shared/schemas/parts';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { ButtonLink } from '../../../components/ui/button';
-import { Section } from '../../../components/ui/card';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { EmptyState, ErrorState } from '../../../components/ui/states';
-import { paths } from '../../../config/paths';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useBenchSheets } from '../../../features/bench/api/get-bench-sheets';
-import { SheetList } from '../../../features/bench/components/sheet-list';
-import { useParts } from '../../../features/parts/api/get-parts';
-import { holderOf } from '../../../features/parts/components/send-outs';
+import { can } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import type { BenchSheetSummary } from '@shared/schemas/bench';
+import type { Part } from '@shared/schemas/parts';
+import { PageHeader } from '@/components/layouts/page-header';
+import { ButtonLink } from '@/components/ui/button';
+import { Section } from '@/components/ui/card';
+import { PageSpinner } from '@/components/ui/spinner';
+import { EmptyState, ErrorState } from '@/components/ui/states';
+import { paths } from '@/config/paths';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useBenchSheets } from '@/features/bench/api/get-bench-sheets';
+import { SheetList } from '@/features/bench/components/sheet-list';
+import { useParts } from '@/features/parts/api/get-parts';
+import { holderOf } from '@/features/parts/components/send-outs';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/bench" — the flow-bench sheets of each injector set of the build. */

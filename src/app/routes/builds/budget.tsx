@@ -1,23 +1,23 @@
 import { useParams } from 'react-router-dom';
 import { ChartColumnBig, LockKeyhole, PiggyBank, TrendingUp } from 'lucide-react';
-import { capabilities } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { ButtonLink } from '../../../components/ui/button';
-import { Section } from '../../../components/ui/card';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { EmptyState, ErrorState } from '../../../components/ui/states';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useBudget } from '../../../features/budget/api/get-budget';
-import { CategoryChart, SpendingChart } from '../../../features/budget/components/budget-charts';
+import { capabilities } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import { PageHeader } from '@/components/layouts/page-header';
+import { ButtonLink } from '@/components/ui/button';
+import { Section } from '@/components/ui/card';
+import { PageSpinner } from '@/components/ui/spinner';
+import { EmptyState, ErrorState } from '@/components/ui/states';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useBudget } from '@/features/budget/api/get-budget';
+import { CategoryChart, SpendingChart } from '@/features/budget/components/budget-charts';
 import {
   BudgetMeter,
   BudgetTotals,
   CategoryTable,
   OverBudgetBanner,
-} from '../../../features/budget/components/budget-summary';
+} from '@/features/budget/components/budget-summary';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/budget" — the owner's money: totals, categories and spending over time. */

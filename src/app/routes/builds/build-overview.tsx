@@ -1,24 +1,24 @@
 import { useParams } from 'react-router-dom';
 import { Pencil } from 'lucide-react';
-import { capabilities } from '../../../../shared/permissions';
-import { paths } from '../../../config/paths';
-import { useBuild } from '../../../features/builds/api/get-build';
+import { capabilities } from '@shared/permissions';
+import { paths } from '@/config/paths';
+import { useBuild } from '@/features/builds/api/get-build';
 import {
   BudgetSection,
   TargetSection,
   TruckSection,
-} from '../../../features/builds/components/build-details';
-import { vehicleLine } from '../../../features/builds/components/build-text';
-import { DeleteBuild } from '../../../features/builds/components/delete-build';
-import { DynoProgressSection } from '../../../features/dyno/components/dyno-progress';
-import { RoleBadge } from '../../../components/ui/role-badge';
-import { MembersPanel } from '../../../features/members/components/members-panel';
-import { InvitationsPanel } from '../../../features/invitations/components/invitations-panel';
-import { TimelineSummary } from '../../../features/timeline/components/timeline-summary';
-import { ActivityList } from '../../../features/activity/components/activity-list';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { ButtonLink } from '../../../components/ui/button';
-import { PageSpinner } from '../../../components/ui/spinner';
+} from '@/features/builds/components/build-details';
+import { vehicleLine } from '@/features/builds/components/build-text';
+import { DeleteBuild } from '@/features/builds/components/delete-build';
+import { DynoProgressSection } from '@/features/dyno/components/dyno-progress';
+import { RoleBadge } from '@/components/ui/role-badge';
+import { MembersPanel } from '@/features/members/components/members-panel';
+import { InvitationsPanel } from '@/features/invitations/components/invitations-panel';
+import { TimelineSummary } from '@/features/timeline/components/timeline-summary';
+import { ActivityList } from '@/features/activity/components/activity-list';
+import { PageHeader } from '@/components/layouts/page-header';
+import { ButtonLink } from '@/components/ui/button';
+import { PageSpinner } from '@/components/ui/spinner';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId" — the build at a glance, and its people. */

@@ -1,18 +1,14 @@
 import { useParams, useSearchParams } from 'react-router-dom';
 import { LockKeyhole } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { EmptyState, ErrorState } from '../../../components/ui/states';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useBuildSheet } from '../../../features/sharing/api/get-build-sheet';
-import { BuildSheet } from '../../../features/sharing/components/build-sheet';
-import { deviceToday } from '../../../../shared/dates';
-import {
-  SheetControls,
-  paperOf,
-  type Paper,
-} from '../../../features/sharing/components/sheet-controls';
+import { can } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import { PageSpinner } from '@/components/ui/spinner';
+import { EmptyState, ErrorState } from '@/components/ui/states';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useBuildSheet } from '@/features/sharing/api/get-build-sheet';
+import { BuildSheet } from '@/features/sharing/components/build-sheet';
+import { deviceToday } from '@shared/dates';
+import { SheetControls, paperOf, type Paper } from '@/features/sharing/components/sheet-controls';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/sheet" — the build sheet for print; `?money=1` on the owner's copy. */

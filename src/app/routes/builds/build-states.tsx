@@ -1,7 +1,7 @@
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { ButtonLink } from '../../../components/ui/button';
-import { ErrorState, NotFoundState } from '../../../components/ui/states';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { ButtonLink } from '@/components/ui/button';
+import { ErrorState, NotFoundState } from '@/components/ui/states';
 
 /**
  * A build that could not be loaded. 404 covers "no such build" and "not on its crew" alike:

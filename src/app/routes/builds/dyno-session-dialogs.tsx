@@ -1,16 +1,16 @@
 import { useNavigate } from 'react-router-dom';
-import { can } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import type { DynoRun } from '../../../../shared/schemas/dyno';
-import { Alert } from '../../../components/ui/alert';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import type { useDeleteDynoRun } from '../../../features/dyno/api/delete-dyno-run';
-import type { useDeleteDynoSession } from '../../../features/dyno/api/delete-dyno-session';
-import type { DynoSessionAnswer } from '../../../features/dyno/api/get-dyno-session';
-import { AttachmentDialog } from '../../../features/dyno/components/attachment-dialog';
-import { ImportRunDialog } from '../../../features/dyno/components/import-run';
-import { RunFormDialog } from '../../../features/dyno/components/run-form';
-import { SessionFormDialog } from '../../../features/dyno/components/session-form';
+import { can } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import type { DynoRun } from '@shared/schemas/dyno';
+import { Alert } from '@/components/ui/alert';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import type { useDeleteDynoRun } from '@/features/dyno/api/delete-dyno-run';
+import type { useDeleteDynoSession } from '@/features/dyno/api/delete-dyno-session';
+import type { DynoSessionAnswer } from '@/features/dyno/api/get-dyno-session';
+import { AttachmentDialog } from '@/features/dyno/components/attachment-dialog';
+import { ImportRunDialog } from '@/features/dyno/components/import-run';
+import { RunFormDialog } from '@/features/dyno/components/run-form';
+import { SessionFormDialog } from '@/features/dyno/components/session-form';
 
 /* The dyno session page's dialogs: the session's form, a run's form, import, attach, deleting. */
 

@@ -1,36 +1,27 @@
 import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { CalendarDays, ChevronRight, Gauge, Plus, Target } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import type { DynoSessionSummary } from '../../../../shared/schemas/dyno';
-import { formatIsoDate, formatNumber } from '../../../../shared/format';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { Badge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
-import { Section } from '../../../components/ui/card';
-import { PageSpinner, Spinner } from '../../../components/ui/spinner';
-import { EmptyState, ErrorState } from '../../../components/ui/states';
-import { paths } from '../../../config/paths';
-import { useBuild } from '../../../features/builds/api/get-build';
-import {
-  useDynoSessions,
-  type DynoSessionsAnswer,
-} from '../../../features/dyno/api/get-dyno-sessions';
-import { useCorrectionChoice } from '../../../features/dyno/choice';
-import { choiceSearch } from '../../../features/dyno/choice-search';
-import { StandardPicker } from '../../../features/dyno/components/correction-panel';
-import { standardShortLabels } from '../../../../shared/dyno/vocabulary';
-import { DynoCautions } from '../../../features/dyno/components/dyno-cautions';
-import { AgainstPlan } from '../../../features/dyno/components/plan-panel';
-import { SessionFormDialog } from '../../../features/dyno/components/session-form';
-import {
-  dynoKindShort,
-  factorText,
-  powerText,
-  rpmText,
-  torqueText,
-} from '../../../features/dyno/format';
+import { can } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import type { DynoSessionSummary } from '@shared/schemas/dyno';
+import { formatIsoDate, formatNumber } from '@shared/format';
+import { PageHeader } from '@/components/layouts/page-header';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { Section } from '@/components/ui/card';
+import { PageSpinner, Spinner } from '@/components/ui/spinner';
+import { EmptyState, ErrorState } from '@/components/ui/states';
+import { paths } from '@/config/paths';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useDynoSessions, type DynoSessionsAnswer } from '@/features/dyno/api/get-dyno-sessions';
+import { useCorrectionChoice } from '@/features/dyno/choice';
+import { choiceSearch } from '@/features/dyno/choice-search';
+import { StandardPicker } from '@/features/dyno/components/correction-panel';
+import { standardShortLabels } from '@shared/dyno/vocabulary';
+import { DynoCautions } from '@/features/dyno/components/dyno-cautions';
+import { AgainstPlan } from '@/features/dyno/components/plan-panel';
+import { SessionFormDialog } from '@/features/dyno/components/session-form';
+import { dynoKindShort, factorText, powerText, rpmText, torqueText } from '@/features/dyno/format';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/dyno" — the build's dyno days and its best result against the plan. */

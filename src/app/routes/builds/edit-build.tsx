@@ -1,13 +1,13 @@
 import { useNavigate, useParams } from 'react-router-dom';
-import { can } from '../../../../shared/permissions';
-import { paths } from '../../../config/paths';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useUpdateBuild } from '../../../features/builds/api/update-build';
-import { BuildForm, buildToFormValues } from '../../../features/builds/components/build-form';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { Alert } from '../../../components/ui/alert';
-import { ButtonLink } from '../../../components/ui/button';
-import { PageSpinner } from '../../../components/ui/spinner';
+import { can } from '@shared/permissions';
+import { paths } from '@/config/paths';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useUpdateBuild } from '@/features/builds/api/update-build';
+import { BuildForm, buildToFormValues } from '@/features/builds/components/build-form';
+import { PageHeader } from '@/components/layouts/page-header';
+import { Alert } from '@/components/ui/alert';
+import { ButtonLink } from '@/components/ui/button';
+import { PageSpinner } from '@/components/ui/spinner';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/edit" — owners only; other roles are told so instead of shown a form. */

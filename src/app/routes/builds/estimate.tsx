@@ -11,39 +11,33 @@ import {
   Settings2,
   TriangleAlert,
 } from 'lucide-react';
-import { capabilities, type Role } from '../../../../shared/permissions';
-import { powerBasisLabels } from '../../../../shared/schemas/builds';
-import { formatNumber } from '../../../../shared/format';
-import type { EstimateResult } from '../../../../shared/schemas/estimate';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useUpdateBuild } from '../../../features/builds/api/update-build';
-import { getEstimateQueryOptions, useEstimate } from '../../../features/estimate/api/get-estimate';
-import { AssumptionsPanel } from '../../../features/estimate/components/assumptions-panel';
-import {
-  EstimateSummary,
-  PreviewAnswer,
-} from '../../../features/estimate/components/estimate-summary';
-import {
-  PartsHeadroom,
-  UnknownCategories,
-} from '../../../features/estimate/components/parts-headroom';
-import { Requirements } from '../../../features/estimate/components/requirements';
-import { TargetPanel } from '../../../features/estimate/components/target-panel';
-import { BottomEndBanner, WarningsList } from '../../../features/estimate/components/warnings';
-import { whatIfEstimate } from '../../../features/estimate/what-if';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { Badge } from '../../../components/ui/badge';
-import { ButtonLink } from '../../../components/ui/button';
-import { Section } from '../../../components/ui/card';
-import { PageSpinner, Spinner } from '../../../components/ui/spinner';
-import { EmptyState, ErrorState } from '../../../components/ui/states';
+import { capabilities, type Role } from '@shared/permissions';
+import { powerBasisLabels } from '@shared/schemas/builds';
+import { formatNumber } from '@shared/format';
+import type { EstimateResult } from '@shared/schemas/estimate';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useUpdateBuild } from '@/features/builds/api/update-build';
+import { getEstimateQueryOptions, useEstimate } from '@/features/estimate/api/get-estimate';
+import { AssumptionsPanel } from '@/features/estimate/components/assumptions-panel';
+import { EstimateSummary, PreviewAnswer } from '@/features/estimate/components/estimate-summary';
+import { PartsHeadroom, UnknownCategories } from '@/features/estimate/components/parts-headroom';
+import { Requirements } from '@/features/estimate/components/requirements';
+import { TargetPanel } from '@/features/estimate/components/target-panel';
+import { BottomEndBanner, WarningsList } from '@/features/estimate/components/warnings';
+import { whatIfEstimate } from '@/features/estimate/what-if';
+import { PageHeader } from '@/components/layouts/page-header';
+import { Badge } from '@/components/ui/badge';
+import { ButtonLink } from '@/components/ui/button';
+import { Section } from '@/components/ui/card';
+import { PageSpinner, Spinner } from '@/components/ui/spinner';
+import { EmptyState, ErrorState } from '@/components/ui/states';
 import { BuildLoadError } from './build-states';
 
 // recharts is the heaviest thing on the page: the words arrive first, the chart after.
 const HeadroomChart = lazy(() =>
-  import('../../../features/estimate/components/headroom-chart').then((m) => ({
+  import('@/features/estimate/components/headroom-chart').then((m) => ({
     default: m.HeadroomChart,
   })),
 );

@@ -1,9 +1,9 @@
 import { useNavigate } from 'react-router-dom';
-import { paths } from '../../../config/paths';
-import { useCreateBuild } from '../../../features/builds/api/create-build';
-import { BuildForm, newBuildDefaults } from '../../../features/builds/components/build-form';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { deviceTimeZone } from '../../../../shared/dates';
+import { paths } from '@/config/paths';
+import { useCreateBuild } from '@/features/builds/api/create-build';
+import { BuildForm, newBuildDefaults } from '@/features/builds/components/build-form';
+import { PageHeader } from '@/components/layouts/page-header';
+import { deviceTimeZone } from '@shared/dates';
 
 /** "/builds/new" — whoever starts a build owns it. */
 export function NewBuildRoute() {

@@ -1,13 +1,13 @@
 import { useParams } from 'react-router-dom';
 import { BellRing } from 'lucide-react';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useNoticePreferences } from '../../../features/notices/api/get-notice-preferences';
-import { NoticePreferencesForm } from '../../../features/notices/components/notice-preferences-form';
-import { useUser } from '../../../lib/auth';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { Section } from '../../../components/ui/card';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState } from '../../../components/ui/states';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useNoticePreferences } from '@/features/notices/api/get-notice-preferences';
+import { NoticePreferencesForm } from '@/features/notices/components/notice-preferences-form';
+import { useUser } from '@/lib/auth';
+import { PageHeader } from '@/components/layouts/page-header';
+import { Section } from '@/components/ui/card';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState } from '@/components/ui/states';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/notices": which e-mails I get about this build. Each member sets their own. */

@@ -1,15 +1,15 @@
-import { can, canAddPhotosTo, canCaptionPhoto, capabilities } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import type { Part, UpdatePartInput } from '../../../../shared/schemas/parts';
-import { Alert } from '../../../components/ui/alert';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { Modal } from '../../../components/ui/modal';
-import { isApiError } from '../../../lib/api-client';
-import { useUser } from '../../../lib/auth';
-import { PartBenchSheets } from '../../../features/bench/components/part-bench-sheets';
-import type { useDeletePart } from '../../../features/parts/api/delete-part';
-import { PartForm } from '../../../features/parts/components/part-form';
-import { AttachedPhotos } from '../../../features/photos/components/attached-photos';
+import { can, canAddPhotosTo, canCaptionPhoto, capabilities } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import type { Part, UpdatePartInput } from '@shared/schemas/parts';
+import { Alert } from '@/components/ui/alert';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { Modal } from '@/components/ui/modal';
+import { isApiError } from '@/lib/api-client';
+import { useUser } from '@/lib/auth';
+import { PartBenchSheets } from '@/features/bench/components/part-bench-sheets';
+import type { useDeletePart } from '@/features/parts/api/delete-part';
+import { PartForm } from '@/features/parts/components/part-form';
+import { AttachedPhotos } from '@/features/photos/components/attached-photos';
 
 /** The parts page's dialogs: a part's form (with its photos and bench sheets) and deleting one. */
 

@@ -1,25 +1,21 @@
 import { useCallback, useMemo } from 'react';
 import { useParams } from 'react-router-dom';
 import { PackageCheck, Truck, Wrench } from 'lucide-react';
-import { buildToday } from '../../../../shared/dates';
-import { can } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import type { Part } from '../../../../shared/schemas/parts';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { ButtonLink } from '../../../components/ui/button';
-import { Section } from '../../../components/ui/card';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { EmptyState, ErrorState } from '../../../components/ui/states';
-import { paths } from '../../../config/paths';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useParts } from '../../../features/parts/api/get-parts';
-import { useUpdatePart } from '../../../features/parts/api/update-part';
-import {
-  AtShopCard,
-  BackFromShopRow,
-  sortAtShop,
-} from '../../../features/parts/components/send-outs';
-import { statusChange } from '../../../features/parts/lib/status';
+import { buildToday } from '@shared/dates';
+import { can } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import type { Part } from '@shared/schemas/parts';
+import { PageHeader } from '@/components/layouts/page-header';
+import { ButtonLink } from '@/components/ui/button';
+import { Section } from '@/components/ui/card';
+import { PageSpinner } from '@/components/ui/spinner';
+import { EmptyState, ErrorState } from '@/components/ui/states';
+import { paths } from '@/config/paths';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useParts } from '@/features/parts/api/get-parts';
+import { useUpdatePart } from '@/features/parts/api/update-part';
+import { AtShopCard, BackFromShopRow, sortAtShop } from '@/features/parts/components/send-outs';
+import { statusChange } from '@/features/parts/lib/status';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/send-outs" — what is away at a shop, for how long, and what came back. */

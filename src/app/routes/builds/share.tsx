@@ -1,17 +1,17 @@
 import { useParams } from 'react-router-dom';
 import { LockKeyhole, Printer } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import { PageHeader } from '../../../components/layouts/page-header';
-import { ButtonLink } from '../../../components/ui/button';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { EmptyState, ErrorState } from '../../../components/ui/states';
-import { paths } from '../../../config/paths';
-import { useBuild } from '../../../features/builds/api/get-build';
-import { useShare } from '../../../features/sharing/api/get-share';
-import { ShareAddress } from '../../../features/sharing/components/share-address';
-import { ShareChoices } from '../../../features/sharing/components/share-choices';
-import { SharePhotos } from '../../../features/sharing/components/share-photos';
+import { can } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import { PageHeader } from '@/components/layouts/page-header';
+import { ButtonLink } from '@/components/ui/button';
+import { PageSpinner } from '@/components/ui/spinner';
+import { EmptyState, ErrorState } from '@/components/ui/states';
+import { paths } from '@/config/paths';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useShare } from '@/features/sharing/api/get-share';
+import { ShareAddress } from '@/features/sharing/components/share-address';
+import { ShareChoices } from '@/features/sharing/components/share-choices';
+import { SharePhotos } from '@/features/sharing/components/share-photos';
 import { BuildLoadError } from './build-states';
 
 /** "/builds/:buildId/share" — the owner's public page: its switch, address and what it shows. */

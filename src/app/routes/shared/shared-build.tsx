@@ -1,13 +1,13 @@
 import { useParams } from 'react-router-dom';
 import { Printer } from 'lucide-react';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { ButtonLink } from '../../../components/ui/button';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState } from '../../../components/ui/states';
-import { NotShared } from '../../../features/sharing/components/not-shared';
-import { useSharedBuild } from '../../../features/sharing/api/get-shared-build';
-import { PublicBuild } from '../../../features/sharing/components/public-build';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { ButtonLink } from '@/components/ui/button';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState } from '@/components/ui/states';
+import { NotShared } from '@/features/sharing/components/not-shared';
+import { useSharedBuild } from '@/features/sharing/api/get-shared-build';
+import { PublicBuild } from '@/features/sharing/components/public-build';
 
 /** "/shared/:token" — a build's public page: read-only, no sign-in, what its owner chose. */
 export function SharedBuildRoute() {

@@ -1,15 +1,15 @@
 import { useParams, useSearchParams } from 'react-router-dom';
 import { ChevronLeft } from 'lucide-react';
 import { Link } from 'react-router-dom';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState } from '../../../components/ui/states';
-import { NotShared } from '../../../features/sharing/components/not-shared';
-import { useSharedBuild } from '../../../features/sharing/api/get-shared-build';
-import { BuildSheet } from '../../../features/sharing/components/build-sheet';
-import { SheetControls, paperOf } from '../../../features/sharing/components/sheet-controls';
-import { deviceToday } from '../../../../shared/dates';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState } from '@/components/ui/states';
+import { NotShared } from '@/features/sharing/components/not-shared';
+import { useSharedBuild } from '@/features/sharing/api/get-shared-build';
+import { BuildSheet } from '@/features/sharing/components/build-sheet';
+import { SheetControls, paperOf } from '@/features/sharing/components/sheet-controls';
+import { deviceToday } from '@shared/dates';
 
 /** "/shared/:token/sheet" — the public page as a build sheet for print: never money. */
 export function SharedSheetRoute() {

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { EmailChangePreview } from '../../../../shared/schemas/account';
-import { api } from '../../../lib/api-client';
+import type { EmailChangePreview } from '@shared/schemas/account';
+import { api } from '@/lib/api-client';
 
 /** What a confirmation link is for (404 with a reason when it cannot be used). */
 export async function getEmailChange(token: string, signal?: AbortSignal) {

@@ -2,11 +2,11 @@ import { useState } from 'react';
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { changeEmailInputSchema } from '../../../../shared/schemas/account';
-import type { User } from '../../../../shared/schemas/auth';
-import { FormActions } from '../../../components/ui/form-actions';
-import { FormField, TextInput } from '../../../components/ui/form-field';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { changeEmailInputSchema } from '@shared/schemas/account';
+import type { User } from '@shared/schemas/auth';
+import { FormActions } from '@/components/ui/form-actions';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useChangeEmail } from '../api/change-email';
 
 type Input = z.input<typeof changeEmailInputSchema>;

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ActivityEvent } from '../../../../shared/schemas/activity';
-import { api } from '../../../lib/api-client';
+import type { ActivityEvent } from '@shared/schemas/activity';
+import { api } from '@/lib/api-client';
 
 /** What has happened lately on the build, newest first, as my role may see it. */
 export async function getActivity(buildId: string, signal?: AbortSignal): Promise<ActivityEvent[]> {

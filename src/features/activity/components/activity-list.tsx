@@ -12,15 +12,15 @@ import {
   Wrench,
   type LucideIcon,
 } from 'lucide-react';
-import { addDays, buildToday } from '../../../../shared/dates';
-import { formatIsoDate } from '../../../../shared/format';
-import type { ActivityEvent, ActivityKind } from '../../../../shared/schemas/activity';
-import type { Build } from '../../../../shared/schemas/builds';
-import { Section } from '../../../components/ui/card';
-import { cn } from '../../../components/ui/cn';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState } from '../../../components/ui/states';
-import { paths } from '../../../config/paths';
+import { addDays, buildToday } from '@shared/dates';
+import { formatIsoDate } from '@shared/format';
+import type { ActivityEvent, ActivityKind } from '@shared/schemas/activity';
+import type { Build } from '@shared/schemas/builds';
+import { Section } from '@/components/ui/card';
+import { cn } from '@/components/ui/cn';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState } from '@/components/ui/states';
+import { paths } from '@/config/paths';
 import { useActivity } from '../api/get-activity';
 
 const icons: Record<ActivityKind, LucideIcon> = {

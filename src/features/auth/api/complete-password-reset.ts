@@ -1,8 +1,8 @@
 import { useMutation } from '@tanstack/react-query';
-import type { User } from '../../../../shared/schemas/auth';
-import type { CompletePasswordResetInput } from '../../../../shared/schemas/password-reset';
-import { api } from '../../../lib/api-client';
-import { useStartSession } from '../../../lib/auth';
+import type { User } from '@shared/schemas/auth';
+import type { CompletePasswordResetInput } from '@shared/schemas/password-reset';
+import { api } from '@/lib/api-client';
+import { useStartSession } from '@/lib/auth';
 
 /** Sets the new password; the server ends every other session and signs this browser in. */
 export async function completePasswordReset({

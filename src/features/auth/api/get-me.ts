@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { User } from '../../../../shared/schemas/auth';
-import { api, isApiError } from '../../../lib/api-client';
+import type { User } from '@shared/schemas/auth';
+import { api, isApiError } from '@/lib/api-client';
 
 /** The signed-in user, or null when there is no session (401 is an answer here, not an error). */
 export async function getMe(signal?: AbortSignal): Promise<User | null> {

@@ -1,7 +1,7 @@
 import { useMutation } from '@tanstack/react-query';
-import type { SignInInput, User } from '../../../../shared/schemas/auth';
-import { api } from '../../../lib/api-client';
-import { useStartSession } from '../../../lib/auth';
+import type { SignInInput, User } from '@shared/schemas/auth';
+import { api } from '@/lib/api-client';
+import { useStartSession } from '@/lib/auth';
 
 export async function signIn(input: SignInInput): Promise<User> {
   const data = await api.post<{ user: User }>('/api/auth/sign-in', input, {

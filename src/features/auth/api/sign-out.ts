@@ -1,6 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
-import { api, isApiError } from '../../../lib/api-client';
-import { useEndSession } from '../../../lib/auth';
+import { api, isApiError } from '@/lib/api-client';
+import { useEndSession } from '@/lib/auth';
 
 export async function signOut(): Promise<void> {
   try {

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
-import { HeadroomMark } from '../../../components/ui/logo';
-import { cn } from '../../../components/ui/cn';
+import { HeadroomMark } from '@/components/ui/logo';
+import { cn } from '@/components/ui/cn';
 
 /**
  * The card of the pages reached from a mail or from sign-in (invitation, forgotten and new

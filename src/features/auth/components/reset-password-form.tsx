@@ -1,11 +1,11 @@
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { completePasswordResetInputSchema } from '../../../../shared/schemas/password-reset';
-import { Button } from '../../../components/ui/button';
-import { FormField, TextInput } from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { completePasswordResetInputSchema } from '@shared/schemas/password-reset';
+import { Button } from '@/components/ui/button';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import { FormError } from '@/components/ui/form-error';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useCompletePasswordReset } from '../api/complete-password-reset';
 
 type Input = z.input<typeof completePasswordResetInputSchema>;

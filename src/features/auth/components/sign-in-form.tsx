@@ -1,20 +1,20 @@
 import { Link } from 'react-router-dom';
 import { useForm, type Path } from 'react-hook-form';
 import type { z } from 'zod';
-import type { signInInputSchema } from '../../../../shared/schemas/auth';
-import { Button } from '../../../components/ui/button';
-import { FormField, TextInput } from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
-import { paths } from '../../../config/paths';
-import { applyServerErrors } from '../../../lib/form-errors';
-import { lazyResolver } from '../../../lib/lazy-resolver';
+import type { signInInputSchema } from '@shared/schemas/auth';
+import { Button } from '@/components/ui/button';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import { FormError } from '@/components/ui/form-error';
+import { paths } from '@/config/paths';
+import { applyServerErrors } from '@/lib/form-errors';
+import { lazyResolver } from '@/lib/lazy-resolver';
 import { useSignIn } from '../api/sign-in';
 
 type Input = z.input<typeof signInInputSchema>;
 type Output = z.output<typeof signInInputSchema>;
 // zod and the schema load when the form is first used, not with the page.
 const resolver = lazyResolver<Input, Output>(() =>
-  Promise.all([import('@hookform/resolvers/zod'), import('../../../../shared/schemas/auth')]).then(
+  Promise.all([import('@hookform/resolvers/zod'), import('@shared/schemas/auth')]).then(
     ([{ zodResolver }, schemas]) => zodResolver(schemas.signInInputSchema),
   ),
 );

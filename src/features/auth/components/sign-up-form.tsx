@@ -2,12 +2,12 @@ import { Link } from 'react-router-dom';
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { signUpInputSchema } from '../../../../shared/schemas/auth';
-import { Button } from '../../../components/ui/button';
-import { FormField, TextInput } from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
-import { paths } from '../../../config/paths';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { signUpInputSchema } from '@shared/schemas/auth';
+import { Button } from '@/components/ui/button';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import { FormError } from '@/components/ui/form-error';
+import { paths } from '@/config/paths';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useSignUp } from '../api/sign-up';
 
 type Input = z.input<typeof signUpInputSchema>;

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { BenchSheetAnswer, CreateBenchSheetInput } from '../../../../shared/schemas/bench';
-import { api } from '../../../lib/api-client';
+import type { BenchSheetAnswer, CreateBenchSheetInput } from '@shared/schemas/bench';
+import { api } from '@/lib/api-client';
 import { invalidateBench } from './invalidate';
 import { benchSheetsUrl } from './paths';
 

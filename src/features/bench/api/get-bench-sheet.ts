@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { BenchSheetAnswer } from '../../../../shared/schemas/bench';
-import { api } from '../../../lib/api-client';
+import type { BenchSheetAnswer } from '@shared/schemas/bench';
+import { api } from '@/lib/api-client';
 import { benchKey } from './invalidate';
 import { benchSheetUrl } from './paths';
 

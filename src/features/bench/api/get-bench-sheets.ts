@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { BenchSheetSummary } from '../../../../shared/schemas/bench';
-import { api } from '../../../lib/api-client';
+import type { BenchSheetSummary } from '@shared/schemas/bench';
+import { api } from '@/lib/api-client';
 import { benchKey } from './invalidate';
 import { benchSheetsUrl } from './paths';
 

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { benchUploadField, type BenchSheetAnswer } from '../../../../shared/schemas/bench';
-import { uploadFile } from '../../../lib/upload';
+import { benchUploadField, type BenchSheetAnswer } from '@shared/schemas/bench';
+import { uploadFile } from '@/lib/upload';
 import { getBenchSheetQueryOptions } from './get-bench-sheet';
 import { invalidateBench } from './invalidate';
 import { benchSheetUrl } from './paths';

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { BenchSheetAnswer, UpdateBenchSheetInput } from '../../../../shared/schemas/bench';
-import { api } from '../../../lib/api-client';
+import type { BenchSheetAnswer, UpdateBenchSheetInput } from '@shared/schemas/bench';
+import { api } from '@/lib/api-client';
 import { getBenchSheetQueryOptions } from './get-bench-sheet';
 import { invalidateBench } from './invalidate';
 import { benchSheetUrl } from './paths';

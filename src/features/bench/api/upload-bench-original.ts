@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiErrorSchema } from '../../../../shared/schemas/common';
-import { benchUploadField, type BenchOriginal } from '../../../../shared/schemas/bench';
-import { ApiError } from '../../../lib/api-client';
+import { apiErrorSchema } from '@shared/schemas/common';
+import { benchUploadField, type BenchOriginal } from '@shared/schemas/bench';
+import { ApiError } from '@/lib/api-client';
 import { invalidateBench } from './invalidate';
 import { benchSheetUrl } from './paths';
 

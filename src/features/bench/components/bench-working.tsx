@@ -1,7 +1,7 @@
-import type { BenchFigure, BenchWorkingInput } from '../../../../shared/schemas/bench';
-import { benchUnitLabels, type BenchUnit } from '../../../../shared/bench';
-import { formatNumber } from '../../../../shared/format';
-import { ShowWorking, WorkingFigure } from '../../../components/ui/working';
+import type { BenchFigure, BenchWorkingInput } from '@shared/schemas/bench';
+import { benchUnitLabels, type BenchUnit } from '@shared/bench';
+import { formatNumber } from '@shared/format';
+import { ShowWorking, WorkingFigure } from '@/components/ui/working';
 
 const fromLabels: Record<BenchWorkingInput['from'], string> = {
   sheet: 'from the sheet',

@@ -1,7 +1,7 @@
-import type { BenchComparisonAnswer, PointComparison } from '../../../../shared/schemas/bench';
-import { hpWords, pctWords } from '../../../../shared/bench';
-import { Section } from '../../../components/ui/card';
-import { cn } from '../../../components/ui/cn';
+import type { BenchComparisonAnswer, PointComparison } from '@shared/schemas/bench';
+import { hpWords, pctWords } from '@shared/bench';
+import { Section } from '@/components/ui/card';
+import { cn } from '@/components/ui/cn';
 import { BenchWorking } from './bench-working';
 import { signedPctWords, signedValueWords, unitText, valueText } from '../lib/format';
 

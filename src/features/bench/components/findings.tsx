@@ -4,8 +4,8 @@ import {
   TOLERANCE_EDGE_RULE,
   WORN_INJECTOR_RULE,
   capitalise,
-} from '../../../../shared/bench';
-import type { BenchSheetResult } from '../../../../shared/schemas/bench';
+} from '@shared/bench';
+import type { BenchSheetResult } from '@shared/schemas/bench';
 
 /** The set verdict in words, each finding on its own line, and how the sheet was judged. */
 export function Findings({ result }: { result: BenchSheetResult }) {

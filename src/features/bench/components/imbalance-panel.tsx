@@ -1,5 +1,5 @@
-import type { BenchPowerTarget, ImbalanceCost } from '../../../../shared/schemas/bench';
-import { hpWords, pctWords } from '../../../../shared/bench';
+import type { BenchPowerTarget, ImbalanceCost } from '@shared/schemas/bench';
+import { hpWords, pctWords } from '@shared/bench';
 import { BenchWorking } from './bench-working';
 
 /**

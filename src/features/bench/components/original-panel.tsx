@@ -4,13 +4,13 @@ import {
   BENCH_ORIGINAL_MAX_BYTES,
   benchOriginalAccept,
   type BenchSheet,
-} from '../../../../shared/schemas/bench';
-import { Alert } from '../../../components/ui/alert';
-import { Button, buttonClasses } from '../../../components/ui/button';
-import { cn } from '../../../components/ui/cn';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { isApiError } from '../../../lib/api-client';
-import { formatWhen } from '../../../lib/dates';
+} from '@shared/schemas/bench';
+import { Alert } from '@/components/ui/alert';
+import { Button, buttonClasses } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { isApiError } from '@/lib/api-client';
+import { formatWhen } from '@/lib/dates';
 import { useDeleteBenchOriginal } from '../api/delete-bench-original';
 import { useUploadBenchOriginal } from '../api/upload-bench-original';
 

@@ -1,8 +1,8 @@
 import { useId } from 'react';
 import { Droplets, Plus } from 'lucide-react';
-import { ButtonLink } from '../../../components/ui/button';
-import { Spinner } from '../../../components/ui/spinner';
-import { paths } from '../../../config/paths';
+import { ButtonLink } from '@/components/ui/button';
+import { Spinner } from '@/components/ui/spinner';
+import { paths } from '@/config/paths';
 import { useBenchSheets } from '../api/get-bench-sheets';
 import { SheetList } from './sheet-list';
 

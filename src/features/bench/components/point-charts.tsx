@@ -11,7 +11,7 @@ import {
   YAxis,
   type BarShapeProps,
 } from 'recharts';
-import type { BenchSheetResult, PointResult } from '../../../../shared/schemas/bench';
+import type { BenchSheetResult, PointResult } from '@shared/schemas/bench';
 import { roundForWords, toleranceText, unitText } from '../lib/format';
 
 // The palette of styles.css (SVG fill attributes do not take CSS variables).

@@ -1,11 +1,11 @@
 import { useId, useState } from 'react';
 import { FileUp } from 'lucide-react';
-import { Alert } from '../../../components/ui/alert';
-import { cn } from '../../../components/ui/cn';
-import { Spinner } from '../../../components/ui/spinner';
-import { UploadError } from '../../../lib/upload';
+import { Alert } from '@/components/ui/alert';
+import { cn } from '@/components/ui/cn';
+import { Spinner } from '@/components/ui/spinner';
+import { UploadError } from '@/lib/upload';
 import { useImportBenchCsv } from '../api/import-bench-csv';
-import type { BenchImportRowError } from '../../../../shared/schemas/bench';
+import type { BenchImportRowError } from '@shared/schemas/bench';
 
 /**
  * Replaces a saved sheet's values from a CSV, as a bench's own software exports it: one row

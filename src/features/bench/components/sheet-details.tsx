@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
-import { fluidTemperatureUnitLabels, type BenchSheet } from '../../../../shared/schemas/bench';
-import { formatNumber } from '../../../../shared/format';
-import { formatWhen } from '../../../lib/dates';
+import { fluidTemperatureUnitLabels, type BenchSheet } from '@shared/schemas/bench';
+import { formatNumber } from '@shared/format';
+import { formatWhen } from '@/lib/dates';
 
 function Fact({
   term,

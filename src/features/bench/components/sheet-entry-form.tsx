@@ -11,22 +11,22 @@ import {
   toleranceTypeLabels,
   toleranceTypes,
   type TestPointKind,
-} from '../../../../shared/bench';
+} from '@shared/bench';
 import {
   fluidTemperatureUnitLabels,
   fluidTemperatureUnits,
   type BenchCellError,
   type CreateBenchSheetInput,
   type InjectorFlag,
-} from '../../../../shared/schemas/bench';
-import type { Part } from '../../../../shared/schemas/parts';
-import { FormActions } from '../../../components/ui/form-actions';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { cn } from '../../../components/ui/cn';
-import { FormField, SelectInput, TextArea, TextInput } from '../../../components/ui/form-field';
-import { NumberInput } from '../../../components/ui/number-input';
-import { isApiError } from '../../../lib/api-client';
+} from '@shared/schemas/bench';
+import type { Part } from '@shared/schemas/parts';
+import { FormActions } from '@/components/ui/form-actions';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
+import { FormField, SelectInput, TextArea, TextInput } from '@/components/ui/form-field';
+import { NumberInput } from '@/components/ui/number-input';
+import { isApiError } from '@/lib/api-client';
 import {
   newPointForm,
   previewPoints,

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { ChevronRight, Paperclip } from 'lucide-react';
-import type { BenchSheetSummary } from '../../../../shared/schemas/bench';
-import { paths } from '../../../config/paths';
+import type { BenchSheetSummary } from '@shared/schemas/bench';
+import { paths } from '@/config/paths';
 import { dateText } from '../lib/format';
 import { SheetStatusBadge } from './sheet-status-badge';
 

@@ -1,6 +1,6 @@
 import { CircleCheck, CircleHelp, TriangleAlert } from 'lucide-react';
-import type { SheetStatus } from '../../../../shared/schemas/bench';
-import { Badge } from '../../../components/ui/badge';
+import type { SheetStatus } from '@shared/schemas/bench';
+import { Badge } from '@/components/ui/badge';
 import { sheetStatusLabels } from '../lib/format';
 
 /** A sheet's verdict at a glance; the icon and the words carry it, not only the colour. */

@@ -1,10 +1,6 @@
 import { TriangleAlert } from 'lucide-react';
-import {
-  injectorFlagLabels,
-  type BenchSheetResult,
-  type PointResult,
-} from '../../../../shared/schemas/bench';
-import { cn } from '../../../components/ui/cn';
+import { injectorFlagLabels, type BenchSheetResult, type PointResult } from '@shared/schemas/bench';
+import { cn } from '@/components/ui/cn';
 import {
   deviationText,
   flagShort,

@@ -1,8 +1,8 @@
 import { useRef, type ClipboardEvent, type KeyboardEvent } from 'react';
 import type { UseFormRegister } from 'react-hook-form';
-import { parsePastedGrid, readBenchCell } from '../../../../shared/bench';
-import type { InjectorFlag } from '../../../../shared/schemas/bench';
-import { cn } from '../../../components/ui/cn';
+import { parsePastedGrid, readBenchCell } from '@shared/bench';
+import type { InjectorFlag } from '@shared/schemas/bench';
+import { cn } from '@/components/ui/cn';
 import { flagShort, sortedFlags, unitText } from '../lib/format';
 import type { PointForm, SheetForm } from '../lib/sheet-form';
 

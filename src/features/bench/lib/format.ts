@@ -11,14 +11,9 @@ import {
   signedPctWords,
   signedValueWords,
   type BenchUnit,
-} from '../../../../shared/bench';
-import type {
-  InjectorFlag,
-  PointResult,
-  SheetStatus,
-  TestPoint,
-} from '../../../../shared/schemas/bench';
-import { formatIsoDate } from '../../../../shared/format';
+} from '@shared/bench';
+import type { InjectorFlag, PointResult, SheetStatus, TestPoint } from '@shared/schemas/bench';
+import { formatIsoDate } from '@shared/format';
 
 export { pctWords, ratioWords, roundForWords, signedPctWords, signedValueWords };
 

@@ -5,7 +5,7 @@
  * API's (`points.2.values.4`), so server errors land on the same cells.
  */
 import type { FieldErrors, Resolver } from 'react-hook-form';
-import { readNumber } from '../../../../shared/numbers';
+import { readNumber } from '@shared/numbers';
 import {
   defaultTestPoints,
   defaultToleranceFor,
@@ -16,14 +16,14 @@ import {
   type BenchUnit,
   type TestPointKind,
   type ToleranceType,
-} from '../../../../shared/bench';
+} from '@shared/bench';
 import {
   benchSheetInputSchemaFor,
   type BenchSheet,
   type CreateBenchSheetInput,
   type FluidTemperatureUnit,
   type TestPointInput,
-} from '../../../../shared/schemas/bench';
+} from '@shared/schemas/bench';
 
 export type PointForm = {
   kind: TestPointKind;

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Budget } from '../../../../shared/schemas/parts';
-import { api } from '../../../lib/api-client';
+import type { Budget } from '@shared/schemas/parts';
+import { api } from '@/lib/api-client';
 
 export async function getBudget(buildId: string, signal?: AbortSignal): Promise<Budget> {
   const data = await api.get<{ budget: Budget }>(

@@ -11,9 +11,9 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import { axisToDate } from '../../../../shared/dates';
-import { formatIsoDate, formatMoney, minorUnitDigits } from '../../../../shared/format';
-import { partCategoryLabels, type Budget } from '../../../../shared/schemas/parts';
+import { axisToDate } from '@shared/dates';
+import { formatIsoDate, formatMoney, minorUnitDigits } from '@shared/format';
+import { partCategoryLabels, type Budget } from '@shared/schemas/parts';
 import { dayTime, formatTick, timeDomain, timeTicks } from '../lib/time-axis';
 
 // recharts is only imported by this file, which only the lazily loaded budget page uses.

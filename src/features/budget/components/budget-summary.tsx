@@ -1,10 +1,10 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import { formatMoney } from '../../../../shared/format';
-import { partCategoryLabels, type Budget } from '../../../../shared/schemas/parts';
-import { Alert } from '../../../components/ui/alert';
-import { cn } from '../../../components/ui/cn';
-import { paths } from '../../../config/paths';
+import { formatMoney } from '@shared/format';
+import { partCategoryLabels, type Budget } from '@shared/schemas/parts';
+import { Alert } from '@/components/ui/alert';
+import { cn } from '@/components/ui/cn';
+import { paths } from '@/config/paths';
 
 function Figure({
   label,

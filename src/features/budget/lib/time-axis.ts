@@ -3,7 +3,7 @@
  * in days (a gap of two months looks like two months, not like the next day), with ticks on
  * round days — every day, every few days, every week, or on the first of the month.
  */
-import { addDays, axisToDate, dateToAxis, daysBetween } from '../../../../shared/dates';
+import { addDays, axisToDate, dateToAxis, daysBetween } from '@shared/dates';
 
 /** A YYYY-MM-DD date as the chart's x value (shared/dates dateToAxis). */
 export const dayTime = dateToAxis;

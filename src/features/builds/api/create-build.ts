@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Build, CreateBuildInput } from '../../../../shared/schemas/builds';
-import { api } from '../../../lib/api-client';
+import type { Build, CreateBuildInput } from '@shared/schemas/builds';
+import { api } from '@/lib/api-client';
 import { getBuildQueryOptions } from './get-build';
 import { getBuildsQueryOptions } from './get-builds';
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Build } from '../../../../shared/schemas/builds';
-import { api } from '../../../lib/api-client';
+import type { Build } from '@shared/schemas/builds';
+import { api } from '@/lib/api-client';
 
 export async function getBuild(buildId: string, signal?: AbortSignal): Promise<Build> {
   const data = await api.get<{ build: Build }>(`/api/builds/${encodeURIComponent(buildId)}`, {

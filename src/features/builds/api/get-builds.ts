@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Build } from '../../../../shared/schemas/builds';
-import { api } from '../../../lib/api-client';
+import type { Build } from '@shared/schemas/builds';
+import { api } from '@/lib/api-client';
 
 export async function getBuilds(signal?: AbortSignal): Promise<Build[]> {
   const data = await api.get<{ builds: Build[] }>('/api/builds', { signal });

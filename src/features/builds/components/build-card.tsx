@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
 import { Gauge, Flag } from 'lucide-react';
-import type { Build } from '../../../../shared/schemas/builds';
-import { paths } from '../../../config/paths';
+import type { Build } from '@shared/schemas/builds';
+import { paths } from '@/config/paths';
 import { Countdown } from './countdown';
-import { RoleBadge } from '../../../components/ui/role-badge';
+import { RoleBadge } from '@/components/ui/role-badge';
 import { powerText, vehicleLine } from './build-text';
 
 /** One build in "My builds". The whole card is the link (through the name's stretched link). */

@@ -1,12 +1,12 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { Flag, Gauge, Truck, Wallet } from 'lucide-react';
-import { powerBasisLabels } from '../../../../shared/builds/vocabulary';
-import type { Build } from '../../../../shared/schemas/builds';
-import { can } from '../../../../shared/permissions';
-import { formatIsoDate, formatMoney, formatNumber } from '../../../../shared/format';
-import { Section } from '../../../components/ui/card';
-import { paths } from '../../../config/paths';
+import { powerBasisLabels } from '@shared/builds/vocabulary';
+import type { Build } from '@shared/schemas/builds';
+import { can } from '@shared/permissions';
+import { formatIsoDate, formatMoney, formatNumber } from '@shared/format';
+import { Section } from '@/components/ui/card';
+import { paths } from '@/config/paths';
 import { engineFacts, powerText, vehicleLine } from './build-text';
 
 function Fact({ term, children }: { term: string; children: ReactNode }) {

@@ -9,14 +9,14 @@ import {
   powerBases,
   powerBasisLabels,
   type Build,
-} from '../../../../shared/schemas/builds';
-import { currencies } from '../../../../shared/schemas/common';
-import { parseNumber } from '../../../../shared/numbers';
-import { FormActions } from '../../../components/ui/form-actions';
-import { FieldGroup, FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
-import { MoneyInput } from '../../../components/ui/money-input';
-import { NumberInput } from '../../../components/ui/number-input';
-import { applyServerErrors } from '../../../lib/form-errors';
+} from '@shared/schemas/builds';
+import { currencies } from '@shared/schemas/common';
+import { parseNumber } from '@shared/numbers';
+import { FormActions } from '@/components/ui/form-actions';
+import { FieldGroup, FormField, SelectInput, TextInput } from '@/components/ui/form-field';
+import { MoneyInput } from '@/components/ui/money-input';
+import { NumberInput } from '@/components/ui/number-input';
+import { applyServerErrors } from '@/lib/form-errors';
 
 // Create and edit validate with the same schema the server uses for create: an edit sends
 // every field, which the server's partial update schema accepts as well.

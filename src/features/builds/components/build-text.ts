@@ -1,6 +1,6 @@
-import { aspirationLabels, powerBasisLabels } from '../../../../shared/builds/vocabulary';
-import type { Build } from '../../../../shared/schemas/builds';
-import { formatNumber } from '../../../../shared/format';
+import { aspirationLabels, powerBasisLabels } from '@shared/builds/vocabulary';
+import type { Build } from '@shared/schemas/builds';
+import { formatNumber } from '@shared/format';
 
 /** "2019 one-ton crew cab", or the description alone when no year was given. */
 export function vehicleLine(build: Pick<Build, 'vehicleYear' | 'vehicleDescription'>): string {

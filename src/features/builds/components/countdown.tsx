@@ -1,7 +1,7 @@
 import { CalendarDays } from 'lucide-react';
-import { daysBetween, fallbackTimeZone, todayIn } from '../../../../shared/dates';
-import { countdownLabel } from '../../../../shared/format';
-import { Badge } from '../../../components/ui/badge';
+import { daysBetween, fallbackTimeZone, todayIn } from '@shared/dates';
+import { countdownLabel } from '@shared/format';
+import { Badge } from '@/components/ui/badge';
 
 /**
  * How far away the target date is: "42 days to go", "Today", "3 days past" — counted from

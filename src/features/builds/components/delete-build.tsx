@@ -1,12 +1,12 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { Trash2 } from 'lucide-react';
-import type { Build } from '../../../../shared/schemas/builds';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
+import type { Build } from '@shared/schemas/builds';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
 import { useDeleteBuild } from '../api/delete-build';
 
 /** "Delete build" and its confirmation; owners only (the caller checks). */

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateDynoSessionInput, DynoSession } from '../../../../shared/schemas/dyno';
-import { api } from '../../../lib/api-client';
+import type { CreateDynoSessionInput, DynoSession } from '@shared/schemas/dyno';
+import { api } from '@/lib/api-client';
 import { invalidateDyno } from './keys';
 
 export async function createDynoSession({

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api } from '@/lib/api-client';
 import { dynoKey, invalidateDyno } from './keys';
 
 export function deleteDynoSession({ buildId, sessionId }: { buildId: string; sessionId: string }) {

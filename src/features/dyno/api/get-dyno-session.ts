@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { SessionReport } from '../../../../shared/dyno';
-import type { DynoPlan, DynoRun, DynoSession } from '../../../../shared/schemas/dyno';
-import { api } from '../../../lib/api-client';
+import type { SessionReport } from '@shared/dyno';
+import type { DynoPlan, DynoRun, DynoSession } from '@shared/schemas/dyno';
+import { api } from '@/lib/api-client';
 import { dynoKey } from './keys';
 
 export type DynoSessionAnswer = {

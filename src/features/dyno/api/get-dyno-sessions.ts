@@ -1,11 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { BuildDynoReport } from '../../../../shared/dyno';
-import type {
-  CorrectionChoice,
-  DynoPlan,
-  DynoSessionSummary,
-} from '../../../../shared/schemas/dyno';
-import { api } from '../../../lib/api-client';
+import type { BuildDynoReport } from '@shared/dyno';
+import type { CorrectionChoice, DynoPlan, DynoSessionSummary } from '@shared/schemas/dyno';
+import { api } from '@/lib/api-client';
 import { choiceSearch } from '../choice-search';
 import { dynoKey } from './keys';
 

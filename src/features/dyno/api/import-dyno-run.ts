@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { DynoRun, ImportDynoRunFields } from '../../../../shared/schemas/dyno';
-import { dynoFileField } from '../../../../shared/schemas/dyno';
+import type { DynoRun, ImportDynoRunFields } from '@shared/schemas/dyno';
+import { dynoFileField } from '@shared/schemas/dyno';
 import { invalidateDyno } from './keys';
-import { uploadFile } from '../../../lib/upload';
+import { uploadFile } from '@/lib/upload';
 
 export type ImportDynoRunResult = { dryRun: false; run: DynoRun; reordered: boolean };
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { dynoFileField, type DynoRun } from '../../../../shared/schemas/dyno';
+import { dynoFileField, type DynoRun } from '@shared/schemas/dyno';
 import { invalidateDyno } from './keys';
-import { uploadFile } from '../../../lib/upload';
+import { uploadFile } from '@/lib/upload';
 
 /** Replaces a run's curve with a CSV's; the run takes the file's units (typed figures are converted). */
 export function replaceDynoCurve({

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { DynoSession, UpdateDynoSessionInput } from '../../../../shared/schemas/dyno';
-import { api } from '../../../lib/api-client';
+import type { DynoSession, UpdateDynoSessionInput } from '@shared/schemas/dyno';
+import { api } from '@/lib/api-client';
 import { invalidateDyno } from './keys';
 
 export async function updateDynoSession({

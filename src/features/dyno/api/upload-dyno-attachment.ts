@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { dynoFileField, type DynoRun } from '../../../../shared/schemas/dyno';
+import { dynoFileField, type DynoRun } from '@shared/schemas/dyno';
 import { invalidateDyno } from './keys';
-import { uploadFile } from '../../../lib/upload';
+import { uploadFile } from '@/lib/upload';
 
 /** Puts the dyno's own file or a photo of its printout on a run (it replaces any before it). */
 export async function uploadDynoAttachment({

@@ -1,9 +1,9 @@
 import { useId, useState } from 'react';
 import { Paperclip } from 'lucide-react';
-import { MAX_DYNO_ATTACHMENT_BYTES, type DynoRun } from '../../../../shared/schemas/dyno';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { Modal } from '../../../components/ui/modal';
+import { MAX_DYNO_ATTACHMENT_BYTES, type DynoRun } from '@shared/schemas/dyno';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Modal } from '@/components/ui/modal';
 import { useUploadDynoAttachment } from '../api/upload-dyno-attachment';
 
 /** The dyno's own file (PDF, CSV or text) or a photo of its printout, on one run. */

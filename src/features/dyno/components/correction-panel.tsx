@@ -9,16 +9,16 @@ import {
   type CorrectionResult,
   type CorrectionStandard,
   type EngineAspiration,
-} from '../../../../shared/schemas/dyno';
-import { standardShortLabels } from '../../../../shared/dyno/vocabulary';
-import { formatNumber } from '../../../../shared/format';
-import { parseNumber } from '../../../../shared/numbers';
-import { Alert } from '../../../components/ui/alert';
-import { Badge } from '../../../components/ui/badge';
-import { FormField, SelectInput } from '../../../components/ui/form-field';
-import { NumberInput } from '../../../components/ui/number-input';
+} from '@shared/schemas/dyno';
+import { standardShortLabels } from '@shared/dyno/vocabulary';
+import { formatNumber } from '@shared/format';
+import { parseNumber } from '@shared/numbers';
+import { Alert } from '@/components/ui/alert';
+import { Badge } from '@/components/ui/badge';
+import { FormField, SelectInput } from '@/components/ui/form-field';
+import { NumberInput } from '@/components/ui/number-input';
 import { factorText } from '../format';
-import { ShowWorking } from '../../../components/ui/working';
+import { ShowWorking } from '@/components/ui/working';
 import { WorkingBody } from './working';
 
 /**

@@ -9,8 +9,8 @@ import {
   XAxis,
   YAxis,
 } from 'recharts';
-import { formatNumber } from '../../../../shared/format';
-import type { PowerBasis } from '../../../../shared/schemas/dyno';
+import { formatNumber } from '@shared/format';
+import type { PowerBasis } from '@shared/schemas/dyno';
 
 // recharts is only imported by this file, which the session page loads lazily.
 

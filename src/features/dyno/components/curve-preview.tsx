@@ -4,7 +4,7 @@ import {
   runPeaks,
   type CurveCsvError,
   type CurveCsvResult,
-} from '../../../../shared/dyno';
+} from '@shared/dyno';
 import {
   MAX_CURVE_CSV_BYTES,
   boostUnitLabels,
@@ -12,10 +12,10 @@ import {
   dynoTemperatureUnitLabels,
   mixtureKindLabels,
   type RunUnits,
-} from '../../../../shared/schemas/dyno';
-import { formatNumber } from '../../../../shared/format';
-import { unitLabels } from '../../../../shared/units/labels';
-import { Alert } from '../../../components/ui/alert';
+} from '@shared/schemas/dyno';
+import { formatNumber } from '@shared/format';
+import { unitLabels } from '@shared/units/labels';
+import { Alert } from '@/components/ui/alert';
 import { powerText, rpmText, torqueText } from '../format';
 
 /* A curve CSV read in the browser as the server will read it: its errors per row, or a preview. */

@@ -1,15 +1,12 @@
 import { Activity } from 'lucide-react';
-import type { Build } from '../../../../shared/schemas/builds';
-import {
-  DEFAULT_CORRECTION_STANDARD,
-  standardShortLabels,
-} from '../../../../shared/dyno/vocabulary';
-import { formatIsoDate, formatNumber } from '../../../../shared/format';
-import { Badge } from '../../../components/ui/badge';
-import { ButtonLink } from '../../../components/ui/button';
-import { Section } from '../../../components/ui/card';
-import { Spinner } from '../../../components/ui/spinner';
-import { paths } from '../../../config/paths';
+import type { Build } from '@shared/schemas/builds';
+import { DEFAULT_CORRECTION_STANDARD, standardShortLabels } from '@shared/dyno/vocabulary';
+import { formatIsoDate, formatNumber } from '@shared/format';
+import { Badge } from '@/components/ui/badge';
+import { ButtonLink } from '@/components/ui/button';
+import { Section } from '@/components/ui/card';
+import { Spinner } from '@/components/ui/spinner';
+import { paths } from '@/config/paths';
 import { useDynoSessions } from '../api/get-dyno-sessions';
 import { dynoKindShort, powerText, progressText } from '../format';
 import { ProgressBar } from './progress-bar';

@@ -1,14 +1,14 @@
 import { useId, useRef, useState } from 'react';
 import { FileUp } from 'lucide-react';
-import { MAX_CURVE_ROWS, type DynoRun, type RunStatus } from '../../../../shared/schemas/dyno';
-import { formatNumber } from '../../../../shared/format';
-import { FormActions } from '../../../components/ui/form-actions';
-import { Alert } from '../../../components/ui/alert';
-import { Modal } from '../../../components/ui/modal';
-import { Spinner } from '../../../components/ui/spinner';
+import { MAX_CURVE_ROWS, type DynoRun, type RunStatus } from '@shared/schemas/dyno';
+import { formatNumber } from '@shared/format';
+import { FormActions } from '@/components/ui/form-actions';
+import { Alert } from '@/components/ui/alert';
+import { Modal } from '@/components/ui/modal';
+import { Spinner } from '@/components/ui/spinner';
 import { useImportDynoRun } from '../api/import-dyno-run';
 import { useReplaceDynoCurve } from '../api/replace-dyno-curve';
-import { UploadError } from '../../../lib/upload';
+import { UploadError } from '@/lib/upload';
 import { RunBasicsFields } from './run-basics-fields';
 import { ErrorTable, Preview, readCsv, type Read } from './curve-preview';
 

@@ -1,10 +1,10 @@
 import { Link } from 'react-router-dom';
-import type { BestRun, SupportedComparison, TargetProgress } from '../../../../shared/dyno';
-import type { DynoFigure, DynoPlan, PowerBasis } from '../../../../shared/schemas/dyno';
-import { formatNumber } from '../../../../shared/format';
-import { Alert } from '../../../components/ui/alert';
-import { Badge } from '../../../components/ui/badge';
-import { paths } from '../../../config/paths';
+import type { BestRun, SupportedComparison, TargetProgress } from '@shared/dyno';
+import type { DynoFigure, DynoPlan, PowerBasis } from '@shared/schemas/dyno';
+import { formatNumber } from '@shared/format';
+import { Alert } from '@/components/ui/alert';
+import { Badge } from '@/components/ui/badge';
+import { paths } from '@/config/paths';
 import { powerText, progressText } from '../format';
 import { FiguresWorking } from './working';
 import { ProgressBar } from './progress-bar';

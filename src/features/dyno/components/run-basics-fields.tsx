@@ -1,6 +1,6 @@
 import type { ChangeEvent, FocusEvent, Ref } from 'react';
-import { runStatuses, runStatusLabels, type RunStatus } from '../../../../shared/schemas/dyno';
-import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
+import { runStatuses, runStatusLabels, type RunStatus } from '@shared/schemas/dyno';
+import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
 
 type RunBasic = 'status' | 'abortReason' | 'gear' | 'tuneRevision';
 

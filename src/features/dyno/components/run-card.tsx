@@ -1,19 +1,19 @@
 import { Download, FileUp, Paperclip, Pencil, Trash2 } from 'lucide-react';
-import type { ReportRun } from '../../../../shared/dyno';
+import type { ReportRun } from '@shared/dyno';
 import {
   boostUnitLabels,
   dynoAttachmentKindLabels,
   dynoTemperatureUnitLabels,
   type DynoRun,
-} from '../../../../shared/schemas/dyno';
-import { formatNumber } from '../../../../shared/format';
-import { Badge } from '../../../components/ui/badge';
-import { Button, buttonClasses } from '../../../components/ui/button';
-import { cn } from '../../../components/ui/cn';
+} from '@shared/schemas/dyno';
+import { formatNumber } from '@shared/format';
+import { Badge } from '@/components/ui/badge';
+import { Button, buttonClasses } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
 import { getDynoCurveCsvHref } from '../api/export-dyno-curve';
 import { factorText, powerText, rpmText, torqueText, weatherText } from '../format';
 import { EngineFactorLine } from './correction-panel';
-import { ShowWorking } from '../../../components/ui/working';
+import { ShowWorking } from '@/components/ui/working';
 import { WorkingBody } from './working';
 
 export type RunActions = {

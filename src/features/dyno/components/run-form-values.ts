@@ -4,8 +4,8 @@ import {
   type DynoRun,
   type RunStatus,
   type RunUnits,
-} from '../../../../shared/schemas/dyno';
-import { numberToInput, parseNumber } from '../../../../shared/numbers';
+} from '@shared/schemas/dyno';
+import { numberToInput, parseNumber } from '@shared/numbers';
 import { weatherFromForm, weatherToForm, type WeatherFormValues } from '../form';
 
 /* The run form's values: what the boxes hold, and the conversions to and from a run. */

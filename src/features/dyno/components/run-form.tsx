@@ -13,13 +13,13 @@ import {
   mixtureKinds,
   type DynoRun,
   type DynoRunInput,
-} from '../../../../shared/schemas/dyno';
-import { FormActions } from '../../../components/ui/form-actions';
-import { FieldGroup, FormField, SelectInput, TextArea } from '../../../components/ui/form-field';
+} from '@shared/schemas/dyno';
+import { FormActions } from '@/components/ui/form-actions';
+import { FieldGroup, FormField, SelectInput, TextArea } from '@/components/ui/form-field';
 import { RunBasicsFields } from './run-basics-fields';
-import { NumberInput } from '../../../components/ui/number-input';
-import { FormError } from '../../../components/ui/form-error';
-import { Modal } from '../../../components/ui/modal';
+import { NumberInput } from '@/components/ui/number-input';
+import { FormError } from '@/components/ui/form-error';
+import { Modal } from '@/components/ui/modal';
 import { useCreateDynoRun } from '../api/create-dyno-run';
 import { useUpdateDynoRun } from '../api/update-dyno-run';
 import { applyFieldErrors, schemaResolver } from '../form';

@@ -1,6 +1,6 @@
 import { CloudSun } from 'lucide-react';
 import type { ComponentProps } from 'react';
-import { Section } from '../../../components/ui/card';
+import { Section } from '@/components/ui/card';
 import { weatherText } from '../format';
 import { CorrectionFigure, StandardPicker } from './correction-panel';
 

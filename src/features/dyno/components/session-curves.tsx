@@ -1,18 +1,13 @@
 import { lazy, Suspense } from 'react';
 import { Activity } from 'lucide-react';
-import type { SessionReport } from '../../../../shared/dyno';
-import { standardShortLabels } from '../../../../shared/dyno/vocabulary';
-import type {
-  CorrectionStandard,
-  DynoKind,
-  DynoPlan,
-  DynoRun,
-} from '../../../../shared/schemas/dyno';
-import { convertPower, convertTorque } from '../../../../shared/units/convert';
-import { formatNumber } from '../../../../shared/format';
-import { Badge } from '../../../components/ui/badge';
-import { Section } from '../../../components/ui/card';
-import { PageSpinner } from '../../../components/ui/spinner';
+import type { SessionReport } from '@shared/dyno';
+import { standardShortLabels } from '@shared/dyno/vocabulary';
+import type { CorrectionStandard, DynoKind, DynoPlan, DynoRun } from '@shared/schemas/dyno';
+import { convertPower, convertTorque } from '@shared/units/convert';
+import { formatNumber } from '@shared/format';
+import { Badge } from '@/components/ui/badge';
+import { Section } from '@/components/ui/card';
+import { PageSpinner } from '@/components/ui/spinner';
 import type { ChartRun } from './curve-chart';
 import { basisWords, dynoKindShort } from '../format';
 

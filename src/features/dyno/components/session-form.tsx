@@ -1,5 +1,5 @@
 import { useForm } from 'react-hook-form';
-import { buildToday } from '../../../../shared/dates';
+import { buildToday } from '@shared/dates';
 import {
   createDynoSessionInputSchema,
   dynoKindLabels,
@@ -7,19 +7,19 @@ import {
   type CreateDynoSessionInput,
   type DynoKind,
   type DynoSession,
-} from '../../../../shared/schemas/dyno';
-import { FormActions } from '../../../components/ui/form-actions';
+} from '@shared/schemas/dyno';
+import { FormActions } from '@/components/ui/form-actions';
 import {
   FieldGroup,
   FormField,
   SelectInput,
   TextArea,
   TextInput,
-} from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
-import { Modal } from '../../../components/ui/modal';
-import { useBuild } from '../../builds/api/get-build';
-import { useMembers } from '../../members/api/get-members';
+} from '@/components/ui/form-field';
+import { FormError } from '@/components/ui/form-error';
+import { Modal } from '@/components/ui/modal';
+import { useBuild } from '@/features/builds/api/get-build';
+import { useMembers } from '@/features/members/api/get-members';
 import { useCreateDynoSession } from '../api/create-dyno-session';
 import { useUpdateDynoSession } from '../api/update-dyno-session';
 import {

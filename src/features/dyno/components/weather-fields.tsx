@@ -4,9 +4,9 @@ import {
   barometerUnits,
   dynoTemperatureUnitLabels,
   dynoTemperatureUnits,
-} from '../../../../shared/schemas/dyno';
-import { FormField, SelectInput } from '../../../components/ui/form-field';
-import { NumberInput } from '../../../components/ui/number-input';
+} from '@shared/schemas/dyno';
+import { FormField, SelectInput } from '@/components/ui/form-field';
+import { NumberInput } from '@/components/ui/number-input';
 import type { WeatherFormValues } from '../form';
 
 /**

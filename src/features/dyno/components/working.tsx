@@ -1,6 +1,6 @@
-import type { DynoFigure, DynoWorking, DynoWorkingInput } from '../../../../shared/schemas/dyno';
-import { formatNumber } from '../../../../shared/format';
-import { ShowWorking, WorkingFigure } from '../../../components/ui/working';
+import type { DynoFigure, DynoWorking, DynoWorkingInput } from '@shared/schemas/dyno';
+import { formatNumber } from '@shared/format';
+import { ShowWorking, WorkingFigure } from '@/components/ui/working';
 import { valueText } from '../format';
 
 const fromLabels: Record<DynoWorkingInput['from'], string> = {

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AssumptionsResponse } from '../../../../shared/schemas/estimate';
-import { api } from '../../../lib/api-client';
+import type { AssumptionsResponse } from '@shared/schemas/estimate';
+import { api } from '@/lib/api-client';
 
 export async function getAssumptions(
   buildId: string,

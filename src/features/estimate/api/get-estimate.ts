@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { EstimateResult } from '../../../../shared/schemas/estimate';
-import { api } from '../../../lib/api-client';
+import type { EstimateResult } from '@shared/schemas/estimate';
+import { api } from '@/lib/api-client';
 
 export async function getEstimate(buildId: string, signal?: AbortSignal): Promise<EstimateResult> {
   const data = await api.get<{ estimate: EstimateResult }>(

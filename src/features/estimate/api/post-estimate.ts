@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { EstimateRequestInput, EstimateResult } from '../../../../shared/schemas/estimate';
-import { api } from '../../../lib/api-client';
+import type { EstimateRequestInput, EstimateResult } from '@shared/schemas/estimate';
+import { api } from '@/lib/api-client';
 
 /** POST /api/estimate: the stateless estimate, open without sign-in. */
 export async function postEstimate(

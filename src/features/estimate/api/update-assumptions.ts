@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { AssumptionsInput, AssumptionsResponse } from '../../../../shared/schemas/estimate';
-import { apiRequest } from '../../../lib/api-client';
+import type { AssumptionsInput, AssumptionsResponse } from '@shared/schemas/estimate';
+import { apiRequest } from '@/lib/api-client';
 import { getAssumptionsQueryOptions } from './get-assumptions';
 import { getEstimateQueryOptions } from './get-estimate';
 

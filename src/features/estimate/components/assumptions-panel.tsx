@@ -3,12 +3,7 @@ import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { CircleCheck, RotateCcw } from 'lucide-react';
-import {
-  assumptionSpecs,
-  bsfcRangeMessage,
-  bsfcSpec,
-  defaultBsfc,
-} from '../../../../shared/estimate';
+import { assumptionSpecs, bsfcRangeMessage, bsfcSpec, defaultBsfc } from '@shared/estimate';
 import {
   assumptionsInputSchema,
   bsfcUnitLabels,
@@ -16,17 +11,17 @@ import {
   type Assumptions,
   type BsfcUnit,
   type EstimateResult,
-} from '../../../../shared/schemas/estimate';
-import { convertBsfc } from '../../../../shared/units/convert';
-import { formatNumber } from '../../../../shared/format';
-import { parseNumber } from '../../../../shared/numbers';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
-import { FormField } from '../../../components/ui/form-field';
-import { NumberInput, UnitInput } from '../../../components/ui/number-input';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState } from '../../../components/ui/states';
-import { applyServerErrors } from '../../../lib/form-errors';
+} from '@shared/schemas/estimate';
+import { convertBsfc } from '@shared/units/convert';
+import { formatNumber } from '@shared/format';
+import { parseNumber } from '@shared/numbers';
+import { Button } from '@/components/ui/button';
+import { FormError } from '@/components/ui/form-error';
+import { FormField } from '@/components/ui/form-field';
+import { NumberInput, UnitInput } from '@/components/ui/number-input';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState } from '@/components/ui/states';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useAssumptions } from '../api/get-assumptions';
 import { useUpdateAssumptions } from '../api/update-assumptions';
 import { formatFigure } from '../format';

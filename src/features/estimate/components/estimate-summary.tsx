@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
-import type { EstimateResult } from '../../../../shared/schemas/estimate';
-import { partCategoryLabels } from '../../../../shared/schemas/parts';
-import { cn } from '../../../components/ui/cn';
+import type { EstimateResult } from '@shared/schemas/estimate';
+import { partCategoryLabels } from '@shared/schemas/parts';
+import { cn } from '@/components/ui/cn';
 import { capitalise, categoryPhrase, formatFigure, formatHeadroom } from '../format';
 import { StatusBadge } from './status-badge';
 import { Working } from './working';

@@ -14,8 +14,8 @@ import {
   headroomStatusLabels,
   type EstimateResult,
   type HeadroomStatus,
-} from '../../../../shared/schemas/estimate';
-import { formatNumber } from '../../../../shared/format';
+} from '@shared/schemas/estimate';
+import { formatNumber } from '@shared/format';
 import { formatHeadroom } from '../format';
 
 // The palette of styles.css (SVG fill attributes do not take CSS variables).

@@ -1,10 +1,10 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { ExternalLink, Info } from 'lucide-react';
-import type { ComponentResult, EstimateResult } from '../../../../shared/schemas/estimate';
-import { partCategoryLabels, ratingUnitLabels } from '../../../../shared/schemas/parts';
-import { cn } from '../../../components/ui/cn';
-import { paths } from '../../../config/paths';
+import type { ComponentResult, EstimateResult } from '@shared/schemas/estimate';
+import { partCategoryLabels, ratingUnitLabels } from '@shared/schemas/parts';
+import { cn } from '@/components/ui/cn';
+import { paths } from '@/config/paths';
 import { formatFigure, formatHeadroom } from '../format';
 import { StatusBadge } from './status-badge';
 import { Working } from './working';

@@ -1,4 +1,4 @@
-import type { EstimateResult, Figure } from '../../../../shared/schemas/estimate';
+import type { EstimateResult, Figure } from '@shared/schemas/estimate';
 import { formatFigure } from '../format';
 import { Working } from './working';
 

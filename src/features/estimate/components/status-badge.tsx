@@ -1,6 +1,6 @@
 import { CircleCheck, CircleHelp, CircleX, TriangleAlert } from 'lucide-react';
-import { headroomStatusLabels, type HeadroomStatus } from '../../../../shared/schemas/estimate';
-import { Badge } from '../../../components/ui/badge';
+import { headroomStatusLabels, type HeadroomStatus } from '@shared/schemas/estimate';
+import { Badge } from '@/components/ui/badge';
 
 const icons = {
   over: CircleX,

@@ -1,11 +1,11 @@
 import { useId, useState, type ReactNode } from 'react';
 import { Eye, Save, Undo2 } from 'lucide-react';
-import { powerBasisLabels } from '../../../../shared/schemas/builds';
-import type { EstimateResult } from '../../../../shared/schemas/estimate';
-import { formatNumber } from '../../../../shared/format';
-import { parseNumber } from '../../../../shared/numbers';
-import { Button } from '../../../components/ui/button';
-import { NumberInput } from '../../../components/ui/number-input';
+import { powerBasisLabels } from '@shared/schemas/builds';
+import type { EstimateResult } from '@shared/schemas/estimate';
+import { formatNumber } from '@shared/format';
+import { parseNumber } from '@shared/numbers';
+import { Button } from '@/components/ui/button';
+import { NumberInput } from '@/components/ui/number-input';
 import { formatFigure } from '../format';
 import { whatIfRange } from '../what-if';
 

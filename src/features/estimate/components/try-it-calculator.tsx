@@ -1,11 +1,11 @@
 import { useEffect, useId, useMemo, useState, type ReactNode } from 'react';
 import { CircleCheck, Info } from 'lucide-react';
-import { estimate } from '../../../../shared/estimate';
-import { unitLabels } from '../../../../shared/units/labels';
-import { estimateRequestSchema, type EstimateResult } from '../../../../shared/schemas/estimate';
-import { cn } from '../../../components/ui/cn';
-import { SelectInput } from '../../../components/ui/form-field';
-import { NumberInput } from '../../../components/ui/number-input';
+import { estimate } from '@shared/estimate';
+import { unitLabels } from '@shared/units/labels';
+import { estimateRequestSchema, type EstimateResult } from '@shared/schemas/estimate';
+import { cn } from '@/components/ui/cn';
+import { SelectInput } from '@/components/ui/form-field';
+import { NumberInput } from '@/components/ui/number-input';
 import { useStatelessEstimate } from '../api/post-estimate';
 import { initial, partFields, toRequest, type Fields } from './try-it-request';
 import { TryItResult } from './try-it-result';

@@ -1,9 +1,6 @@
-import { parseNumber } from '../../../../shared/numbers';
-import {
-  estimateRequestSchema,
-  type EstimateRequestInput,
-} from '../../../../shared/schemas/estimate';
-import type { PartCategory, RatingUnit } from '../../../../shared/schemas/parts';
+import { parseNumber } from '@shared/numbers';
+import { estimateRequestSchema, type EstimateRequestInput } from '@shared/schemas/estimate';
+import type { PartCategory, RatingUnit } from '@shared/schemas/parts';
 
 /* The landing calculator's boxes and the estimate request they make. */
 

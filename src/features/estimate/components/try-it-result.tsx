@@ -1,7 +1,7 @@
-import type { EstimateResult } from '../../../../shared/schemas/estimate';
-import { partCategoryLabels } from '../../../../shared/schemas/parts';
-import { paths } from '../../../config/paths';
-import { ButtonLink } from '../../../components/ui/button';
+import type { EstimateResult } from '@shared/schemas/estimate';
+import { partCategoryLabels } from '@shared/schemas/parts';
+import { paths } from '@/config/paths';
+import { ButtonLink } from '@/components/ui/button';
 import {
   capitalise,
   categoryPhrase,

@@ -1,6 +1,6 @@
 import { CircleAlert, Info, OctagonAlert, TriangleAlert } from 'lucide-react';
-import type { EstimateResult, EstimateWarning } from '../../../../shared/schemas/estimate';
-import { cn } from '../../../components/ui/cn';
+import type { EstimateResult, EstimateWarning } from '@shared/schemas/estimate';
+import { cn } from '@/components/ui/cn';
 import { formatFigure, formatShortfall } from '../format';
 
 /**

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
-import type { Figure, WorkingInput } from '../../../../shared/schemas/estimate';
-import { ShowWorking, WorkingFigure } from '../../../components/ui/working';
+import type { Figure, WorkingInput } from '@shared/schemas/estimate';
+import { ShowWorking, WorkingFigure } from '@/components/ui/working';
 import { formatFigure } from '../format';
 
 /** Where an input comes from, in words. */

@@ -1,9 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type {
-  ChecklistItem,
-  CreateChecklistItemInput,
-} from '../../../../shared/schemas/install-log';
-import { api } from '../../../lib/api-client';
+import type { ChecklistItem, CreateChecklistItemInput } from '@shared/schemas/install-log';
+import { api } from '@/lib/api-client';
 import { invalidateInstallLog } from './invalidate';
 import { installBase, seg } from './paths';
 

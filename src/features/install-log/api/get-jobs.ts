@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Job } from '../../../../shared/schemas/install-log';
-import { api } from '../../../lib/api-client';
+import type { Job } from '@shared/schemas/install-log';
+import { api } from '@/lib/api-client';
 import { installBase } from './paths';
 
 export async function getJobs(buildId: string, signal?: AbortSignal): Promise<Job[]> {

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { FastenerSpec, TorqueReading } from '../../../../shared/schemas/install-log';
-import { api } from '../../../lib/api-client';
+import type { FastenerSpec, TorqueReading } from '@shared/schemas/install-log';
+import { api } from '@/lib/api-client';
 import { installBase, seg } from './paths';
 
 export type FastenerReadings = { fastener: FastenerSpec; readings: TorqueReading[] };

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { RetorqueCheck } from '../../../../shared/schemas/install-log';
-import { api } from '../../../lib/api-client';
+import type { RetorqueCheck } from '@shared/schemas/install-log';
+import { api } from '@/lib/api-client';
 import { installBase } from './paths';
 
 export type RetorqueFilter = 'open' | 'all';

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Step } from '../../../../shared/schemas/install-log';
-import { api } from '../../../lib/api-client';
+import type { Step } from '@shared/schemas/install-log';
+import { api } from '@/lib/api-client';
 import { installBase, seg } from './paths';
 
 export async function getStep(buildId: string, stepId: string, signal?: AbortSignal) {

@@ -1,5 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { FastenerSpec, Step } from '../../../../shared/schemas/install-log';
+import type { FastenerSpec, Step } from '@shared/schemas/install-log';
 import { getJobsQueryOptions } from './get-jobs';
 import { getReadingsQueryOptions } from './get-readings';
 import { getRetorqueChecksQueryOptions } from './get-retorque-checks';

@@ -1,13 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { idempotencyKeyHeader } from '../../../../shared/idempotency';
-import type {
-  CreateReadingInput,
-  FastenerSpec,
-  TorqueReading,
-} from '../../../../shared/schemas/install-log';
-import { api, isApiError } from '../../../lib/api-client';
-import { enqueue, isOffline, type QueuedWrite } from '../../../lib/offline-queue';
-import { serverNow } from '../../../lib/server-clock';
+import { idempotencyKeyHeader } from '@shared/idempotency';
+import type { CreateReadingInput, FastenerSpec, TorqueReading } from '@shared/schemas/install-log';
+import { api, isApiError } from '@/lib/api-client';
+import { enqueue, isOffline, type QueuedWrite } from '@/lib/offline-queue';
+import { serverNow } from '@/lib/server-clock';
 import { invalidateInstallLog, invalidateReadings, setCachedFastener } from './invalidate';
 import { installBase, seg } from './paths';
 

@@ -1,10 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type {
-  ChecklistItem,
-  UpdateChecklistItemInput,
-} from '../../../../shared/schemas/install-log';
-import { api } from '../../../lib/api-client';
-import { enqueue, isOffline } from '../../../lib/offline-queue';
+import type { ChecklistItem, UpdateChecklistItemInput } from '@shared/schemas/install-log';
+import { api } from '@/lib/api-client';
+import { enqueue, isOffline } from '@/lib/offline-queue';
 import { getStepQueryOptions } from './get-step';
 import { invalidateInstallLog } from './invalidate';
 import { installBase, seg } from './paths';

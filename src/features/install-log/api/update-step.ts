@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Step, UpdateStepInput } from '../../../../shared/schemas/install-log';
-import { api } from '../../../lib/api-client';
+import type { Step, UpdateStepInput } from '@shared/schemas/install-log';
+import { api } from '@/lib/api-client';
 import { invalidateInstallLog, setCachedStep } from './invalidate';
 import { installBase, seg } from './paths';
 

@@ -4,13 +4,13 @@ import {
   defaultCalibrationMonths,
   maxCalibrationMonths,
   minCalibrationMonths,
-} from '../../../../shared/install-log/wrenches';
-import type { Build } from '../../../../shared/schemas/builds';
-import { parseNumber } from '../../../../shared/numbers';
-import { Button } from '../../../components/ui/button';
-import { NumberInput } from '../../../components/ui/number-input';
-import { isApiError } from '../../../lib/api-client';
-import { useUpdateBuild } from '../../builds/api/update-build';
+} from '@shared/install-log/wrenches';
+import type { Build } from '@shared/schemas/builds';
+import { parseNumber } from '@shared/numbers';
+import { Button } from '@/components/ui/button';
+import { NumberInput } from '@/components/ui/number-input';
+import { isApiError } from '@/lib/api-client';
+import { useUpdateBuild } from '@/features/builds/api/update-build';
 
 /**
  * How long a torque wrench's calibration holds on this build: readings taken with a wrench

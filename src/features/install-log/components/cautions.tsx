@@ -1,6 +1,6 @@
 import { BookOpen, Bolt, Syringe, TriangleAlert, type LucideIcon } from 'lucide-react';
-import type { Caution, CautionId } from '../../../../shared/install-log/cautions';
-import { cn } from '../../../components/ui/cn';
+import type { Caution, CautionId } from '@shared/install-log/cautions';
+import { cn } from '@/components/ui/cn';
 
 const looks: Record<CautionId, { icon: LucideIcon; box: string; iconClass: string }> = {
   'high-pressure-fuel': {

@@ -3,22 +3,19 @@ import { Check, Plus, Trash2 } from 'lucide-react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import {
-  createChecklistItemInputSchema,
-  type ChecklistItem,
-} from '../../../../shared/schemas/install-log';
-import { Button } from '../../../components/ui/button';
-import { cn } from '../../../components/ui/cn';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { FormError } from '../../../components/ui/form-error';
-import { TextInput } from '../../../components/ui/form-field';
-import { Spinner } from '../../../components/ui/spinner';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { createChecklistItemInputSchema, type ChecklistItem } from '@shared/schemas/install-log';
+import { Button } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { FormError } from '@/components/ui/form-error';
+import { TextInput } from '@/components/ui/form-field';
+import { Spinner } from '@/components/ui/spinner';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useCreateChecklistItem } from '../api/create-checklist-item';
 import { useDeleteChecklistItem } from '../api/delete-checklist-item';
 import { useUpdateChecklistItem } from '../api/update-checklist-item';
-import { formatWhen } from '../../../lib/dates';
-import { useOfflineQueue } from '../../../lib/offline-queue';
+import { formatWhen } from '@/lib/dates';
+import { useOfflineQueue } from '@/lib/offline-queue';
 
 type Input = z.input<typeof createChecklistItemInputSchema>;
 type Values = z.output<typeof createChecklistItemInputSchema>;

@@ -1,9 +1,9 @@
 import { useId, useState } from 'react';
 import { Pencil, Trash2 } from 'lucide-react';
-import { positionLabel } from '../../../../shared/install-log/positions';
-import { verdictLabels } from '../../../../shared/install-log/torque';
-import type { FastenerSpec } from '../../../../shared/schemas/install-log';
-import { cn } from '../../../components/ui/cn';
+import { positionLabel } from '@shared/install-log/positions';
+import { verdictLabels } from '@shared/install-log/torque';
+import type { FastenerSpec } from '@shared/schemas/install-log';
+import { cn } from '@/components/ui/cn';
 import type { RecordedReading } from '../api/record-reading';
 import { torque } from '../lib/format';
 import { useRememberedWrench } from '../lib/wrench-memory';

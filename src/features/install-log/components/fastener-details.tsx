@@ -1,8 +1,8 @@
 import type { ReactNode } from 'react';
 import { BookOpen } from 'lucide-react';
-import { convertTorque } from '../../../../shared/install-log/torque';
-import { threadConditionLabels, type FastenerSpec } from '../../../../shared/schemas/install-log';
-import { formatWhen } from '../../../lib/dates';
+import { convertTorque } from '@shared/install-log/torque';
+import { threadConditionLabels, type FastenerSpec } from '@shared/schemas/install-log';
+import { formatWhen } from '@/lib/dates';
 import {
   altBandText,
   altTargetText,

@@ -11,16 +11,16 @@ import {
   type CreateFastenerSpecInput,
   type FastenerSpec,
   type UpdateFastenerSpecInput,
-} from '../../../../shared/schemas/install-log';
-import { cylinderNames } from '../../../../shared/install-log/positions';
-import { toleranceTypes, torqueUnits } from '../../../../shared/install-log/torque';
-import { FormActions } from '../../../components/ui/form-actions';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { FormField, SelectInput, TextArea, TextInput } from '../../../components/ui/form-field';
-import { NumberInput } from '../../../components/ui/number-input';
-import { parseNumber } from '../../../../shared/numbers';
-import { applyServerErrors } from '../../../lib/form-errors';
+} from '@shared/schemas/install-log';
+import { cylinderNames } from '@shared/install-log/positions';
+import { toleranceTypes, torqueUnits } from '@shared/install-log/torque';
+import { FormActions } from '@/components/ui/form-actions';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { FormField, SelectInput, TextArea, TextInput } from '@/components/ui/form-field';
+import { NumberInput } from '@/components/ui/number-input';
+import { parseNumber } from '@shared/numbers';
+import { applyServerErrors } from '@/lib/form-errors';
 import { targetText, unitLabel } from '../lib/format';
 
 // The server's schema, plus the cross-field checks it runs (tolerance below the target,

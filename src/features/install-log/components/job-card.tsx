@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
 import { ChevronRight, Pencil, Plus, Trash2 } from 'lucide-react';
-import type { Job, StepSummary } from '../../../../shared/schemas/install-log';
-import { paths } from '../../../config/paths';
-import { Button } from '../../../components/ui/button';
-import { formatWhen } from '../../../lib/dates';
+import type { Job, StepSummary } from '@shared/schemas/install-log';
+import { paths } from '@/config/paths';
+import { Button } from '@/components/ui/button';
+import { formatWhen } from '@/lib/dates';
 import { StepProgressChips } from './step-progress';
 import { StepStatusBadge } from './step-status';
 

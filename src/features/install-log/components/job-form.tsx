@@ -1,10 +1,10 @@
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { createJobInputSchema, type Job } from '../../../../shared/schemas/install-log';
-import { FormActions } from '../../../components/ui/form-actions';
-import { FormField, TextArea, TextInput } from '../../../components/ui/form-field';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { createJobInputSchema, type Job } from '@shared/schemas/install-log';
+import { FormActions } from '@/components/ui/form-actions';
+import { FormField, TextArea, TextInput } from '@/components/ui/form-field';
+import { applyServerErrors } from '@/lib/form-errors';
 
 type Input = z.input<typeof createJobInputSchema>;
 type Values = z.output<typeof createJobInputSchema>;

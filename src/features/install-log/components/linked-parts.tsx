@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
 import { Package } from 'lucide-react';
-import { partCategoryLabels, partStatusLabels } from '../../../../shared/schemas/parts';
-import type { PartCategory, PartStatus } from '../../../../shared/schemas/parts';
-import type { StepPart } from '../../../../shared/schemas/install-log';
-import { paths } from '../../../config/paths';
+import { partCategoryLabels, partStatusLabels } from '@shared/schemas/parts';
+import type { PartCategory, PartStatus } from '@shared/schemas/parts';
+import type { StepPart } from '@shared/schemas/install-log';
+import { paths } from '@/config/paths';
 
 /** The parts this step fits, each a link to it in the ledger. */
 export function LinkedParts({ buildId, parts }: { buildId: string; parts: StepPart[] }) {

@@ -1,10 +1,10 @@
-import { verdictLabels } from '../../../../shared/install-log/torque';
-import type { FastenerSpec } from '../../../../shared/schemas/install-log';
-import { Spinner } from '../../../components/ui/spinner';
-import { cn } from '../../../components/ui/cn';
+import { verdictLabels } from '@shared/install-log/torque';
+import type { FastenerSpec } from '@shared/schemas/install-log';
+import { Spinner } from '@/components/ui/spinner';
+import { cn } from '@/components/ui/cn';
 import { useReadings } from '../api/get-readings';
 import { readingConverted, torque, readingWhen } from '../lib/format';
-import { formatWhen } from '../../../lib/dates';
+import { formatWhen } from '@/lib/dates';
 import { CalibrationFlag, VerdictBadge } from './reading-line';
 
 /** Every reading of one position, newest first; replaced ones struck through but kept. */

@@ -1,9 +1,9 @@
 import { useId, useState } from 'react';
 import { ChevronDown, History, RotateCcw } from 'lucide-react';
-import { positionLabel } from '../../../../shared/install-log/positions';
-import type { FastenerPosition, FastenerSpec } from '../../../../shared/schemas/install-log';
-import { Button } from '../../../components/ui/button';
-import { cn } from '../../../components/ui/cn';
+import { positionLabel } from '@shared/install-log/positions';
+import type { FastenerPosition, FastenerSpec } from '@shared/schemas/install-log';
+import { Button } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
 import type { RecordedReading } from '../api/record-reading';
 import { torque } from '../lib/format';
 import { PositionHistory } from './position-history';

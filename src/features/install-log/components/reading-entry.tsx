@@ -2,16 +2,13 @@ import { useEffect, useId, useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { torqueUnits, type TorqueUnit } from '../../../../shared/install-log/torque';
-import {
-  createReadingInputSchema,
-  type FastenerSpec,
-} from '../../../../shared/schemas/install-log';
-import { Button } from '../../../components/ui/button';
-import { cn } from '../../../components/ui/cn';
-import { isApiError } from '../../../lib/api-client';
+import { torqueUnits, type TorqueUnit } from '@shared/install-log/torque';
+import { createReadingInputSchema, type FastenerSpec } from '@shared/schemas/install-log';
+import { Button } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
+import { isApiError } from '@/lib/api-client';
 import { isQueued, useRecordReading, type RecordedReading } from '../api/record-reading';
-import { formatTorque } from '../../../../shared/install-log/torque';
+import { formatTorque } from '@shared/install-log/torque';
 import { parseDecimal, unitLabel } from '../lib/format';
 
 const schema = createReadingInputSchema.pick({ value: true, unit: true, note: true });

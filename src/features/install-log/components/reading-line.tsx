@@ -1,10 +1,10 @@
 import { ArrowDown, ArrowUp, Check, TriangleAlert } from 'lucide-react';
-import { formatIsoDate } from '../../../../shared/format';
-import { verdictLabels, type Verdict } from '../../../../shared/install-log/torque';
-import type { FastenerSpec, TorqueReading } from '../../../../shared/schemas/install-log';
-import { cn } from '../../../components/ui/cn';
+import { formatIsoDate } from '@shared/format';
+import { verdictLabels, type Verdict } from '@shared/install-log/torque';
+import type { FastenerSpec, TorqueReading } from '@shared/schemas/install-log';
+import { cn } from '@/components/ui/cn';
 import { deviationText, readingConverted, torque, readingWhen } from '../lib/format';
-import { formatWhen } from '../../../lib/dates';
+import { formatWhen } from '@/lib/dates';
 
 const verdictIcons = { 'in-spec': Check, under: ArrowDown, over: ArrowUp } as const;
 

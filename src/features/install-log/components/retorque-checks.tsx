@@ -4,18 +4,15 @@ import { Flame } from 'lucide-react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import {
-  closeRetorqueInputSchema,
-  type RetorqueCheck,
-} from '../../../../shared/schemas/install-log';
-import { positionList } from '../../../../shared/install-log/positions';
-import { paths } from '../../../config/paths';
-import { FormActions } from '../../../components/ui/form-actions';
-import { Button } from '../../../components/ui/button';
-import { FormField, TextArea } from '../../../components/ui/form-field';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { closeRetorqueInputSchema, type RetorqueCheck } from '@shared/schemas/install-log';
+import { positionList } from '@shared/install-log/positions';
+import { paths } from '@/config/paths';
+import { FormActions } from '@/components/ui/form-actions';
+import { Button } from '@/components/ui/button';
+import { FormField, TextArea } from '@/components/ui/form-field';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useCloseRetorqueCheck } from '../api/close-retorque-check';
-import { formatWhen } from '../../../lib/dates';
+import { formatWhen } from '@/lib/dates';
 
 type Input = z.input<typeof closeRetorqueInputSchema>;
 type Values = z.output<typeof closeRetorqueInputSchema>;

@@ -1,12 +1,12 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { ArrowDown, ArrowUp, Pencil, Trash2 } from 'lucide-react';
-import type { Step } from '../../../../shared/schemas/install-log';
-import { paths } from '../../../config/paths';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { Modal } from '../../../components/ui/modal';
+import type { Step } from '@shared/schemas/install-log';
+import { paths } from '@/config/paths';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { Modal } from '@/components/ui/modal';
 import { useDeleteStep } from '../api/delete-step';
 import { useUpdateStep } from '../api/update-step';
 import { StepForm } from './step-form';

@@ -7,12 +7,12 @@ import {
   cautionTexts,
   choosableCautionIds,
   suggestCautions,
-} from '../../../../shared/install-log/cautions';
-import { createStepInputSchema, type Step } from '../../../../shared/schemas/install-log';
-import { partCategoryLabels, type Part } from '../../../../shared/schemas/parts';
-import { FormActions } from '../../../components/ui/form-actions';
-import { FormField, TextArea, TextInput } from '../../../components/ui/form-field';
-import { applyServerErrors } from '../../../lib/form-errors';
+} from '@shared/install-log/cautions';
+import { createStepInputSchema, type Step } from '@shared/schemas/install-log';
+import { partCategoryLabels, type Part } from '@shared/schemas/parts';
+import { FormActions } from '@/components/ui/form-actions';
+import { FormField, TextArea, TextInput } from '@/components/ui/form-field';
+import { applyServerErrors } from '@/lib/form-errors';
 
 type Input = z.input<typeof createStepInputSchema>;
 type Values = z.output<typeof createStepInputSchema>;

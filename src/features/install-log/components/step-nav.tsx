@@ -1,6 +1,6 @@
 import { ChevronLeft, ChevronRight } from 'lucide-react';
-import { paths } from '../../../config/paths';
-import { ButtonLink } from '../../../components/ui/button';
+import { paths } from '@/config/paths';
+import { ButtonLink } from '@/components/ui/button';
 
 type StepLink = { id: string; title: string };
 

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { ListChecks, Ruler, TriangleAlert } from 'lucide-react';
-import type { StepProgress } from '../../../../shared/schemas/install-log';
-import { cn } from '../../../components/ui/cn';
+import type { StepProgress } from '@shared/schemas/install-log';
+import { cn } from '@/components/ui/cn';
 
 function Chip({
   icon,

@@ -1,6 +1,6 @@
 import { CircleCheck, CircleDashed, ShieldAlert, Wrench } from 'lucide-react';
-import { stepStatusLabels, type StepStatus } from '../../../../shared/schemas/install-log';
-import { Badge } from '../../../components/ui/badge';
+import { stepStatusLabels, type StepStatus } from '@shared/schemas/install-log';
+import { Badge } from '@/components/ui/badge';
 
 // Under way is work in progress, not a warning: a quiet blue, not the brand orange.
 const tones = { 'not-started': 'neutral', 'under-way': 'info', 'signed-off': 'ok' } as const;

@@ -1,9 +1,9 @@
 import { useState } from 'react';
 import { Plus, Ruler } from 'lucide-react';
-import type { FastenerSpec, Step } from '../../../../shared/schemas/install-log';
-import { Button } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { Modal } from '../../../components/ui/modal';
+import type { FastenerSpec, Step } from '@shared/schemas/install-log';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { Modal } from '@/components/ui/modal';
 import { useCreateFastener } from '../api/create-fastener';
 import { useDeleteFastener } from '../api/delete-fastener';
 import { useUpdateFastener } from '../api/update-fastener';

@@ -1,8 +1,8 @@
 import { useState } from 'react';
 import { CloudUpload } from 'lucide-react';
-import { Button } from '../../../components/ui/button';
-import { formatWhen } from '../../../lib/dates';
-import { discard, useOfflineQueue, type QueuedWrite } from '../../../lib/offline-queue';
+import { Button } from '@/components/ui/button';
+import { formatWhen } from '@/lib/dates';
+import { discard, useOfflineQueue, type QueuedWrite } from '@/lib/offline-queue';
 
 /** The entry in words, for copying before it is discarded. */
 function asText(item: QueuedWrite) {

@@ -1,14 +1,14 @@
 import { useId, useState } from 'react';
 import { Plus, TriangleAlert } from 'lucide-react';
-import { deviceToday } from '../../../../shared/dates';
-import { formatIsoDate } from '../../../../shared/format';
-import { calibrationOn } from '../../../../shared/install-log/wrenches';
-import type { Wrench } from '../../../../shared/schemas/wrenches';
-import { Button } from '../../../components/ui/button';
-import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
-import { isApiError } from '../../../lib/api-client';
-import { useCreateWrench } from '../../wrenches/api/create-wrench';
-import { useWrenches } from '../../wrenches/api/get-wrenches';
+import { deviceToday } from '@shared/dates';
+import { formatIsoDate } from '@shared/format';
+import { calibrationOn } from '@shared/install-log/wrenches';
+import type { Wrench } from '@shared/schemas/wrenches';
+import { Button } from '@/components/ui/button';
+import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
+import { isApiError } from '@/lib/api-client';
+import { useCreateWrench } from '@/features/wrenches/api/create-wrench';
+import { useWrenches } from '@/features/wrenches/api/get-wrenches';
 
 /** "Calibrated 14 Mar 2025, due 14 Mar 2026" for the chosen wrench, under the build's interval. */
 function CalibrationLine({ wrench, months }: { wrench: Wrench; months: number }) {

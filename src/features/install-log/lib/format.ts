@@ -1,10 +1,6 @@
-import {
-  convertTorque,
-  torqueUnitLabels,
-  type TorqueUnit,
-} from '../../../../shared/install-log/torque';
-import type { FastenerSpec, TorqueReading } from '../../../../shared/schemas/install-log';
-import { parseNumber } from '../../../../shared/numbers';
+import { convertTorque, torqueUnitLabels, type TorqueUnit } from '@shared/install-log/torque';
+import type { FastenerSpec, TorqueReading } from '@shared/schemas/install-log';
+import { parseNumber } from '@shared/numbers';
 
 /** A non-breaking space: "35 lbf·ft" never wraps between the number and its unit. */
 const nb = '\u00a0';

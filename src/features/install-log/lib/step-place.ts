@@ -1,6 +1,6 @@
-import { openReadingKind } from '../../../../shared/install-log/retorque';
-import type { Role } from '../../../../shared/permissions';
-import type { FastenerSpec, Job, Step } from '../../../../shared/schemas/install-log';
+import { openReadingKind } from '@shared/install-log/retorque';
+import type { Role } from '@shared/permissions';
+import type { FastenerSpec, Job, Step } from '@shared/schemas/install-log';
 
 /**
  * "Fit the injectors · step 2 of 5". A shop sees only the steps that use its parts, numbered

@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Role } from '../../../../shared/permissions';
-import type { User } from '../../../../shared/schemas/auth';
-import type { AcceptInvitationInput } from '../../../../shared/schemas/invitations';
-import { api } from '../../../lib/api-client';
-import { useStartSession } from '../../../lib/auth';
-import { getBuildsQueryOptions } from '../../builds/api/get-builds';
+import type { Role } from '@shared/permissions';
+import type { User } from '@shared/schemas/auth';
+import type { AcceptInvitationInput } from '@shared/schemas/invitations';
+import { api } from '@/lib/api-client';
+import { useStartSession } from '@/lib/auth';
+import { getBuildsQueryOptions } from '@/features/builds/api/get-builds';
 
 export type AcceptInvitationResult = {
   user: User;

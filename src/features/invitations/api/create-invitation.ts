@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateInvitationInput, Invitation } from '../../../../shared/schemas/invitations';
-import { api } from '../../../lib/api-client';
+import type { CreateInvitationInput, Invitation } from '@shared/schemas/invitations';
+import { api } from '@/lib/api-client';
 import { getInvitationsQueryOptions } from './get-invitations';
 
 export async function createInvitation({

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { InvitationPreview } from '../../../../shared/schemas/invitations';
-import { api } from '../../../lib/api-client';
+import type { InvitationPreview } from '@shared/schemas/invitations';
+import { api } from '@/lib/api-client';
 
 /**
  * What an invitation link offers: the build, the role, who invited. A link that can no longer

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Invitation } from '../../../../shared/schemas/invitations';
-import { api } from '../../../lib/api-client';
+import type { Invitation } from '@shared/schemas/invitations';
+import { api } from '@/lib/api-client';
 
 /** The build's open invitations (not yet accepted or revoked), newest first; expired ones too. */
 export async function getInvitations(buildId: string, signal?: AbortSignal): Promise<Invitation[]> {

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Invitation } from '../../../../shared/schemas/invitations';
-import { api } from '../../../lib/api-client';
+import type { Invitation } from '@shared/schemas/invitations';
+import { api } from '@/lib/api-client';
 import { getInvitationsQueryOptions } from './get-invitations';
 
 /** Mails a new link (the old one stops working), valid for another full week. */

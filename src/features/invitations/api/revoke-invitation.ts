@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api, isApiError } from '../../../lib/api-client';
+import { api, isApiError } from '@/lib/api-client';
 import { getInvitationsQueryOptions } from './get-invitations';
 
 /** Withdraws an invitation: its link stops working. */

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { getMeQueryOptions } from '../../auth/api/get-me';
-import { signOut } from '../../auth/api/sign-out';
+import { getMeQueryOptions } from '@/features/auth/api/get-me';
+import { signOut } from '@/features/auth/api/sign-out';
 import { getInvitationLinkQueryOptions } from './get-invitation-link';
 
 const meKey = getMeQueryOptions().queryKey;

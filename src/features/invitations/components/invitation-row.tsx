@@ -1,12 +1,12 @@
 import { useState } from 'react';
-import type { Invitation } from '../../../../shared/schemas/invitations';
-import { formatTimestampDate } from '../../../../shared/format';
-import { Alert } from '../../../components/ui/alert';
-import { Badge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { isApiError } from '../../../lib/api-client';
-import { RoleBadge } from '../../../components/ui/role-badge';
+import type { Invitation } from '@shared/schemas/invitations';
+import { formatTimestampDate } from '@shared/format';
+import { Alert } from '@/components/ui/alert';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { isApiError } from '@/lib/api-client';
+import { RoleBadge } from '@/components/ui/role-badge';
 import { useResendInvitation } from '../api/resend-invitation';
 import { useRevokeInvitation } from '../api/revoke-invitation';
 

@@ -1,12 +1,12 @@
 import { lazy, Suspense, useState } from 'react';
 import { MailPlus } from 'lucide-react';
-import { can } from '../../../../shared/permissions';
-import type { Build } from '../../../../shared/schemas/builds';
-import { Button } from '../../../components/ui/button';
-import { Section } from '../../../components/ui/card';
-import { Modal } from '../../../components/ui/modal';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState } from '../../../components/ui/states';
+import { can } from '@shared/permissions';
+import type { Build } from '@shared/schemas/builds';
+import { Button } from '@/components/ui/button';
+import { Section } from '@/components/ui/card';
+import { Modal } from '@/components/ui/modal';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState } from '@/components/ui/states';
 import { useInvitations } from '../api/get-invitations';
 import { InvitationRow } from './invitation-row';
 

@@ -2,23 +2,22 @@ import { useState } from 'react';
 import { useForm, type Path } from 'react-hook-form';
 import type { z } from 'zod';
 import { Send } from 'lucide-react';
-import { roleDescriptions, roleLabels, roles, type Role } from '../../../../shared/permissions';
-import { invitationValidDays } from '../../../../shared/invitations/rules';
-import type { createInvitationInputSchema } from '../../../../shared/schemas/invitations';
-import { FormActions } from '../../../components/ui/form-actions';
-import { FormField, SelectInput, TextInput } from '../../../components/ui/form-field';
-import { applyServerErrors } from '../../../lib/form-errors';
-import { lazyResolver } from '../../../lib/lazy-resolver';
+import { roleDescriptions, roleLabels, roles, type Role } from '@shared/permissions';
+import { invitationValidDays } from '@shared/invitations/rules';
+import type { createInvitationInputSchema } from '@shared/schemas/invitations';
+import { FormActions } from '@/components/ui/form-actions';
+import { FormField, SelectInput, TextInput } from '@/components/ui/form-field';
+import { applyServerErrors } from '@/lib/form-errors';
+import { lazyResolver } from '@/lib/lazy-resolver';
 import { useCreateInvitation } from '../api/create-invitation';
 
 type Input = z.input<typeof createInvitationInputSchema>;
 type Output = z.output<typeof createInvitationInputSchema>;
 // zod and the schema load when the form is first used, not with the page.
 const resolver = lazyResolver<Input, Output>(() =>
-  Promise.all([
-    import('@hookform/resolvers/zod'),
-    import('../../../../shared/schemas/invitations'),
-  ]).then(([{ zodResolver }, schemas]) => zodResolver(schemas.createInvitationInputSchema)),
+  Promise.all([import('@hookform/resolvers/zod'), import('@shared/schemas/invitations')]).then(
+    ([{ zodResolver }, schemas]) => zodResolver(schemas.createInvitationInputSchema),
+  ),
 );
 const fieldNames: Path<Input>[] = ['email', 'role'];
 

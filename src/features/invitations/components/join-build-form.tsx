@@ -1,12 +1,12 @@
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { displayNameSchema, passwordSchema } from '../../../../shared/schemas/auth';
-import { Button } from '../../../components/ui/button';
-import { FormField, TextInput } from '../../../components/ui/form-field';
-import { FormError } from '../../../components/ui/form-error';
-import { isApiError } from '../../../lib/api-client';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { displayNameSchema, passwordSchema } from '@shared/schemas/auth';
+import { Button } from '@/components/ui/button';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import { FormError } from '@/components/ui/form-error';
+import { isApiError } from '@/lib/api-client';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useAcceptInvitation, type AcceptInvitationResult } from '../api/accept-invitation';
 
 // Signed out, both are required (the shared accept schema makes them optional for the signed-in case).

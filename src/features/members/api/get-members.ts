@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Member } from '../../../../shared/schemas/builds';
-import { api } from '../../../lib/api-client';
+import type { Member } from '@shared/schemas/builds';
+import { api } from '@/lib/api-client';
 
 export async function getMembers(buildId: string, signal?: AbortSignal): Promise<Member[]> {
   const data = await api.get<{ members: Member[] }>(

@@ -1,6 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { getBuildQueryOptions } from '../../builds/api/get-build';
-import { getBuildsQueryOptions } from '../../builds/api/get-builds';
+import { getBuildQueryOptions } from '@/features/builds/api/get-build';
+import { getBuildsQueryOptions } from '@/features/builds/api/get-builds';
 import { getMembersQueryOptions } from './get-members';
 
 /**

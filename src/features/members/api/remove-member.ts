@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
-import { getBuildQueryOptions } from '../../builds/api/get-build';
-import { getBuildsQueryOptions } from '../../builds/api/get-builds';
+import { api } from '@/lib/api-client';
+import { getBuildQueryOptions } from '@/features/builds/api/get-build';
+import { getBuildsQueryOptions } from '@/features/builds/api/get-builds';
 import { invalidateMembership } from './invalidate';
 
 export async function removeMember({

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Member, UpdateMemberInput } from '../../../../shared/schemas/builds';
-import { api } from '../../../lib/api-client';
+import type { Member, UpdateMemberInput } from '@shared/schemas/builds';
+import { api } from '@/lib/api-client';
 import { invalidateMembership } from './invalidate';
 
 export async function updateMember({

@@ -1,16 +1,16 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { roleLabels, roles, type Role } from '../../../../shared/permissions';
-import type { Member } from '../../../../shared/schemas/builds';
-import { formatTimestampDate } from '../../../../shared/format';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { ConfirmDialog } from '../../../components/ui/confirm-dialog';
-import { SelectInput } from '../../../components/ui/form-field';
-import { Spinner } from '../../../components/ui/spinner';
-import { paths } from '../../../config/paths';
-import { isApiError } from '../../../lib/api-client';
-import { RoleBadge } from '../../../components/ui/role-badge';
+import { roleLabels, roles, type Role } from '@shared/permissions';
+import type { Member } from '@shared/schemas/builds';
+import { formatTimestampDate } from '@shared/format';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { SelectInput } from '@/components/ui/form-field';
+import { Spinner } from '@/components/ui/spinner';
+import { paths } from '@/config/paths';
+import { isApiError } from '@/lib/api-client';
+import { RoleBadge } from '@/components/ui/role-badge';
 import { useRemoveMember } from '../api/remove-member';
 import { useUpdateMember } from '../api/update-member';
 

@@ -1,10 +1,10 @@
 import { Users } from 'lucide-react';
-import type { Build } from '../../../../shared/schemas/builds';
-import { can, roleDescriptions, roleLabels, roles } from '../../../../shared/permissions';
-import { Section } from '../../../components/ui/card';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { ErrorState } from '../../../components/ui/states';
-import { useUser } from '../../../lib/auth';
+import type { Build } from '@shared/schemas/builds';
+import { can, roleDescriptions, roleLabels, roles } from '@shared/permissions';
+import { Section } from '@/components/ui/card';
+import { PageSpinner } from '@/components/ui/spinner';
+import { ErrorState } from '@/components/ui/states';
+import { useUser } from '@/lib/auth';
 import { useMembers } from '../api/get-members';
 import { MemberRow } from './member-row';
 

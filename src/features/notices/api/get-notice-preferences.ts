@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { NoticePreferences } from '../../../../shared/schemas/notices';
-import { api } from '../../../lib/api-client';
+import type { NoticePreferences } from '@shared/schemas/notices';
+import { api } from '@/lib/api-client';
 
 /** My own choice of notices on one build: every kind, on or off. */
 export async function getNoticePreferences(

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { NoticePreferences, NoticePreferencesInput } from '../../../../shared/schemas/notices';
-import { apiRequest } from '../../../lib/api-client';
+import type { NoticePreferences, NoticePreferencesInput } from '@shared/schemas/notices';
+import { apiRequest } from '@/lib/api-client';
 import { getNoticePreferencesQueryOptions } from './get-notice-preferences';
 
 /** Replaces my whole set of choices on the build; the answer is the set as stored. */

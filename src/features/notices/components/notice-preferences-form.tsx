@@ -9,11 +9,11 @@ import {
   noticePreferencesInputSchema,
   type NoticeKind,
   type NoticePreferences,
-} from '../../../../shared/schemas/notices';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
-import { applyServerErrors } from '../../../lib/form-errors';
+} from '@shared/schemas/notices';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { FormError } from '@/components/ui/form-error';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useUpdateNoticePreferences } from '../api/update-notice-preferences';
 
 type Input = z.input<typeof noticePreferencesInputSchema>;

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreatePartInput, Part } from '../../../../shared/schemas/parts';
-import { api } from '../../../lib/api-client';
+import type { CreatePartInput, Part } from '@shared/schemas/parts';
+import { api } from '@/lib/api-client';
 import { invalidateLedger } from './invalidate';
 
 export async function createPart({

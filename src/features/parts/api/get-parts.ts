@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Part } from '../../../../shared/schemas/parts';
-import { api } from '../../../lib/api-client';
+import type { Part } from '@shared/schemas/parts';
+import { api } from '@/lib/api-client';
 
 export async function getParts(buildId: string, signal?: AbortSignal): Promise<Part[]> {
   const data = await api.get<{ parts: Part[] }>(

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreatePartInput } from '../../../../shared/schemas/parts';
-import { uploadFile } from '../../../lib/upload';
+import type { CreatePartInput } from '@shared/schemas/parts';
+import { uploadFile } from '@/lib/upload';
 import { invalidateLedger } from './invalidate';
 
 export type ImportResult = { dryRun: boolean; saved: number; rows: CreatePartInput[] };

@@ -1,6 +1,6 @@
 import type { QueryClient } from '@tanstack/react-query';
-import type { Part } from '../../../../shared/schemas/parts';
-import { getBudgetQueryOptions } from '../../budget/api/get-budget';
+import type { Part } from '@shared/schemas/parts';
+import { getBudgetQueryOptions } from '@/features/budget/api/get-budget';
 import { getPartsQueryOptions } from './get-parts';
 
 /** Puts one changed part into the cached ledger at once, so the row does not wait for a refetch. */

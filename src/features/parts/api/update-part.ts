@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Part, UpdatePartInput } from '../../../../shared/schemas/parts';
-import { api } from '../../../lib/api-client';
+import type { Part, UpdatePartInput } from '@shared/schemas/parts';
+import { api } from '@/lib/api-client';
 import { invalidateLedger, replaceCachedPart } from './invalidate';
 
 export async function updatePart({

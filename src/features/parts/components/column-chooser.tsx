@@ -1,7 +1,7 @@
 import { useEffect, useRef } from 'react';
 import { Columns3 } from 'lucide-react';
 import type { ReactTable } from '@tanstack/react-table';
-import type { Part } from '../../../../shared/schemas/parts';
+import type { Part } from '@shared/schemas/parts';
 import type { ColumnMeta, PartsFeatures } from './parts-columns';
 
 /** Show or hide the ledger's columns; the choice is remembered in this browser. */

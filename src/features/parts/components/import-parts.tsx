@@ -1,19 +1,15 @@
 import { useId, useRef, useState } from 'react';
 import { FileUp, Upload } from 'lucide-react';
-import { formatMoney } from '../../../../shared/format';
-import { csvColumnOfField } from '../../../../shared/ledger/csv';
-import {
-  partCategoryLabels,
-  partStatusLabels,
-  type CreatePartInput,
-} from '../../../../shared/schemas/parts';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { Spinner } from '../../../components/ui/spinner';
+import { formatMoney } from '@shared/format';
+import { csvColumnOfField } from '@shared/ledger/csv';
+import { partCategoryLabels, partStatusLabels, type CreatePartInput } from '@shared/schemas/parts';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { Spinner } from '@/components/ui/spinner';
 import { getPartsCsvHref } from '../api/export-parts-csv';
-import { UploadError, type RowError } from '../../../lib/upload';
+import { UploadError, type RowError } from '@/lib/upload';
 import { useImportParts } from '../api/import-parts';
-import { Modal } from '../../../components/ui/modal';
+import { Modal } from '@/components/ui/modal';
 
 const previewLimit = 200;
 

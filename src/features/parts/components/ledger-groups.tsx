@@ -1,6 +1,6 @@
 import { memo } from 'react';
 import { ChevronDown, ChevronRight } from 'lucide-react';
-import { partCategoryLabels, type PartCategory } from '../../../../shared/schemas/parts';
+import { partCategoryLabels, type PartCategory } from '@shared/schemas/parts';
 import { cachedMoney } from '../lib/format-cache';
 import type { MoneyView, PartRow } from './parts-columns';
 

@@ -1,4 +1,4 @@
-import { Button } from '../../../components/ui/button';
+import { Button } from '@/components/ui/button';
 import { rowsPerStep } from './use-ledger-table';
 
 /** Below a long list: how many parts are listed, and "Show more" / "Show all". */

@@ -2,7 +2,7 @@ import { memo } from 'react';
 import { FlexRender } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
 import type { SortingState } from '@tanstack/react-table';
-import { cn } from '../../../components/ui/cn';
+import { cn } from '@/components/ui/cn';
 import { partElementId } from '../lib/part-element-id';
 import type { pageRows } from '../lib/page-rows';
 import { GroupRow } from './ledger-groups';

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Search, X } from 'lucide-react';
-import type { PartCategory, PartStatus } from '../../../../shared/schemas/parts';
-import { SelectInput, TextInput } from '../../../components/ui/form-field';
+import type { PartCategory, PartStatus } from '@shared/schemas/parts';
+import { SelectInput, TextInput } from '@/components/ui/form-field';
 
 export type LedgerFilters = { category: PartCategory | ''; status: PartStatus | '' };
 

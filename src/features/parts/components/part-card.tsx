@@ -1,6 +1,6 @@
 import { memo } from 'react';
-import { partCategoryLabels, type Part } from '../../../../shared/schemas/parts';
-import { cn } from '../../../components/ui/cn';
+import { partCategoryLabels, type Part } from '@shared/schemas/parts';
+import { cn } from '@/components/ui/cn';
 import { cachedDate, cachedMoney } from '../lib/format-cache';
 import { StatusBadge } from './status-badge';
 import { StatusSelect } from './status-select';

@@ -7,8 +7,8 @@ import {
   partProgressFields,
   updatePartInputSchema,
   type Part,
-} from '../../../../shared/schemas/parts';
-import { parseNumber } from '../../../../shared/numbers';
+} from '@shared/schemas/parts';
+import { parseNumber } from '@shared/numbers';
 
 /*
  * The part form's model: the values it holds, its fields by section, the conversions from a

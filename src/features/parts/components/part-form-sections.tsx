@@ -6,17 +6,17 @@ import {
   partStatusLabels,
   ratingUnitLabels,
   ratingUnits,
-} from '../../../../shared/schemas/parts';
-import { parseNumber } from '../../../../shared/numbers';
+} from '@shared/schemas/parts';
+import { parseNumber } from '@shared/numbers';
 import {
   FieldGroup,
   FormField,
   SelectInput,
   TextArea,
   TextInput,
-} from '../../../components/ui/form-field';
-import { MoneyInput } from '../../../components/ui/money-input';
-import { NumberInput } from '../../../components/ui/number-input';
+} from '@/components/ui/form-field';
+import { MoneyInput } from '@/components/ui/money-input';
+import { NumberInput } from '@/components/ui/number-input';
 import {
   dateFields,
   emptyToNull,

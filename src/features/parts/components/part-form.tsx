@@ -1,8 +1,8 @@
 import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
-import type { Part, UpdatePartInput } from '../../../../shared/schemas/parts';
-import { FormActions } from '../../../components/ui/form-actions';
-import { applyServerErrors } from '../../../lib/form-errors';
+import type { Part, UpdatePartInput } from '@shared/schemas/parts';
+import { FormActions } from '@/components/ui/form-actions';
+import { applyServerErrors } from '@/lib/form-errors';
 import {
   allFields,
   moneyFields,

@@ -20,7 +20,7 @@ import {
   type SortFn,
 } from '@tanstack/react-table';
 import { Pencil, Trash2 } from 'lucide-react';
-import { formatNumber } from '../../../../shared/format';
+import { formatNumber } from '@shared/format';
 import {
   partCategories,
   partCategoryLabels,
@@ -28,8 +28,8 @@ import {
   ratingUnitLabels,
   type Part,
   type PartStatus,
-} from '../../../../shared/schemas/parts';
-import { cn } from '../../../components/ui/cn';
+} from '@shared/schemas/parts';
+import { cn } from '@/components/ui/cn';
 import { cachedDate, cachedMoney } from '../lib/format-cache';
 import { StatusBadge } from './status-badge';
 import { StatusSelect } from './status-select';

@@ -6,9 +6,9 @@ import {
   partStatuses,
   partStatusLabels,
   type Part,
-} from '../../../../shared/schemas/parts';
-import { Button } from '../../../components/ui/button';
-import { EmptyState } from '../../../components/ui/states';
+} from '@shared/schemas/parts';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/states';
 import { cachedMoney } from '../lib/format-cache';
 import { useMediaQuery } from '../lib/use-media-query';
 import { ColumnChooser } from './column-chooser';

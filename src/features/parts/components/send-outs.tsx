@@ -1,13 +1,13 @@
 import { useState } from 'react';
 import { AlarmClock, PackageCheck } from 'lucide-react';
-import { daysBetween } from '../../../../shared/dates';
-import { formatIsoDate, formatMoney } from '../../../../shared/format';
-import { partCategoryLabels, type Part } from '../../../../shared/schemas/parts';
-import { Alert } from '../../../components/ui/alert';
-import { Badge } from '../../../components/ui/badge';
-import { Button } from '../../../components/ui/button';
-import { cn } from '../../../components/ui/cn';
-import { isApiError } from '../../../lib/api-client';
+import { daysBetween } from '@shared/dates';
+import { formatIsoDate, formatMoney } from '@shared/format';
+import { partCategoryLabels, type Part } from '@shared/schemas/parts';
+import { Alert } from '@/components/ui/alert';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
+import { isApiError } from '@/lib/api-client';
 import { StatusBadge } from './status-badge';
 
 /** Who has the part: the shop member it was sent to, else the vendor named on it. */

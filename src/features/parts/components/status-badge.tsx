@@ -7,8 +7,8 @@ import {
   Wrench,
   type LucideIcon,
 } from 'lucide-react';
-import type { PartStatus } from '../../../../shared/schemas/parts';
-import { cn } from '../../../components/ui/cn';
+import type { PartStatus } from '@shared/schemas/parts';
+import { cn } from '@/components/ui/cn';
 import { statusLabel, statusTone } from '../lib/status';
 
 export const statusIcon: Record<PartStatus, LucideIcon> = {

@@ -1,8 +1,8 @@
 import { useState } from 'react';
 import { LoaderCircle } from 'lucide-react';
-import { partStatuses, type Part, type PartStatus } from '../../../../shared/schemas/parts';
-import { cn } from '../../../components/ui/cn';
-import { isApiError } from '../../../lib/api-client';
+import { partStatuses, type Part, type PartStatus } from '@shared/schemas/parts';
+import { cn } from '@/components/ui/cn';
+import { isApiError } from '@/lib/api-client';
 import { statusLabel, statusTone } from '../lib/status';
 import { statusIcon } from './status-badge';
 

@@ -11,7 +11,7 @@ import {
   type Part,
   type PartCategory,
   type PartStatus,
-} from '../../../../shared/schemas/parts';
+} from '@shared/schemas/parts';
 import {
   loadColumnVisibility,
   loadGrouped,

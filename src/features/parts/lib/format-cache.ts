@@ -1,4 +1,4 @@
-import { formatIsoDate, formatMoney } from '../../../../shared/format';
+import { formatIsoDate, formatMoney } from '@shared/format';
 
 /**
  * The shared formatters build a new Intl formatter on every call, which is fine for one

@@ -1,10 +1,10 @@
-import { stampStatusDates } from '../../../../shared/ledger/status-dates';
+import { stampStatusDates } from '@shared/ledger/status-dates';
 import {
   partStatusLabels,
   type Part,
   type PartStatus,
   type UpdatePartInput,
-} from '../../../../shared/schemas/parts';
+} from '@shared/schemas/parts';
 
 /**
  * Each status has its own look: a tone and an icon, so color is never the only cue.

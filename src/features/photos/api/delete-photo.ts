@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api } from '@/lib/api-client';
 import { invalidatePhotos } from './invalidate';
 
 /** Owner only: the photo and both stored sizes go. */

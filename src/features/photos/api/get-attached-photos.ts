@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Photo } from '../../../../shared/schemas/photos';
-import { api } from '../../../lib/api-client';
+import type { Photo } from '@shared/schemas/photos';
+import { api } from '@/lib/api-client';
 import type { PhotoTarget } from './upload-photo';
 
 function targetSegment(target: PhotoTarget): ['steps' | 'parts', string] {

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Photo } from '../../../../shared/schemas/photos';
-import { api } from '../../../lib/api-client';
+import type { Photo } from '@shared/schemas/photos';
+import { api } from '@/lib/api-client';
 
 /** The build's gallery, newest first. */
 export async function getBuildPhotos(buildId: string, signal?: AbortSignal): Promise<Photo[]> {

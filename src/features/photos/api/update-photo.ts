@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Photo, UpdatePhotoInput } from '../../../../shared/schemas/photos';
-import { api } from '../../../lib/api-client';
+import type { Photo, UpdatePhotoInput } from '@shared/schemas/photos';
+import { api } from '@/lib/api-client';
 import { invalidatePhotos } from './invalidate';
 
 export async function updatePhoto({

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiErrorSchema } from '../../../../shared/schemas/common';
-import { photoUploadField, type Photo } from '../../../../shared/schemas/photos';
-import { ApiError } from '../../../lib/api-client';
+import { apiErrorSchema } from '@shared/schemas/common';
+import { photoUploadField, type Photo } from '@shared/schemas/photos';
+import { ApiError } from '@/lib/api-client';
 import { invalidatePhotos } from './invalidate';
 
 export type PhotoTarget = { stepId: string } | { partId: string };

@@ -1,7 +1,7 @@
 import { useId, useState } from 'react';
 import { Camera } from 'lucide-react';
-import type { Photo } from '../../../../shared/schemas/photos';
-import { Spinner } from '../../../components/ui/spinner';
+import type { Photo } from '@shared/schemas/photos';
+import { Spinner } from '@/components/ui/spinner';
 import { useAttachedPhotos } from '../api/get-attached-photos';
 import type { PhotoTarget } from '../api/upload-photo';
 import { PhotoGrid } from './photo-grid';

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
-import type { Photo } from '../../../../shared/schemas/photos';
-import { formatWhen } from '../../../lib/dates';
+import type { Photo } from '@shared/schemas/photos';
+import { formatWhen } from '@/lib/dates';
 
 /** Thumbnails with their captions; each opens the larger view. */
 export function PhotoGrid({

@@ -1,11 +1,11 @@
 import { useEffect, useId, useRef, useState } from 'react';
 import { Camera, CircleCheck, ImageOff, RotateCcw, Upload, X } from 'lucide-react';
-import { defaultPhotoMaxBytes, photoAccept } from '../../../../shared/schemas/photos';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { cn } from '../../../components/ui/cn';
-import { isApiError } from '../../../lib/api-client';
-import { isOffline } from '../../../lib/offline-queue';
+import { defaultPhotoMaxBytes, photoAccept } from '@shared/schemas/photos';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { cn } from '@/components/ui/cn';
+import { isApiError } from '@/lib/api-client';
+import { isOffline } from '@/lib/offline-queue';
 import { useUploadPhoto, type PhotoTarget } from '../api/upload-photo';
 import { keepPhotoOffline } from '../lib/keep-offline';
 

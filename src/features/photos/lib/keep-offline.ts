@@ -2,8 +2,8 @@
  * A photo taken without signal: resized on the device to the web size the server keeps
  * (so a queue of photos does not fill the phone), then kept with the step's waiting entries.
  */
-import { photoSizes } from '../../../../shared/schemas/photos';
-import { enqueue } from '../../../lib/offline-queue';
+import { photoSizes } from '@shared/schemas/photos';
+import { enqueue } from '@/lib/offline-queue';
 import type { PhotoTarget } from '../api/upload-photo';
 
 /** A JPEG no larger than the web size on its long side; the original when it cannot be decoded here. */

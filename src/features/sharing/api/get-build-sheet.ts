@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { BuildView } from '../../../../shared/schemas/sharing';
-import { api } from '../../../lib/api-client';
+import type { BuildView } from '@shared/schemas/sharing';
+import { api } from '@/lib/api-client';
 
 export type BuildSheetAnswer = { sheet: BuildView; mayShowMoney: boolean };
 

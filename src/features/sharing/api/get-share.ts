@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ShareSettings } from '../../../../shared/schemas/sharing';
-import { api } from '../../../lib/api-client';
+import type { ShareSettings } from '@shared/schemas/sharing';
+import { api } from '@/lib/api-client';
 
 export const sharePath = (buildId: string) => `/api/builds/${encodeURIComponent(buildId)}/share`;
 

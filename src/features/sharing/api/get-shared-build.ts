@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { BuildView } from '../../../../shared/schemas/sharing';
-import { api } from '../../../lib/api-client';
+import type { BuildView } from '@shared/schemas/sharing';
+import { api } from '@/lib/api-client';
 
 /** A shared build's public page: no session needed. */
 export async function getSharedBuild(token: string, signal?: AbortSignal): Promise<BuildView> {

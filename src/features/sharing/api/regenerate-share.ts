@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ShareSettings } from '../../../../shared/schemas/sharing';
-import { api } from '../../../lib/api-client';
+import type { ShareSettings } from '@shared/schemas/sharing';
+import { api } from '@/lib/api-client';
 import { getShareQueryOptions, sharePath } from './get-share';
 
 /** A new address for the public page; the old one stops working at once. */

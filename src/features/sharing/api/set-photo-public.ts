@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ShareSettings } from '../../../../shared/schemas/sharing';
-import { apiRequest } from '../../../lib/api-client';
+import type { ShareSettings } from '@shared/schemas/sharing';
+import { apiRequest } from '@/lib/api-client';
 import { getShareQueryOptions, sharePath } from './get-share';
 
 /** Marks one of the build's photos public (shown on the public page) or private. */

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ShareSettings, UpdateShareInput } from '../../../../shared/schemas/sharing';
-import { apiRequest } from '../../../lib/api-client';
+import type { ShareSettings, UpdateShareInput } from '@shared/schemas/sharing';
+import { apiRequest } from '@/lib/api-client';
 import { getShareQueryOptions, sharePath } from './get-share';
 
 export async function updateShare({

@@ -1,4 +1,4 @@
-import type { BuildView } from '../../../../shared/schemas/sharing';
+import type { BuildView } from '@shared/schemas/sharing';
 import { dateText, percent, powerText } from './view-text';
 
 type View = BuildView;

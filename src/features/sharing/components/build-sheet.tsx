@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
-import { formatMoney, formatNumber } from '../../../../shared/format';
-import type { BuildView } from '../../../../shared/schemas/sharing';
+import { formatMoney, formatNumber } from '@shared/format';
+import type { BuildView } from '@shared/schemas/sharing';
 import { SheetLists } from './build-sheet-lists';
 import {
   dateText,

@@ -1,4 +1,4 @@
-import { NotFoundState } from '../../../components/ui/states';
+import { NotFoundState } from '@/components/ui/states';
 
 /** What an address that was switched off, renewed or never made shows (the API says 404 to all). */
 export function NotShared() {

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import { Flag } from 'lucide-react';
-import type { BuildView } from '../../../../shared/schemas/sharing';
+import type { BuildView } from '@shared/schemas/sharing';
 import { AtAGlance } from './at-a-glance';
 import { BenchSection, CrewSection, DynoSection, PhotosSection } from './public-results';
 import { EstimateSection, InstallSection, PartsSection, TruckSection } from './public-sections';

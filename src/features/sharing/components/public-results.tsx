@@ -1,7 +1,7 @@
 /** The public page's results and people: bench sheets, dyno days, photos, the crew. */
 import { Activity, Camera, Droplets, Users } from 'lucide-react';
-import type { BuildView } from '../../../../shared/schemas/sharing';
-import { Section } from '../../../components/ui/card';
+import type { BuildView } from '@shared/schemas/sharing';
+import { Section } from '@/components/ui/card';
 import { sectionIcon as icon } from './public-sections';
 import { dateText, dynoPower, dynoTorque, powerText, roleNames, standardLabels } from './view-text';
 

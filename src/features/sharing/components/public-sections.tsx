@@ -1,10 +1,10 @@
 /** The public page's sections about the build itself: the truck, the estimate, parts, install. */
 import type { ReactNode } from 'react';
 import { ClipboardList, Gauge, Package, Truck } from 'lucide-react';
-import { formatNumber } from '../../../../shared/format';
-import type { BuildView } from '../../../../shared/schemas/sharing';
-import { Badge } from '../../../components/ui/badge';
-import { Section } from '../../../components/ui/card';
+import { formatNumber } from '@shared/format';
+import type { BuildView } from '@shared/schemas/sharing';
+import { Badge } from '@/components/ui/badge';
+import { Section } from '@/components/ui/card';
 import { StatusChip } from './status-chip';
 import {
   dateText,

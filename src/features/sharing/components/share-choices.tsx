@@ -1,12 +1,8 @@
 import { Eye } from 'lucide-react';
-import type { ShareSettings } from '../../../../shared/schemas/sharing';
-import {
-  shareSectionHints,
-  shareSectionLabels,
-  shareSections,
-} from '../../../../shared/sharing/vocabulary';
-import { Section } from '../../../components/ui/card';
-import { FormError } from '../../../components/ui/form-error';
+import type { ShareSettings } from '@shared/schemas/sharing';
+import { shareSectionHints, shareSectionLabels, shareSections } from '@shared/sharing/vocabulary';
+import { Section } from '@/components/ui/card';
+import { FormError } from '@/components/ui/form-error';
 import { useUpdateShare } from '../api/update-share';
 import { SwitchRow } from './switch-row';
 

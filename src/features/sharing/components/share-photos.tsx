@@ -1,11 +1,11 @@
 import { Link } from 'react-router-dom';
 import { Camera } from 'lucide-react';
-import type { ShareSettings } from '../../../../shared/schemas/sharing';
-import { paths } from '../../../config/paths';
-import { Section } from '../../../components/ui/card';
-import { FormError } from '../../../components/ui/form-error';
-import { PageSpinner } from '../../../components/ui/spinner';
-import { useBuildPhotos } from '../../photos/api/get-build-photos';
+import type { ShareSettings } from '@shared/schemas/sharing';
+import { paths } from '@/config/paths';
+import { Section } from '@/components/ui/card';
+import { FormError } from '@/components/ui/form-error';
+import { PageSpinner } from '@/components/ui/spinner';
+import { useBuildPhotos } from '@/features/photos/api/get-build-photos';
 import { useSetPhotoPublic } from '../api/set-photo-public';
 import { useUpdateShare } from '../api/update-share';
 

@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import { Printer } from 'lucide-react';
-import { Button } from '../../../components/ui/button';
+import { Button } from '@/components/ui/button';
 import { SwitchRow } from './switch-row';
 
 export const papers = { letter: 'US Letter', a4: 'A4' } as const;

@@ -1,5 +1,5 @@
-import type { PartStatus } from '../../../../shared/schemas/parts';
-import { cn } from '../../../components/ui/cn';
+import type { PartStatus } from '@shared/schemas/parts';
+import { cn } from '@/components/ui/cn';
 
 /** The ledger's tones for a part's status, so a shared page reads like the ledger. */
 const tones: Record<PartStatus, string> = {

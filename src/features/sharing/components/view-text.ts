@@ -1,8 +1,8 @@
 /** Words and numbers of a shared build, rounded for reading. */
-import { aspirationLabels, powerBasisLabels } from '../../../../shared/builds/vocabulary';
-import { formatIsoDate, formatNumber } from '../../../../shared/format';
-import type { BuildView, ViewDynoBest, ViewFastener } from '../../../../shared/schemas/sharing';
-import { unitLabels } from '../../../../shared/units/labels';
+import { aspirationLabels, powerBasisLabels } from '@shared/builds/vocabulary';
+import { formatIsoDate, formatNumber } from '@shared/format';
+import type { BuildView, ViewDynoBest, ViewFastener } from '@shared/schemas/sharing';
+import { unitLabels } from '@shared/units/labels';
 
 type Summary = NonNullable<BuildView['summary']>;
 

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CalendarFeed } from '../../../../shared/schemas/timeline';
-import { api } from '../../../lib/api-client';
+import type { CalendarFeed } from '@shared/schemas/timeline';
+import { api } from '@/lib/api-client';
 import { getCalendarFeedQueryOptions } from './get-calendar-feed';
 import { timelineBase } from './get-timeline';
 

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateMilestoneInput, Milestone } from '../../../../shared/schemas/timeline';
-import { api } from '../../../lib/api-client';
+import type { CreateMilestoneInput, Milestone } from '@shared/schemas/timeline';
+import { api } from '@/lib/api-client';
 import { getTimelineQueryOptions, timelineBase } from './get-timeline';
 
 export async function createMilestone({

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api } from '@/lib/api-client';
 import { getCalendarFeedQueryOptions } from './get-calendar-feed';
 import { timelineBase } from './get-timeline';
 

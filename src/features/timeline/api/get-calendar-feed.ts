@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CalendarFeed } from '../../../../shared/schemas/timeline';
-import { api } from '../../../lib/api-client';
+import type { CalendarFeed } from '@shared/schemas/timeline';
+import { api } from '@/lib/api-client';
 import { timelineBase } from './get-timeline';
 
 /** Whether I have a calendar link for the build, and since when (its address is shown only once). */

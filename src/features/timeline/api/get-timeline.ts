@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Timeline } from '../../../../shared/schemas/timeline';
-import { api } from '../../../lib/api-client';
+import type { Timeline } from '@shared/schemas/timeline';
+import { api } from '@/lib/api-client';
 
 export const timelineBase = (buildId: string) => `/api/builds/${encodeURIComponent(buildId)}`;
 

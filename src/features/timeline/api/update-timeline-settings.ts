@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { Timeline, TimelineSettingsInput } from '../../../../shared/schemas/timeline';
-import { api } from '../../../lib/api-client';
-import { getBuildQueryOptions } from '../../builds/api/get-build';
+import type { Timeline, TimelineSettingsInput } from '@shared/schemas/timeline';
+import { api } from '@/lib/api-client';
+import { getBuildQueryOptions } from '@/features/builds/api/get-build';
 import { getTimelineQueryOptions, timelineBase } from './get-timeline';
 
 /** The owner's buffer, pace and the build's time zone; the answer is the timeline recounted. */

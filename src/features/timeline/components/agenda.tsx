@@ -1,8 +1,8 @@
 import { Link } from 'react-router-dom';
-import type { IsoDate } from '../../../../shared/dates';
-import type { Timeline, TimelineItem } from '../../../../shared/schemas/timeline';
-import { Badge } from '../../../components/ui/badge';
-import { cn } from '../../../components/ui/cn';
+import type { IsoDate } from '@shared/dates';
+import type { Timeline, TimelineItem } from '@shared/schemas/timeline';
+import { Badge } from '@/components/ui/badge';
+import { cn } from '@/components/ui/cn';
 import { kindLooks } from './kinds';
 import { milestoneElementId, timelineHref } from './links';
 

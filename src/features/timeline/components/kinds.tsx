@@ -7,7 +7,7 @@ import {
   Truck,
   type LucideIcon,
 } from 'lucide-react';
-import type { TimelineItemKind } from '../../../../shared/schemas/timeline';
+import type { TimelineItemKind } from '@shared/schemas/timeline';
 
 /** How each kind of dated item looks: its icon and its dot's colour on the track. */
 export const kindLooks: Record<TimelineItemKind, { icon: LucideIcon; dot: string; label: string }> =

@@ -1,5 +1,5 @@
-import type { TimelineLink } from '../../../../shared/schemas/timeline';
-import { paths } from '../../../config/paths';
+import type { TimelineLink } from '@shared/schemas/timeline';
+import { paths } from '@/config/paths';
 
 /** The element id of a milestone's row on the timeline page, for links that pick it out. */
 export const milestoneElementId = (id: string) => `milestone-${id}`;

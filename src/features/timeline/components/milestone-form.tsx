@@ -1,10 +1,10 @@
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { createMilestoneInputSchema, type Milestone } from '../../../../shared/schemas/timeline';
-import { FormActions } from '../../../components/ui/form-actions';
-import { FormField, TextInput } from '../../../components/ui/form-field';
-import { applyServerErrors } from '../../../lib/form-errors';
+import { createMilestoneInputSchema, type Milestone } from '@shared/schemas/timeline';
+import { FormActions } from '@/components/ui/form-actions';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import { applyServerErrors } from '@/lib/form-errors';
 
 type Input = z.input<typeof createMilestoneInputSchema>;
 type Values = z.output<typeof createMilestoneInputSchema>;

@@ -1,6 +1,6 @@
 import { CircleCheck, CalendarX2, Hourglass, TriangleAlert } from 'lucide-react';
-import type { Readiness } from '../../../../shared/schemas/timeline';
-import { cn } from '../../../components/ui/cn';
+import type { Readiness } from '@shared/schemas/timeline';
+import { cn } from '@/components/ui/cn';
 
 const looks: Record<Readiness['state'], { icon: typeof CircleCheck; className: string }> = {
   'on-track': { icon: CircleCheck, className: 'bg-ok-soft text-[#1d5434] border-ok/40' },

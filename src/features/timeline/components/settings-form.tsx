@@ -2,19 +2,19 @@ import { useId, useState } from 'react';
 import { useForm, type Path } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { knownZones, deviceTimeZone } from '../../../../shared/dates';
+import { knownZones, deviceTimeZone } from '@shared/dates';
 import {
   maxBufferDays,
   timelineSettingsInputSchema,
   type Timeline,
-} from '../../../../shared/schemas/timeline';
-import { Alert } from '../../../components/ui/alert';
-import { Button } from '../../../components/ui/button';
-import { FormError } from '../../../components/ui/form-error';
-import { FormField, TextInput } from '../../../components/ui/form-field';
-import { NumberInput } from '../../../components/ui/number-input';
-import { parseNumber } from '../../../../shared/numbers';
-import { applyServerErrors } from '../../../lib/form-errors';
+} from '@shared/schemas/timeline';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { FormError } from '@/components/ui/form-error';
+import { FormField, TextInput } from '@/components/ui/form-field';
+import { NumberInput } from '@/components/ui/number-input';
+import { parseNumber } from '@shared/numbers';
+import { applyServerErrors } from '@/lib/form-errors';
 import { useUpdateTimelineSettings } from '../api/update-timeline-settings';
 
 type Input = z.input<typeof timelineSettingsInputSchema>;

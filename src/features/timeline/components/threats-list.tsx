@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import { TriangleAlert } from 'lucide-react';
-import type { Threat } from '../../../../shared/schemas/timeline';
-import { Badge } from '../../../components/ui/badge';
+import type { Threat } from '@shared/schemas/timeline';
+import { Badge } from '@/components/ui/badge';
 import { timelineHref } from './links';
 import { missLabel, threatRuleLabels } from './words';
 

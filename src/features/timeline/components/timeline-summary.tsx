@@ -1,10 +1,10 @@
 import { Link } from 'react-router-dom';
 import { CalendarClock, ChevronRight } from 'lucide-react';
-import { longDate } from '../../../../shared/dates';
-import { Section } from '../../../components/ui/card';
-import { Button } from '../../../components/ui/button';
-import { Spinner } from '../../../components/ui/spinner';
-import { paths } from '../../../config/paths';
+import { longDate } from '@shared/dates';
+import { Section } from '@/components/ui/card';
+import { Button } from '@/components/ui/button';
+import { Spinner } from '@/components/ui/spinner';
+import { paths } from '@/config/paths';
 import { useTimeline } from '../api/get-timeline';
 import { timelineHref } from './links';
 import { ReadinessLine } from './readiness-line';

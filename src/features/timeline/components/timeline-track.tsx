@@ -1,6 +1,6 @@
-import { daysBetween, shortDate } from '../../../../shared/dates';
-import type { Timeline, TimelineItem } from '../../../../shared/schemas/timeline';
-import { cn } from '../../../components/ui/cn';
+import { daysBetween, shortDate } from '@shared/dates';
+import type { Timeline, TimelineItem } from '@shared/schemas/timeline';
+import { cn } from '@/components/ui/cn';
 import { kindLooks } from './kinds';
 
 // Today sits at 0 %, the target at `end` %; what falls after the target shares the last strip.

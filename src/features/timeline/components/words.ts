@@ -1,5 +1,5 @@
-import { countdownLabel } from '../../../../shared/format';
-import type { ThreatRule, Timeline } from '../../../../shared/schemas/timeline';
+import { countdownLabel } from '@shared/format';
+import type { ThreatRule, Timeline } from '@shared/schemas/timeline';
 
 export const threatRuleLabels: Record<ThreatRule, string> = {
   'part-late': 'Part arriving late',

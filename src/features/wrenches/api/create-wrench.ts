@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateWrenchInput, Wrench } from '../../../../shared/schemas/wrenches';
-import { api } from '../../../lib/api-client';
+import type { CreateWrenchInput, Wrench } from '@shared/schemas/wrenches';
+import { api } from '@/lib/api-client';
 import { getWrenchesQueryOptions } from './get-wrenches';
 
 export async function createWrench(input: CreateWrenchInput): Promise<Wrench> {

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client';
+import { api } from '@/lib/api-client';
 import { getWrenchesQueryOptions } from './get-wrenches';
 
 /** Readings taken with the wrench keep its name and calibration. */

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { Wrench } from '../../../../shared/schemas/wrenches';
-import { api } from '../../../lib/api-client';
+import type { Wrench } from '@shared/schemas/wrenches';
+import { api } from '@/lib/api-client';
 
 /** The signed-in person's own torque wrenches, by name. */
 export async function getWrenches(signal?: AbortSignal): Promise<Wrench[]> {
