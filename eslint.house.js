@@ -53,6 +53,8 @@ function wallBroken(file, target) {
     const other = featureOf(target);
     if ((own || kit) && target.startsWith('src/app/')) return 'clientApp';
     if (kit && other) return 'kit';
+    const base = /^src\/(lib|components|config)\//.test(file);
+    if (base && (other || target.startsWith('src/app/'))) return 'clientBase';
     if (own && other && other[2] !== own[2] && !(other[3] ?? '').startsWith('api/'))
       return 'clientFeature';
   }
@@ -82,6 +84,8 @@ const walls = {
       clientApp:
         'Features and the UI kit sit below the app: they never import a page or the router.',
       kit: 'components/ui is used by every feature and imports none.',
+      clientBase:
+        'src/lib, src/components and src/config sit below the features: they never import a feature or the app.',
       clientFeature:
         "A feature uses another feature's api/ calls only; its components and lib are its own (move what both need to components/ui or lib).",
       alias:

@@ -2,9 +2,9 @@ import { lazy } from 'react';
 import { createBrowserRouter, RouterProvider } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { RequireAuth } from '@/lib/auth';
-import { RootLayout } from '@/components/layouts/root-layout';
-import { BuildsLayout } from '@/components/layouts/builds-layout';
-import { BuildSectionLayout } from '@/components/layouts/build-section-layout';
+import { RootLayout } from '@/app/layouts/root-layout';
+import { BuildsLayout } from '@/app/layouts/builds-layout';
+import { BuildSectionLayout } from '@/app/layouts/build-section-layout';
 import { RouteErrorPage } from './routes/route-error';
 import { NotFoundRoute } from './routes/not-found';
 

@@ -2,7 +2,7 @@ import { useCallback, type ReactNode } from 'react';
 import { useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import type { User } from '@shared/schemas/auth';
-import { getMeQueryOptions, useMe } from '@/features/auth/api/get-me';
+import { getMeQueryOptions, useMe } from '@/lib/me';
 import { paths } from '@/config/paths';
 import { PageSpinner } from '@/components/ui/spinner';
 import { leaveDevice } from './offline-cache';

@@ -1,4 +1,4 @@
-import { useMe } from '@/features/auth/api/get-me';
+import { useMe } from '@/lib/me';
 import { paths } from '@/config/paths';
 import { ButtonLink } from '@/components/ui/button';
 import { NotFoundState } from '@/components/ui/states';

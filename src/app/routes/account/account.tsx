@@ -1,6 +1,6 @@
 import { KeyRound, Mail, UserRound, Wrench } from 'lucide-react';
 import { paths } from '@/config/paths';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Section } from '@/components/ui/card';
 import { EmailForm } from '@/features/account/components/email-form';
 import { PasswordForm } from '@/features/account/components/password-form';

@@ -1,7 +1,7 @@
 import { useEffect, useState, type ReactNode } from 'react';
 import { Navigate, useSearchParams } from 'react-router-dom';
 import { safeNext } from '@/config/paths';
-import { useMe } from '@/features/auth/api/get-me';
+import { useMe } from '@/lib/me';
 import { PageSpinner } from '@/components/ui/spinner';
 import { HeadroomMark } from '@/components/ui/logo';
 import { Alert } from '@/components/ui/alert';

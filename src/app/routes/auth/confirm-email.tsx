@@ -4,7 +4,7 @@ import { paths } from '@/config/paths';
 import { useConfirmEmailChange } from '@/features/account/api/confirm-email-change';
 import { useEmailChange } from '@/features/account/api/get-email-change';
 import { AuthCard } from '@/features/auth/components/auth-card';
-import { useMe } from '@/features/auth/api/get-me';
+import { useMe } from '@/lib/me';
 import { isApiError } from '@/lib/api-client';
 import { Alert } from '@/components/ui/alert';
 import { Button, ButtonLink } from '@/components/ui/button';

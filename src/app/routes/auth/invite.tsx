@@ -5,7 +5,7 @@ import { roleDescriptions } from '@shared/permissions';
 import { invitationErrorCodes as codes, invitationValidDays } from '@shared/schemas/invitations';
 import { formatTimestampDate } from '@shared/format';
 import { paths } from '@/config/paths';
-import { useMe } from '@/features/auth/api/get-me';
+import { useMe } from '@/lib/me';
 import { AuthCard } from '@/features/auth/components/auth-card';
 import { RoleBadge } from '@/components/ui/role-badge';
 import type { AcceptInvitationResult } from '@/features/invitations/api/accept-invitation';

@@ -3,7 +3,7 @@ import { useParams, useSearchParams } from 'react-router-dom';
 import { ArrowLeftRight } from 'lucide-react';
 import type { Build } from '@shared/schemas/builds';
 import type { BenchSheetSummary } from '@shared/schemas/bench';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { ButtonLink } from '@/components/ui/button';
 import { FormField, SelectInput } from '@/components/ui/form-field';
 import { PageSpinner } from '@/components/ui/spinner';

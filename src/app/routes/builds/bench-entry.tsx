@@ -4,7 +4,7 @@ import { Droplets } from 'lucide-react';
 import { can, canChangeBenchSheet } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
 import type { BenchSheetAnswer } from '@shared/schemas/bench';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { ButtonLink } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/spinner';
 import { EmptyState, ErrorState, NotFoundState } from '@/components/ui/states';

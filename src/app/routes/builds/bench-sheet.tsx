@@ -15,7 +15,7 @@ import {
 import { canChangeBenchSheet, canDeleteBenchSheet } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
 import { type BenchSheetAnswer } from '@shared/schemas/bench';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Alert } from '@/components/ui/alert';
 import { Button, ButtonLink, buttonClasses } from '@/components/ui/button';
 import { Section } from '@/components/ui/card';

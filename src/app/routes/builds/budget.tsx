@@ -2,7 +2,7 @@ import { useParams } from 'react-router-dom';
 import { ChartColumnBig, LockKeyhole, PiggyBank, TrendingUp } from 'lucide-react';
 import { capabilities } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { ButtonLink } from '@/components/ui/button';
 import { Section } from '@/components/ui/card';
 import { PageSpinner } from '@/components/ui/spinner';

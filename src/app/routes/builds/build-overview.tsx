@@ -16,7 +16,7 @@ import { MembersPanel } from '@/features/members/components/members-panel';
 import { InvitationsPanel } from '@/features/invitations/components/invitations-panel';
 import { TimelineSummary } from '@/features/timeline/components/timeline-summary';
 import { ActivityList } from '@/features/activity/components/activity-list';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { ButtonLink } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/spinner';
 import { BuildLoadError } from './build-states';

@@ -2,7 +2,7 @@ import { Plus, Truck } from 'lucide-react';
 import { paths } from '@/config/paths';
 import { useBuilds } from '@/features/builds/api/get-builds';
 import { BuildCard, BuildCardSkeleton } from '@/features/builds/components/build-card';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { ButtonLink } from '@/components/ui/button';
 import { EmptyState, ErrorState } from '@/components/ui/states';
 

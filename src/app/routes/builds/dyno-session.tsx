@@ -6,7 +6,7 @@ import { correctionFactor, sessionReport } from '@shared/dyno';
 import type { Build } from '@shared/schemas/builds';
 import type { CorrectionChoice, DynoRun } from '@shared/schemas/dyno';
 import { formatIsoDate } from '@shared/format';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Badge } from '@/components/ui/badge';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { Section } from '@/components/ui/card';

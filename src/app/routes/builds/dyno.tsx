@@ -5,7 +5,7 @@ import { can } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
 import type { DynoSessionSummary } from '@shared/schemas/dyno';
 import { formatIsoDate, formatNumber } from '@shared/format';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { Section } from '@/components/ui/card';

@@ -4,7 +4,7 @@ import { paths } from '@/config/paths';
 import { useBuild } from '@/features/builds/api/get-build';
 import { useUpdateBuild } from '@/features/builds/api/update-build';
 import { BuildForm, buildToFormValues } from '@/features/builds/components/build-form';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Alert } from '@/components/ui/alert';
 import { ButtonLink } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/spinner';

@@ -27,7 +27,7 @@ import { Requirements } from '@/features/estimate/components/requirements';
 import { TargetPanel } from '@/features/estimate/components/target-panel';
 import { BottomEndBanner, WarningsList } from '@/features/estimate/components/warnings';
 import { whatIfEstimate } from '@/features/estimate/what-if';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Badge } from '@/components/ui/badge';
 import { ButtonLink } from '@/components/ui/button';
 import { Section } from '@/components/ui/card';

@@ -5,7 +5,7 @@ import { ClipboardList, Plus } from 'lucide-react';
 import { can } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
 import type { Job } from '@shared/schemas/install-log';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';

@@ -2,7 +2,7 @@ import { useNavigate } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { useCreateBuild } from '@/features/builds/api/create-build';
 import { BuildForm, newBuildDefaults } from '@/features/builds/components/build-form';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { deviceTimeZone } from '@shared/dates';
 
 /** "/builds/new" — whoever starts a build owns it. */

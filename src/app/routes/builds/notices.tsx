@@ -4,7 +4,7 @@ import { useBuild } from '@/features/builds/api/get-build';
 import { useNoticePreferences } from '@/features/notices/api/get-notice-preferences';
 import { NoticePreferencesForm } from '@/features/notices/components/notice-preferences-form';
 import { useUser } from '@/lib/auth';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Section } from '@/components/ui/card';
 import { PageSpinner } from '@/components/ui/spinner';
 import { ErrorState } from '@/components/ui/states';

@@ -5,7 +5,7 @@ import { buildToday } from '@shared/dates';
 import { capabilities } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
 import type { Part, PartStatus, UpdatePartInput } from '@shared/schemas/parts';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Alert } from '@/components/ui/alert';
 import { Button, buttonClasses } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/spinner';

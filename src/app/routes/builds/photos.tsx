@@ -6,7 +6,7 @@ import { can, canCaptionPhoto } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
 import type { Photo } from '@shared/schemas/photos';
 import { paths } from '@/config/paths';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { ButtonLink } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/spinner';
 import { EmptyState, ErrorState } from '@/components/ui/states';

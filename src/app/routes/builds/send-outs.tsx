@@ -5,7 +5,7 @@ import { buildToday } from '@shared/dates';
 import { can } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
 import type { Part } from '@shared/schemas/parts';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { ButtonLink } from '@/components/ui/button';
 import { Section } from '@/components/ui/card';
 import { PageSpinner } from '@/components/ui/spinner';

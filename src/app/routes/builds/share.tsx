@@ -2,7 +2,7 @@ import { useParams } from 'react-router-dom';
 import { LockKeyhole, Printer } from 'lucide-react';
 import { can } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { ButtonLink } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/spinner';
 import { EmptyState, ErrorState } from '@/components/ui/states';

@@ -5,7 +5,7 @@ import type { Build } from '@shared/schemas/builds';
 import type { Step } from '@shared/schemas/install-log';
 import type { Photo } from '@shared/schemas/photos';
 import { paths } from '@/config/paths';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Alert } from '@/components/ui/alert';
 import { Button, ButtonLink } from '@/components/ui/button';
 import { PageSpinner } from '@/components/ui/spinner';

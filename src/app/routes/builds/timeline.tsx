@@ -5,7 +5,7 @@ import { longDate, deviceTimeZone } from '@shared/dates';
 import { capabilities } from '@shared/permissions';
 import type { Build } from '@shared/schemas/builds';
 import type { Timeline } from '@shared/schemas/timeline';
-import { PageHeader } from '@/components/layouts/page-header';
+import { PageHeader } from '@/app/layouts/page-header';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Section } from '@/components/ui/card';

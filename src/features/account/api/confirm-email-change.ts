@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { User } from '@shared/schemas/auth';
 import { api } from '@/lib/api-client';
-import { getMeQueryOptions } from '@/features/auth/api/get-me';
+import { getMeQueryOptions } from '@/lib/me';
 
 export async function confirmEmailChange(token: string): Promise<User> {
   const data = await api.post<{ user: User }>(

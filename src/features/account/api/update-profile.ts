@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { UpdateProfileInput } from '@shared/schemas/account';
 import type { User } from '@shared/schemas/auth';
 import { api } from '@/lib/api-client';
-import { getMeQueryOptions } from '@/features/auth/api/get-me';
+import { getMeQueryOptions } from '@/lib/me';
 
 export async function updateProfile(input: UpdateProfileInput): Promise<User> {
   const data = await api.patch<{ user: User }>('/api/me', input);

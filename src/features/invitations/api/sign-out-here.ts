@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { getMeQueryOptions } from '@/features/auth/api/get-me';
+import { getMeQueryOptions } from '@/lib/me';
 import { signOut } from '@/features/auth/api/sign-out';
 import { getInvitationLinkQueryOptions } from './get-invitation-link';
 

@@ -1,7 +1,7 @@
 import { useEffect } from 'react';
 import { onlineManager, useQueryClient } from '@tanstack/react-query';
 import { CloudOff, Wifi } from 'lucide-react';
-import { useMe } from '@/features/auth/api/get-me';
+import { useMe } from '@/lib/me';
 import { formatWhen } from '@/lib/dates';
 import { lastUser, persistCacheFor } from '@/lib/offline-cache';
 import { openQueue, useOfflineQueue } from '@/lib/offline-queue';

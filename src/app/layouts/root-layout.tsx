@@ -1,7 +1,7 @@
 import { Suspense, useState } from 'react';
 import { Link, Outlet, ScrollRestoration, useLocation } from 'react-router-dom';
 import { LogOut, UserRound } from 'lucide-react';
-import { useMe } from '@/features/auth/api/get-me';
+import { useMe } from '@/lib/me';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { paths } from '@/config/paths';
 import { currentQueue } from '@/lib/offline-queue';
