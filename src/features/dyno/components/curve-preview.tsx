@@ -1,10 +1,4 @@
-import {
-  completeCurve,
-  parseCurveCsv,
-  runPeaks,
-  type CurveCsvError,
-  type CurveCsvResult,
-} from '@shared/dyno';
+import { completeCurve, parseCurveCsv, runPeaks, type CurveCsvResult } from '@shared/dyno';
 import {
   MAX_CURVE_CSV_BYTES,
   boostUnitLabels,
@@ -56,48 +50,6 @@ function unitsOf(result: Extract<CurveCsvResult, { ok: true }>): RunUnits {
     egtUnit: u.egtUnit ?? defaultRunUnits.egtUnit,
     mixtureKind: u.mixtureKind ?? defaultRunUnits.mixtureKind,
   };
-}
-
-/** The rows the file (or the server) refused, with why, per column. */
-export function ErrorTable({ errors, total }: { errors: CurveCsvError[]; total: number }) {
-  return (
-    <div className="max-h-[40vh] overflow-auto rounded-lg border border-rule bg-sheet">
-      <table className="w-full border-collapse text-left text-[15px]">
-        <caption className="sr-only">Rows that need fixing</caption>
-        <thead className="sticky top-0 bg-paper">
-          <tr className="border-b border-rule-strong text-sm">
-            <th scope="col" className="px-3 py-2">
-              Row
-            </th>
-            <th scope="col" className="px-3 py-2">
-              Column
-            </th>
-            <th scope="col" className="px-3 py-2">
-              Problem
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {errors.map((e, i) => (
-            <tr key={i} className="border-b border-rule last:border-b-0">
-              <td className="px-3 py-2 align-top font-semibold tabular-nums">
-                {e.row ?? 'Header'}
-              </td>
-              <td className="px-3 py-2 align-top">{e.column ? <code>{e.column}</code> : '—'}</td>
-              <td className="px-3 py-2 align-top [overflow-wrap:anywhere] text-over">
-                {e.message}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      {total > errors.length && (
-        <p className="px-3 py-2 text-sm text-muted">
-          The first {errors.length} of {total} problems are listed.
-        </p>
-      )}
-    </div>
-  );
 }
 
 /** What the file holds, before anything is saved: units, rows, peaks and the first rows. */

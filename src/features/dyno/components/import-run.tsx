@@ -10,7 +10,8 @@ import { useImportDynoRun } from '../api/import-dyno-run';
 import { useReplaceDynoCurve } from '../api/replace-dyno-curve';
 import { UploadError } from '@/lib/upload';
 import { RunBasicsFields } from './run-basics-fields';
-import { ErrorTable, Preview, readCsv, type Read } from './curve-preview';
+import { RowProblemsTable } from '@/components/ui/row-problems';
+import { Preview, readCsv, type Read } from './curve-preview';
 
 /**
  * A curve from a CSV file: read in the browser with the same parser the server uses, so
@@ -167,7 +168,7 @@ function ImportRunForm({
               : `${formatNumber(read.result.errorCount, 0)} problems`}
             . Fix the file and choose it again; nothing was saved.
           </Alert>
-          <ErrorTable errors={read.result.errors} total={read.result.errorCount} />
+          <RowProblemsTable problems={read.result.errors} total={read.result.errorCount} />
         </>
       )}
       {ready && ready.result.ok && <Preview result={ready.result} />}
@@ -191,11 +192,10 @@ function ImportRunForm({
         </Alert>
       )}
       {serverRows.length > 0 && (
-        <ErrorTable
-          errors={serverRows.flatMap((r) =>
+        <RowProblemsTable
+          problems={serverRows.flatMap((r) =>
             Object.entries(r.fields).map(([column, message]) => ({ row: r.row, column, message })),
           )}
-          total={0}
         />
       )}
 

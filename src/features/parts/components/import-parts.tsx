@@ -3,6 +3,7 @@ import { FileUp, Upload } from 'lucide-react';
 import { formatMoney } from '@shared/format';
 import { csvColumnOfField } from '@shared/ledger/csv';
 import { partCategoryLabels, partStatusLabels, type CreatePartInput } from '@shared/schemas/parts';
+import { RowProblemsTable } from '@/components/ui/row-problems';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Spinner } from '@/components/ui/spinner';
@@ -145,42 +146,16 @@ export function ImportPartsDialog({
             <Alert tone="error" title="Some rows need fixing">
               {checked.message}. Fix them in the file and choose it again.
             </Alert>
-            <div className="max-h-[50vh] overflow-auto rounded-lg border border-rule bg-sheet">
-              <table className="w-full border-collapse text-left text-[15px]">
-                <caption className="sr-only">Rows with errors</caption>
-                <thead className="sticky top-0 bg-paper">
-                  <tr className="border-b border-rule-strong">
-                    <th scope="col" className="px-3 py-2 text-sm">
-                      Row
-                    </th>
-                    <th scope="col" className="px-3 py-2 text-sm">
-                      Column
-                    </th>
-                    <th scope="col" className="px-3 py-2 text-sm">
-                      Problem
-                    </th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {checked.rows.flatMap((r) =>
-                    Object.entries(r.fields).map(([field, message], i) => (
-                      <tr
-                        key={`${r.row}-${field}`}
-                        className="border-b border-rule last:border-b-0"
-                      >
-                        <td className="px-3 py-2 align-top font-semibold tabular-nums">
-                          {i === 0 ? r.row : ''}
-                        </td>
-                        <td className="px-3 py-2 align-top">
-                          <code>{csvColumnOfField(field)}</code>
-                        </td>
-                        <td className="px-3 py-2 align-top text-over">{message}</td>
-                      </tr>
-                    )),
-                  )}
-                </tbody>
-              </table>
-            </div>
+            <RowProblemsTable
+              caption="Rows with errors"
+              problems={checked.rows.flatMap((r) =>
+                Object.entries(r.fields).map(([field, message], i) => ({
+                  row: i === 0 ? r.row : '',
+                  column: csvColumnOfField(field),
+                  message,
+                })),
+              )}
+            />
           </>
         )}
 
