@@ -8,7 +8,7 @@ import * as parts from '@server/features/parts';
 export async function get(knex: Knex, buildId: string, userId: string, known?: builds.KnownBuild) {
   const [build, all] = await Promise.all([
     builds.get(knex, buildId, userId, known).catch(() => undefined),
-    parts.listAll(knex, buildId),
+    parts.listMoney(knex, buildId),
   ]);
   if (!build) throw new NotFoundError('Build not found');
   return computeBudget(all, build.budgetCents ?? 0, build.currency);

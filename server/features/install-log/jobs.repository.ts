@@ -81,34 +81,43 @@ type JobStepRow = JobRow &
 
 /**
  * Jobs in order, each with its steps in order and their checklist counts: a row a step (one
- * with null step columns for a job without steps). A named statement with its columns
- * written out. A non-null shop parameter keeps only the steps linked to a part sent to
- * that shop (a job then may come with no step).
+ * with null step columns for a job without steps). Named statements with their columns
+ * written out. The shop's text keeps only the steps linked to a part sent to that shop (a job
+ * then may come with no step).
+ *
+ * Two texts, not one with a parameter that switches the shop's condition off: PostgreSQL
+ * cannot plan `$1 is null or exists (…)` once for both cases, so it planned that statement
+ * afresh on every request (half the list's database time). Each text here is planned once
+ * per connection (tests/api/statement-plans.test.ts).
  */
-const jobsWithStepsSql = `select j.id, j.build_id, j.position, j.title, j.notes, j.created_by,
-    cu.display_name as created_by_name, j.created_at, j.updated_at,
+const jobsWithStepsSql = (shopCondition: string) => `select j.id, j.build_id, j.position,
+    j.title, j.notes, j.created_by, cu.display_name as created_by_name, j.created_at, j.updated_at,
     s.id as step_id, s.position as step_position, s.title as step_title, s.status,
     s.signed_off_by, su.display_name as signed_off_by_name, s.signed_off_at,
     s.override_reason, s.override_blockers,
     c.total as checklist_total, c.done as checklist_done
   from install_jobs j
   left join users cu on cu.id = j.created_by
-  left join install_steps s on s.job_id = j.id and (?::uuid is null or exists (
-    select 1 from install_step_parts sp join parts p on p.id = sp.part_id
-    where sp.step_id = s.id and p.shop_user_id = ?))
+  left join install_steps s on s.job_id = j.id${shopCondition}
   left join users su on su.id = s.signed_off_by
   left join lateral (
     select count(*)::int as total, (count(*) filter (where i.done_at is not null))::int as done
     from install_checklist_items i where i.step_id = s.id) c on true
   where j.build_id = ?
   order by j.position, j.created_at, j.id, s.position, s.created_at`;
+const everyStepSql = jobsWithStepsSql('');
+const shopStepsSql = jobsWithStepsSql(` and exists (
+    select 1 from install_step_parts sp join parts p on p.id = sp.part_id
+    where sp.step_id = s.id and p.shop_user_id = ?)`);
 
 export async function listJobsWithSteps(knex: Knex, buildId: string, shopUserId: string | null) {
-  const rows = await namedRows<JobStepRow>(knex, 'jobs-with-steps', jobsWithStepsSql, [
-    shopUserId,
-    shopUserId,
-    buildId,
-  ]);
+  const rows =
+    shopUserId === null
+      ? await namedRows<JobStepRow>(knex, 'jobs-with-steps', everyStepSql, [buildId])
+      : await namedRows<JobStepRow>(knex, 'jobs-with-shop-steps', shopStepsSql, [
+          shopUserId,
+          buildId,
+        ]);
   const jobs: (JobRecord & { steps: StepCounts[] })[] = [];
   for (const r of rows) {
     let job = jobs.at(-1);

@@ -159,6 +159,40 @@ export async function listParts(knex: Knex, buildId: string, opts: { shopUserId?
   return rows.map(toRecord);
 }
 
+/** What the budget reads of each part: its money, stage and dates, no more. */
+export type PartMoneyRecord = {
+  id: string;
+  name: string;
+  category: PartCategory;
+  status: PartStatus;
+  quantity: number;
+  unitPriceCents: number;
+  labourCents: number;
+  shippingCents: number;
+  taxCents: number;
+  coreChargeCents: number;
+  coreRefundCents: number;
+  orderedOn: string | null;
+  receivedOn: string | null;
+  createdAt: string;
+};
+
+/**
+ * The budget's read: only the columns it sums and orders by, created_at already as the
+ * ISO text toISOString() writes (UTC, milliseconds), so no row is turned into a Date and back.
+ */
+const moneySql = `select p.id, p.name, p.category, p.status, p.quantity,
+    p.unit_price_cents as "unitPriceCents", p.labour_cents as "labourCents",
+    p.shipping_cents as "shippingCents", p.tax_cents as "taxCents",
+    p.core_charge_cents as "coreChargeCents", p.core_refund_cents as "coreRefundCents",
+    p.ordered_on as "orderedOn", p.received_on as "receivedOn",
+    to_char(p.created_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') as "createdAt"
+  from parts p where p.build_id = ?`;
+
+export async function listPartMoney(knex: Knex, buildId: string) {
+  return namedRows<PartMoneyRecord>(knex, 'parts-money', moneySql, [buildId]);
+}
+
 export async function findPart(knex: Knex, buildId: string, partId: string) {
   const row: Row | undefined = await base(knex, buildId).where('p.id', partId).first();
   return row ? toRecord(row) : undefined;

@@ -145,6 +145,11 @@ export async function listAll(knex: Knex, buildId: string) {
   return repo.listParts(knex, buildId);
 }
 
+/** Every part's money, stage and dates, for the budget (owner only; the caller checks). */
+export async function listMoney(knex: Knex, buildId: string) {
+  return repo.listPartMoney(knex, buildId);
+}
+
 /** The ledger as a CSV file, named after the build and the day. */
 export async function exportCsv(knex: Knex, buildId: string, caller: Caller) {
   const [build, parts, shops] = await Promise.all([
