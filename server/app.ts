@@ -1,6 +1,5 @@
 import express from 'express';
 import compression from 'compression';
-import helmet from 'helmet';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { AppConfig } from './config';
@@ -15,6 +14,7 @@ import { createBuildAccess } from './middleware/build-access';
 import { moneyFilter } from './middleware/money-filter';
 import { originCheck } from './middleware/origin-check';
 import { requestLog } from './middleware/request-log';
+import { helmetOptions, securityHeaders } from './middleware/security-headers';
 import { assertNoNul } from './middleware/validate';
 import { loadSession } from './middleware/require-auth';
 import type { AppDeps } from './lib/deps';
@@ -55,21 +55,9 @@ export function createApp(opts: {
   app.use((req, res, next) => (req.url === '/api/health' ? next() : compress(req, res, next)));
   app.set('trust proxy', opts.config.trustProxy ? 1 : false);
   app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          // Images may come from the object store: its signed URLs are where photo routes redirect.
-          'img-src': [
-            "'self'",
-            'data:',
-            'blob:',
-            ...(storage.signedUrlOrigin ? [storage.signedUrlOrigin] : []),
-          ],
-          'upgrade-insecure-requests': null,
-        },
-      },
-      strictTransportSecurity: opts.config.trustProxy,
-    }),
+    securityHeaders(
+      helmetOptions({ imageOrigin: storage.signedUrlOrigin, hsts: opts.config.trustProxy }),
+    ),
   );
   // One line a request, written asynchronously; the health check (polled by monitors) is not logged.
   if (opts.config.env !== 'test') {
@@ -77,19 +65,27 @@ export function createApp(opts: {
   }
 
   const api = express.Router();
-  // API answers are per person and may carry money: no browser or proxy cache keeps them.
-  // Routes that send photo or file bytes set their own private caching.
-  api.use((_req, res, next) => {
-    res.set('Cache-Control', 'no-store');
-    next();
+  // One layer before every route (each router layer costs on every request, the health
+  // check's too). API answers are per person and may carry money: no browser or proxy
+  // cache keeps them; routes that send photo or file bytes set their own private caching.
+  // A write's JSON body is parsed, refused if it holds U+0000 (PostgreSQL cannot store it),
+  // then its Origin is checked (CSRF); a read has no body to parse.
+  const parseJson = express.json({ limit: '2mb' });
+  const checkOrigin = originCheck(opts.config.allowedOrigins);
+  api.use((req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    if (req.method === 'GET' || req.method === 'HEAD') return next();
+    // Inside body-parser's callback a throw would not reach Express: it is passed on.
+    parseJson(req, res, (err?: unknown) => {
+      try {
+        if (err) throw err;
+        assertNoNul(req.body);
+        checkOrigin(req, res, next);
+      } catch (refused) {
+        next(refused);
+      }
+    });
   });
-  api.use(express.json({ limit: '2mb' }));
-  // Every JSON body, before any route: PostgreSQL cannot store U+0000, so it is a 400 here.
-  api.use((req, _res, next) => {
-    assertNoNul(req.body);
-    next();
-  });
-  api.use(originCheck(opts.config.allowedOrigins));
   const mounts = apiRoutes(deps);
   // Routes that need no session (the health check) answer without the session lookup.
   for (const mount of mounts.filter((m) => m.anonymous)) api.use(mount.path, mount.router);
