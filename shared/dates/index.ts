@@ -79,19 +79,30 @@ export function isTimeZone(name: string): boolean {
 
 const weekdays: Record<string, number> = { Mon: 1, Tue: 2, Wed: 3, Thu: 4, Fri: 5, Sat: 6, Sun: 7 };
 
+type WallClock = { date: IsoDate; hour: number; minute: number; weekday: number };
+
+/**
+ * The last wall clock worked out per zone, with the minute it is for. Every build read
+ * asks for its "today", and formatToParts costs about 30 µs a call; within one minute of
+ * the epoch the answer cannot change (a zone changes its offset on a whole minute).
+ */
+const lastWallClock = new Map<string, { minute: number; clock: WallClock }>();
+
 /** The wall clock in a zone at a moment: its date, hour (0–23), minute and ISO weekday (1 = Monday). */
-export function wallClock(
-  instant: Date,
-  timeZone: string,
-): { date: IsoDate; hour: number; minute: number; weekday: number } {
+export function wallClock(instant: Date, timeZone: string): WallClock {
+  const minute = Math.floor(instant.getTime() / 60_000);
+  const last = lastWallClock.get(timeZone);
+  if (last?.minute === minute) return { ...last.clock };
   const parts: Record<string, string> = {};
   for (const p of formatterFor(timeZone).formatToParts(instant)) parts[p.type] = p.value;
-  return {
+  const clock = {
     date: `${parts.year}-${parts.month}-${parts.day}`,
     hour: Number(parts.hour),
     minute: Number(parts.minute),
     weekday: weekdays[parts.weekday],
   };
+  lastWallClock.set(timeZone, { minute, clock });
+  return { ...clock };
 }
 
 /** The calendar date in a zone at a moment: what "today" is for the build. */

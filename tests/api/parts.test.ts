@@ -101,6 +101,29 @@ describe('parts: create and read', () => {
     expect(a.totalCents).toBe(42_500 * 8 + 4_000 + 27_200 + 80_000);
   });
 
+  it('dates a part with the stored instant, in the ISO form of JavaScript Date', async () => {
+    const cast = await buildWithCast(app);
+    const url = `/api/builds/${cast.build.id}/parts`;
+    const made = (await cast.owner.agent.post(url).send(injectors)).body.part;
+    // A stored instant with microseconds: the answer truncates to milliseconds as Date does.
+    await app.db
+      .knex('parts')
+      .where({ id: made.id })
+      .update({
+        created_at: app.db.knex.raw(`'2027-01-02T03:04:05.678901Z'::timestamptz`),
+        updated_at: app.db.knex.raw(`'2027-01-02T03:04:05.000001Z'::timestamptz`),
+      });
+    // ECMA-262 Date.prototype.toISOString: YYYY-MM-DDTHH:mm:ss.sssZ, in UTC.
+    const expected = {
+      createdAt: '2027-01-02T03:04:05.678Z',
+      updatedAt: '2027-01-02T03:04:05.000Z',
+    };
+    const listed = (await cast.owner.agent.get(url)).body.parts[0];
+    const one = (await cast.owner.agent.get(`${url}/${made.id}`)).body.part;
+    expect(listed).toMatchObject(expected);
+    expect(one).toMatchObject(expected);
+  });
+
   it('shows crew and viewer every part without any money key', async () => {
     const { crew, viewer, url } = await castWithParts();
     for (const m of [crew, viewer]) {

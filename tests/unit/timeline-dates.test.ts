@@ -38,6 +38,22 @@ describe("today in the build's time zone", () => {
     expect(todayIn(denver, new Date('2027-03-15T06:00:00Z'))).toBe('2027-03-15');
   });
 
+  it('is remembered within a minute but never across one, even at the change', () => {
+    // IANA tz database: 01:59:59.999 MST, then the next millisecond is 03:00 MDT.
+    expect(wallClock(new Date('2027-03-14T08:59:00.000Z'), denver)).toMatchObject({ hour: 1 });
+    const late = wallClock(new Date('2027-03-14T08:59:59.999Z'), denver);
+    expect(late).toMatchObject({ date: '2027-03-14', hour: 1, minute: 59 });
+    expect(wallClock(new Date('2027-03-14T09:00:00.000Z'), denver)).toMatchObject({
+      hour: 3,
+      minute: 0,
+    });
+    // A caller changing its copy does not change the next answer in the same minute.
+    const copy = wallClock(new Date('2027-03-14T08:59:30Z'), denver);
+    copy.hour = 99;
+    expect(wallClock(new Date('2027-03-14T08:59:45Z'), denver).hour).toBe(1);
+    expect(wallClock(new Date('2027-03-14T08:59:30Z'), 'UTC')).toMatchObject({ hour: 8 });
+  });
+
   it('gives the ISO weekday and hour of the wall clock', () => {
     // 15 March 2027 is a Monday (proleptic Gregorian calendar); 08:00 MDT is 14:00Z.
     expect(wallClock(new Date('2027-03-15T14:00:00Z'), denver)).toEqual({

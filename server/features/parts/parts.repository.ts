@@ -73,8 +73,9 @@ type Row = Record<string, unknown> & {
   id: string;
   build_id: string;
   shop_name: string | null;
-  created_at: Date;
-  updated_at: Date;
+  /** ISO text, as toISOString() writes it: see isoUtc. */
+  created_at: string;
+  updated_at: string;
 };
 
 /**
@@ -113,8 +114,8 @@ function toRecord(r: Row): PartRecord {
     ratingValue: row.rating_value,
     ratingUnit: row.rating_unit,
     ratingFor: row.rating_for,
-    createdAt: row.created_at.toISOString(),
-    updatedAt: row.updated_at.toISOString(),
+    createdAt: row.created_at,
+    updatedAt: row.updated_at,
   };
 }
 
@@ -127,13 +128,20 @@ export function toRow(input: UpdatePartInput) {
   return row;
 }
 
+/**
+ * A timestamp as the ISO text toISOString() writes (UTC, milliseconds, both truncated), made
+ * by PostgreSQL: a list of 150 parts then turns no row into a Date and back.
+ */
+const isoUtc = (column: string) =>
+  `to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
+
 /** Every column toRecord reads, written out (a named statement may not select `p.*`). */
 const partColumns = [
   'p.id',
   'p.build_id',
   ...Object.values(columns).map((c) => `p.${c}`),
-  'p.created_at',
-  'p.updated_at',
+  `${isoUtc('p.created_at')} as created_at`,
+  `${isoUtc('p.updated_at')} as updated_at`,
   's.display_name as shop_name',
 ];
 
@@ -141,7 +149,7 @@ function base(knex: Knex, buildId: string) {
   return knex('parts as p')
     .leftJoin('users as s', 's.id', 'p.shop_user_id')
     .where('p.build_id', buildId)
-    .select(partColumns);
+    .select(partColumns.map((c) => knex.raw(c)));
 }
 
 /**
@@ -186,7 +194,7 @@ const moneySql = `select p.id, p.name, p.category, p.status, p.quantity,
     p.shipping_cents as "shippingCents", p.tax_cents as "taxCents",
     p.core_charge_cents as "coreChargeCents", p.core_refund_cents as "coreRefundCents",
     p.ordered_on as "orderedOn", p.received_on as "receivedOn",
-    to_char(p.created_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') as "createdAt"
+    ${isoUtc('p.created_at')} as "createdAt"
   from parts p where p.build_id = ?`;
 
 export async function listPartMoney(knex: Knex, buildId: string) {
