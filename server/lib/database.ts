@@ -43,8 +43,11 @@ export function createDatabase(
   return {
     knex,
     pool,
+    // Through the session pool, which every signed-in request also uses: the health check,
+    // polled by monitors, then costs what a bare pg query does (knex's pool and builder
+    // were a sixth of it).
     ping: async () => {
-      await knex.raw('select 1');
+      await pool.query('select 1');
     },
     close: async () => {
       await Promise.all([knex.destroy(), pool.end()]);
