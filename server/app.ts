@@ -61,7 +61,7 @@ export function createApp(opts: {
   );
   // One line a request, written asynchronously; the health check (polled by monitors) is not logged.
   if (opts.config.env !== 'test') {
-    app.use(requestLog(logger, { ignore: (url) => url === '/api/health' }));
+    app.use(requestLog(logger.requests, { ignore: (url) => url === '/api/health' }));
   }
 
   const api = express.Router();

@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import type { Logger } from '@server/lib/logger';
+import type { pino } from 'pino';
 import { redactTokens } from '@server/lib/tokens';
 
 /**
@@ -10,7 +10,7 @@ import { redactTokens } from '@server/lib/tokens';
  * request, measured with `npm run bench:api -- --cpu-prof`.
  */
 export function requestLog(
-  logger: Logger,
+  logger: pino.Logger,
   opts: { ignore?: (url: string) => boolean } = {},
 ): RequestHandler {
   return (req, res, next) => {
