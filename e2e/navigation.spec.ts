@@ -5,6 +5,7 @@
  * happened lately to every role, and one way to add people.
  */
 import { expect, test, type Locator, type Page } from '@playwright/test';
+import { ensureDemo, signedInState } from './demo';
 import { signUpThroughPage, uniqueEmail } from './helpers';
 import { joinByInvitation } from './mail';
 
@@ -219,4 +220,27 @@ test('the overview shows every role what happened lately, without money, and one
   await expect(owner.getByRole('form', { name: 'Send an invitation' })).toHaveCount(1);
   await ownerContext.close();
   await viewerContext.close();
+});
+
+test('"Lately" shows five entries on a phone and the rest one tap away', async ({
+  browser,
+}, testInfo) => {
+  const demo = await ensureDemo();
+  const storageState = await signedInState(testInfo.project.use.baseURL!, 'crew');
+  const context = await browser.newContext({ viewport: phone, storageState });
+  const page = await context.newPage();
+  await page.goto(`/builds/${demo.buildId}`);
+  const lately = page.getByRole('region', { name: 'Lately' });
+  const entries = lately.getByRole('list', { name: 'Recent activity' }).getByRole('listitem');
+  await expect(entries).toHaveCount(5);
+  const more = lately.getByRole('button', { name: /^Show \d+ more$/ });
+  await expect(more).toHaveAttribute('aria-expanded', 'false');
+  const hidden = Number((await more.textContent())!.match(/\d+/)![0]);
+  await more.click();
+  await expect(entries).toHaveCount(5 + hidden);
+  const fewer = lately.getByRole('button', { name: 'Show fewer' });
+  await expect(fewer).toHaveAttribute('aria-expanded', 'true');
+  await fewer.click();
+  await expect(entries).toHaveCount(5);
+  await context.close();
 });

@@ -24,7 +24,14 @@ function useOfflineUser(userId: string | null) {
 
 const entries = (n: number) => `${n} ${n === 1 ? 'entry' : 'entries'}`;
 
-/** One line under the header: online or offline, what waits to be sent, when something was last sent. */
+/** How long after the queue last sent something the line still says so. */
+const recentMs = 30 * 60_000;
+
+/**
+ * One line under the header when there is something to say: offline, entries waiting or
+ * refused, sending, or sent in the last half hour. Online with nothing waiting (the owner at
+ * a desk, most of the time) it is an empty live region, there for the next change to be read out.
+ */
 export function OfflineStatus() {
   const me = useMe();
   const userId = me.data?.id ?? null;
@@ -34,6 +41,9 @@ export function OfflineStatus() {
   if (!userId) return null;
   const refused = items.filter((i) => i.problem).length;
   const waiting = items.length - refused;
+  const recentlySent = !!lastSentAt && Date.now() - Date.parse(lastSentAt) < recentMs;
+  const quiet = online && items.length === 0 && !sending && !recentlySent;
+  if (quiet) return <p role="status" data-testid="offline-status" className="sr-only" />;
   const parts = [
     online ? 'Online' : 'Offline: new entries are kept on this phone',
     waiting ? `${entries(waiting)} waiting to send` : '',

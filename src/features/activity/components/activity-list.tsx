@@ -1,3 +1,4 @@
+import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import {
   Camera,
@@ -16,6 +17,7 @@ import { addDays, buildToday } from '@shared/dates';
 import { formatIsoDate } from '@shared/format';
 import type { ActivityEvent, ActivityKind } from '@shared/schemas/activity';
 import type { Build } from '@shared/schemas/builds';
+import { Button } from '@/components/ui/button';
 import { Section } from '@/components/ui/card';
 import { cn } from '@/components/ui/cn';
 import { PageSpinner } from '@/components/ui/spinner';
@@ -74,6 +76,9 @@ function dayLabel(day: string, today: string): string {
   return formatIsoDate(day);
 }
 
+/** How many entries show before "Show all": a phone screen's worth, the rest one tap away. */
+const firstShown = 5;
+
 /**
  * "Lately": what has happened on the build, newest first — parts moving, steps signed off,
  * photos and bench sheets — as the member's role may see it (the server filters; no money).
@@ -82,6 +87,8 @@ export function ActivityList({ build }: { build: Pick<Build, 'id' | 'timeZone'> 
   const buildId = build.id;
   const activity = useActivity(buildId);
   const today = buildToday(build);
+  const [showAll, setShowAll] = useState(false);
+  const listId = useId();
   let body;
   if (activity.isPending) body = <PageSpinner label="Loading what happened lately…" />;
   else if (activity.isError)
@@ -98,34 +105,51 @@ export function ActivityList({ build }: { build: Pick<Build, 'id' | 'timeZone'> 
         Nothing yet. Parts arriving, steps signed off and photos added show here.
       </p>
     );
-  else
+  else {
+    const events = showAll ? activity.data : activity.data.slice(0, firstShown);
+    const more = activity.data.length - firstShown;
     body = (
-      <ol aria-label="Recent activity" className="-my-1 divide-y divide-rule">
-        {activity.data.map((e, i) => {
-          const Icon = e.overridden ? ShieldAlert : icons[e.kind];
-          return (
-            <li key={`${e.kind}-${e.subject.id}-${e.day}-${i}`}>
-              <Link
-                to={hrefOf(buildId, e)}
-                className="flex min-h-12 items-start gap-3 py-2.5 hover:bg-ink/[0.03]"
-              >
-                <Icon
-                  aria-hidden
-                  className={cn(
-                    'mt-0.5 size-5 shrink-0',
-                    e.overridden ? 'text-tight' : 'text-ink-3',
-                  )}
-                />
-                <span className="min-w-0 flex-1 break-words text-ink">{sentence(e)}</span>
-                <span className="shrink-0 text-sm whitespace-nowrap text-muted">
-                  {dayLabel(e.day, today)}
-                </span>
-              </Link>
-            </li>
-          );
-        })}
-      </ol>
+      <>
+        <ol id={listId} aria-label="Recent activity" className="-my-1 divide-y divide-rule">
+          {events.map((e, i) => {
+            const Icon = e.overridden ? ShieldAlert : icons[e.kind];
+            return (
+              <li key={`${e.kind}-${e.subject.id}-${e.day}-${i}`}>
+                <Link
+                  to={hrefOf(buildId, e)}
+                  className="flex min-h-12 items-start gap-3 py-2.5 hover:bg-ink/[0.03]"
+                >
+                  <Icon
+                    aria-hidden
+                    className={cn(
+                      'mt-0.5 size-5 shrink-0',
+                      e.overridden ? 'text-tight' : 'text-ink-3',
+                    )}
+                  />
+                  <span className="min-w-0 flex-1 break-words text-ink">{sentence(e)}</span>
+                  <span className="shrink-0 text-sm whitespace-nowrap text-muted">
+                    {dayLabel(e.day, today)}
+                  </span>
+                </Link>
+              </li>
+            );
+          })}
+        </ol>
+        {more > 0 && (
+          <Button
+            variant="secondary"
+            size="sm"
+            className="mt-3"
+            aria-expanded={showAll}
+            aria-controls={listId}
+            onClick={() => setShowAll((v) => !v)}
+          >
+            {showAll ? 'Show fewer' : `Show ${more} more`}
+          </Button>
+        )}
+      </>
     );
+  }
   return (
     <Section
       id="lately"
