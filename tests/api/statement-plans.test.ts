@@ -10,7 +10,8 @@
 import knexFactory, { type Knex } from 'knex';
 import pg from 'pg';
 import { afterAll, describe, expect, it } from 'vitest';
-import { listPartMoney, listParts } from '@server/features/parts/parts.repository';
+import { listParts } from '@server/features/parts/parts.repository';
+import { listPartMoney } from '@server/features/parts/parts-money.repository';
 import { listJobsWithSteps } from '@server/features/install-log/jobs.repository';
 import { listSpecsWithCurrentReadings } from '@server/features/install-log/fasteners.repository';
 import { findEstimateInputs } from '@server/features/estimate/estimate.repository';

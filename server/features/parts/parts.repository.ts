@@ -132,7 +132,7 @@ export function toRow(input: UpdatePartInput) {
  * A timestamp as the ISO text toISOString() writes (UTC, milliseconds, both truncated), made
  * by PostgreSQL: a list of 150 parts then turns no row into a Date and back.
  */
-const isoUtc = (column: string) =>
+export const isoUtc = (column: string) =>
   `to_char(${column} at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
 /** Every column toRecord reads, written out (a named statement may not select `p.*`). */
@@ -165,40 +165,6 @@ export async function listParts(knex: Knex, buildId: string, opts: { shopUserId?
   const shop = opts.shopUserId ?? null;
   const rows = await namedRows<Row>(knex, 'parts-list', listSql, [buildId, shop, shop]);
   return rows.map(toRecord);
-}
-
-/** What the budget reads of each part: its money, stage and dates, no more. */
-export type PartMoneyRecord = {
-  id: string;
-  name: string;
-  category: PartCategory;
-  status: PartStatus;
-  quantity: number;
-  unitPriceCents: number;
-  labourCents: number;
-  shippingCents: number;
-  taxCents: number;
-  coreChargeCents: number;
-  coreRefundCents: number;
-  orderedOn: string | null;
-  receivedOn: string | null;
-  createdAt: string;
-};
-
-/**
- * The budget's read: only the columns it sums and orders by, created_at already as the
- * ISO text toISOString() writes (UTC, milliseconds), so no row is turned into a Date and back.
- */
-const moneySql = `select p.id, p.name, p.category, p.status, p.quantity,
-    p.unit_price_cents as "unitPriceCents", p.labour_cents as "labourCents",
-    p.shipping_cents as "shippingCents", p.tax_cents as "taxCents",
-    p.core_charge_cents as "coreChargeCents", p.core_refund_cents as "coreRefundCents",
-    p.ordered_on as "orderedOn", p.received_on as "receivedOn",
-    ${isoUtc('p.created_at')} as "createdAt"
-  from parts p where p.build_id = ?`;
-
-export async function listPartMoney(knex: Knex, buildId: string) {
-  return namedRows<PartMoneyRecord>(knex, 'parts-money', moneySql, [buildId]);
 }
 
 export async function findPart(knex: Knex, buildId: string, partId: string) {

@@ -28,6 +28,7 @@ import { csvFileName, parseCsv, partsToCsv } from './parts.csv';
 import * as builds from '@server/features/builds';
 import { notifyPartProgress } from './parts.notices';
 import * as repo from './parts.repository';
+import * as moneyRepo from './parts-money.repository';
 
 export type { Caller };
 
@@ -147,7 +148,7 @@ export async function listAll(knex: Knex, buildId: string) {
 
 /** Every part's money, stage and dates, for the budget (owner only; the caller checks). */
 export async function listMoney(knex: Knex, buildId: string) {
-  return repo.listPartMoney(knex, buildId);
+  return moneyRepo.listPartMoney(knex, buildId);
 }
 
 /** The ledger as a CSV file, named after the build and the day. */

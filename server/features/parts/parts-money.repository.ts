@@ -1,0 +1,39 @@
+/** The budget's read of the parts: their money, stage and dates, and nothing else. */
+import type { Knex } from 'knex';
+import { namedRows } from '@server/lib/named-query';
+import type { PartCategory, PartStatus } from '@shared/schemas/parts';
+import { isoUtc } from './parts.repository';
+
+/** What the budget reads of each part. */
+export type PartMoneyRecord = {
+  id: string;
+  name: string;
+  category: PartCategory;
+  status: PartStatus;
+  quantity: number;
+  unitPriceCents: number;
+  labourCents: number;
+  shippingCents: number;
+  taxCents: number;
+  coreChargeCents: number;
+  coreRefundCents: number;
+  orderedOn: string | null;
+  receivedOn: string | null;
+  createdAt: string;
+};
+
+/**
+ * The budget's read: only the columns it sums and orders by, created_at already as the
+ * ISO text toISOString() writes (UTC, milliseconds), so no row is turned into a Date and back.
+ */
+const moneySql = `select p.id, p.name, p.category, p.status, p.quantity,
+    p.unit_price_cents as "unitPriceCents", p.labour_cents as "labourCents",
+    p.shipping_cents as "shippingCents", p.tax_cents as "taxCents",
+    p.core_charge_cents as "coreChargeCents", p.core_refund_cents as "coreRefundCents",
+    p.ordered_on as "orderedOn", p.received_on as "receivedOn",
+    ${isoUtc('p.created_at')} as "createdAt"
+  from parts p where p.build_id = ?`;
+
+export async function listPartMoney(knex: Knex, buildId: string) {
+  return namedRows<PartMoneyRecord>(knex, 'parts-money', moneySql, [buildId]);
+}
