@@ -20,7 +20,11 @@ export function createQueryClient(): QueryClient {
         retry: shouldRetry,
         refetchOnWindowFocus: true,
       },
-      mutations: { retry: false },
+      // Without signal a write is tried at once and fails with "Could not reach Headroom…"
+      // beside its button, instead of spinning until the signal returns (TanStack's default
+      // pauses it, and a reload loses it). Readings, ticks and step photos do not come here
+      // offline: they go to the queue on the phone (lib/offline-queue.ts).
+      mutations: { retry: false, networkMode: 'always' },
     },
   });
 }

@@ -1,7 +1,8 @@
 import { useEffect } from 'react';
-import { onlineManager, useQueryClient } from '@tanstack/react-query';
+import { onlineManager, useMutationState, useQueryClient } from '@tanstack/react-query';
 import { CloudOff, Wifi } from 'lucide-react';
 import { useMe } from '@/lib/me';
+import { signOutKey } from '@/features/auth/api/sign-out';
 import { formatWhen } from '@/lib/dates';
 import { lastUser, persistCacheFor } from '@/lib/offline-cache';
 import { openQueue, useOfflineQueue } from '@/lib/offline-queue';
@@ -28,15 +29,22 @@ const entries = (n: number) => `${n} ${n === 1 ? 'entry' : 'entries'}`;
 const recentMs = 30 * 60_000;
 
 /**
- * One line under the header when there is something to say: offline, entries waiting or
- * refused, sending, or sent in the last half hour. Online with nothing waiting (the owner at
- * a desk, most of the time) it is an empty live region, there for the next change to be read out.
+ * One line under the header when there is something to say: offline (and a sign-out that
+ * could not go for it), entries waiting or refused, sending, sent in the last half hour.
+ * Online with nothing waiting (the owner at a desk, most of the time) it is an empty live
+ * region, there for the next change to be read out.
  */
 export function OfflineStatus() {
   const me = useMe();
   const userId = me.data?.id ?? null;
   useOfflineUser(userId);
   const { online, items, lastSentAt, sending } = useOfflineQueue();
+  // The last sign-out tried failed for want of signal (it fails at once: lib/query-client.ts).
+  const signOuts = useMutationState({
+    filters: { mutationKey: signOutKey },
+    select: (m) => m.state.status,
+  });
+  const signOutFailed = signOuts.at(-1) === 'error' && !online;
   useEffect(() => onlineManager.setOnline(online), [online]);
   if (!userId) return null;
   const refused = items.filter((i) => i.problem).length;
@@ -50,6 +58,7 @@ export function OfflineStatus() {
     refused ? `${entries(refused)} refused: see the step` : '',
     sending ? 'sending…' : '',
     lastSentAt ? `last sent ${formatWhen(lastSentAt)}` : '',
+    signOutFailed ? 'signing out needs signal' : '',
   ].filter(Boolean);
   return (
     <div

@@ -12,7 +12,10 @@ export async function signOut(): Promise<void> {
   }
 }
 
+/** The sign-out's mutation key: the status line reads a failed sign-out by it. */
+export const signOutKey = ['sign-out'] as const;
+
 export const useSignOut = () => {
   const endSession = useEndSession();
-  return useMutation({ mutationFn: signOut, onSuccess: endSession });
+  return useMutation({ mutationKey: signOutKey, mutationFn: signOut, onSuccess: endSession });
 };
