@@ -84,14 +84,18 @@ type WallClock = { date: IsoDate; hour: number; minute: number; weekday: number 
 /**
  * The last wall clock worked out per zone, with the minute it is for. Every build read
  * asks for its "today", and formatToParts costs about 30 µs a call; within one minute of
- * the epoch the answer cannot change (a zone changes its offset on a whole minute).
+ * the epoch the answer cannot change, since every zone's offset is whole minutes from
+ * 1972 on (older local mean times had seconds, e.g. Amsterdam's +0:19:32: those instants
+ * are worked out every time).
  */
+const wholeMinuteOffsetsSince = Date.UTC(1972, 6, 1);
 const lastWallClock = new Map<string, { minute: number; clock: WallClock }>();
 
 /** The wall clock in a zone at a moment: its date, hour (0–23), minute and ISO weekday (1 = Monday). */
 export function wallClock(instant: Date, timeZone: string): WallClock {
   const minute = Math.floor(instant.getTime() / 60_000);
-  const last = lastWallClock.get(timeZone);
+  const remembered = instant.getTime() >= wholeMinuteOffsetsSince;
+  const last = remembered ? lastWallClock.get(timeZone) : undefined;
   if (last?.minute === minute) return { ...last.clock };
   const parts: Record<string, string> = {};
   for (const p of formatterFor(timeZone).formatToParts(instant)) parts[p.type] = p.value;
@@ -101,7 +105,7 @@ export function wallClock(instant: Date, timeZone: string): WallClock {
     minute: Number(parts.minute),
     weekday: weekdays[parts.weekday],
   };
-  lastWallClock.set(timeZone, { minute, clock });
+  if (remembered) lastWallClock.set(timeZone, { minute, clock });
   return { ...clock };
 }
 

@@ -370,6 +370,37 @@ describe('budget', () => {
   });
 });
 
+describe('budget and shared page agree', () => {
+  it('names the same tipping part on ties, whatever order the parts were stored in', async () => {
+    const cast = await buildWithCast(app);
+    const base = `/api/builds/${cast.build.id}`;
+    await cast.owner.agent.patch(base).send({ budgetCents: 150_000 });
+    // Two planned parts of 1,000.00 with one created_at (as a CSV import stores them), added
+    // in the reverse of the ledger's order (category, then name): the budget walks them in the
+    // ledger's order, so the second of that order tips it, as the shared page's budget says.
+    const ids: string[] = [];
+    for (const [category, name] of [
+      ['turbocharger', 'C turbo'],
+      ['fuel-injection', 'A lines'],
+    ])
+      ids.push(
+        (
+          await cast.owner.agent
+            .post(`${base}/parts`)
+            .send({ category, name, unitPriceCents: 100_000 })
+        ).body.part.id,
+      );
+    await app.db
+      .knex('parts')
+      .whereIn('id', ids)
+      .update({ created_at: app.db.knex.raw(`'2027-02-01T10:00:00Z'::timestamptz`) });
+    const budget = (await cast.owner.agent.get(`${base}/budget`)).body.budget;
+    // The ledger's order: fuel-injection "A lines", then turbocharger "C turbo";
+    // 1,000 + 1,000 > 1,500 → "C turbo" (product.md: the part that crosses the budget line).
+    expect(budget.tippingPart).toMatchObject({ name: 'C turbo', overByCents: 50_000 });
+  });
+});
+
 describe('CSV export and import', () => {
   it('names the file after the build and the day, and starts it with a UTF-8 byte-order mark (issue #14)', async () => {
     const { owner, url } = await castWithParts();

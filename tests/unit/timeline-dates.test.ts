@@ -54,6 +54,19 @@ describe("today in the build's time zone", () => {
     expect(wallClock(new Date('2027-03-14T08:59:30Z'), 'UTC')).toMatchObject({ hour: 8 });
   });
 
+  it('is worked out afresh where an old offset had seconds', () => {
+    // IANA tz database: Africa/Monrovia kept −0:44:30 until 1972, so one minute of UTC
+    // (12:00:00–12:00:59) spans two minutes of its wall clock, 11:15:30 and 11:16:10.
+    expect(wallClock(new Date('1971-01-15T12:00:00Z'), 'Africa/Monrovia')).toMatchObject({
+      hour: 11,
+      minute: 15,
+    });
+    expect(wallClock(new Date('1971-01-15T12:00:40Z'), 'Africa/Monrovia')).toMatchObject({
+      hour: 11,
+      minute: 16,
+    });
+  });
+
   it('gives the ISO weekday and hour of the wall clock', () => {
     // 15 March 2027 is a Monday (proleptic Gregorian calendar); 08:00 MDT is 14:00Z.
     expect(wallClock(new Date('2027-03-15T14:00:00Z'), denver)).toEqual({

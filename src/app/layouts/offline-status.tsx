@@ -1,7 +1,8 @@
-import { useEffect } from 'react';
+import { useEffect, useReducer } from 'react';
 import { onlineManager, useMutationState, useQueryClient } from '@tanstack/react-query';
 import { CloudOff, Wifi } from 'lucide-react';
 import { useMe } from '@/lib/me';
+import { cn } from '@/components/ui/cn';
 import { signOutKey } from '@/features/auth/api/sign-out';
 import { formatWhen } from '@/lib/dates';
 import { lastUser, persistCacheFor } from '@/lib/offline-cache';
@@ -39,19 +40,34 @@ export function OfflineStatus() {
   const userId = me.data?.id ?? null;
   useOfflineUser(userId);
   const { online, items, lastSentAt, sending } = useOfflineQueue();
+  const queryClient = useQueryClient();
   // The last sign-out tried failed for want of signal (it fails at once: lib/query-client.ts).
   const signOuts = useMutationState({
     filters: { mutationKey: signOutKey },
     select: (m) => m.state.status,
   });
   const signOutFailed = signOuts.at(-1) === 'error' && !online;
-  useEffect(() => onlineManager.setOnline(online), [online]);
+  useEffect(() => {
+    onlineManager.setOnline(online);
+    // Back online, an old failed sign-out is history: not shown again at the next loss of signal.
+    if (!online) return;
+    const cache = queryClient.getMutationCache();
+    for (const m of cache.findAll({ mutationKey: signOutKey, status: 'error' })) cache.remove(m);
+  }, [online, queryClient]);
+  // "last sent" goes quiet by itself once it is half an hour old.
+  const [, rerender] = useReducer((n: number) => n + 1, 0);
+  useEffect(() => {
+    if (!lastSentAt) return;
+    const left = recentMs - (Date.now() - Date.parse(lastSentAt));
+    if (left <= 0) return;
+    const timer = setTimeout(rerender, left + 100);
+    return () => clearTimeout(timer);
+  }, [lastSentAt]);
   if (!userId) return null;
   const refused = items.filter((i) => i.problem).length;
   const waiting = items.length - refused;
   const recentlySent = !!lastSentAt && Date.now() - Date.parse(lastSentAt) < recentMs;
   const quiet = online && items.length === 0 && !sending && !recentlySent;
-  if (quiet) return <p role="status" data-testid="offline-status" className="sr-only" />;
   const parts = [
     online ? 'Online' : 'Offline: new entries are kept on this phone',
     waiting ? `${entries(waiting)} waiting to send` : '',
@@ -60,21 +76,30 @@ export function OfflineStatus() {
     lastSentAt ? `last sent ${formatWhen(lastSentAt)}` : '',
     signOutFailed ? 'signing out needs signal' : '',
   ].filter(Boolean);
+  // The same elements quiet or not, so the live region is updated, not replaced (a region
+  // that appears with its text already in it is often not read out).
   return (
     <div
-      className={`print:hidden ${online ? 'bg-sheet text-ink-2' : 'bg-tight-soft text-ink'} border-b border-rule`}
+      className={cn(
+        'print:hidden',
+        !quiet && 'border-b border-rule',
+        !quiet && (online ? 'bg-sheet text-ink-2' : 'bg-tight-soft text-ink'),
+      )}
     >
       <p
         role="status"
         data-testid="offline-status"
-        className="mx-auto flex max-w-5xl items-center gap-2 px-4 py-1 text-sm"
+        className={
+          quiet ? 'sr-only' : 'mx-auto flex max-w-5xl items-center gap-2 px-4 py-1 text-sm'
+        }
       >
-        {online ? (
-          <Wifi aria-hidden className="size-4 shrink-0" />
-        ) : (
-          <CloudOff aria-hidden className="size-4 shrink-0" />
-        )}
-        <span>{parts.join(' · ')}</span>
+        {!quiet &&
+          (online ? (
+            <Wifi aria-hidden className="size-4 shrink-0" />
+          ) : (
+            <CloudOff aria-hidden className="size-4 shrink-0" />
+          ))}
+        {!quiet && <span>{parts.join(' · ')}</span>}
       </p>
     </div>
   );
