@@ -10,7 +10,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type BrowserContext, type Page } from '@playwright/test';
 import type { Role } from '@shared/permissions';
-import { ensureDemo, mailedLinks, signedInState, type MailedLinks } from './demo';
+import { ensureDemo, mailedLinks, noLinks, signedInState, type MailedLinks } from './demo';
 import {
   members,
   openedDialog,
@@ -78,7 +78,7 @@ for (const viewport of widths) {
         const demo = await ensureDemo();
         // Only signed-out pages need the mailed links; one pair serves both widths.
         if (who === 'guest') links ??= mailedLinks(baseURL);
-        ctx = { ...demo, links: who === 'guest' ? await links! : { invitation: '', reset: '' } };
+        ctx = { ...demo, links: who === 'guest' ? await links! : noLinks };
         let storageState;
         if (who !== 'guest') {
           if (!signedIn.has(who)) signedIn.set(who, signedInState(baseURL, who));

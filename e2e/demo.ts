@@ -12,7 +12,7 @@ import { knexConfig } from '@db/knexfile';
 import { demoAccounts, demoPassword, seedDemo } from '@db/seeds/demo';
 import type { Role } from '@shared/permissions';
 import { createLocalDiskStorage } from '@server/lib/storage';
-import { postJson as post, signUpThroughApi, uniqueEmail } from './helpers';
+import { password, postJson as post, signUpThroughApi, uniqueEmail } from './helpers';
 import { linkTo, waitForMail } from './mail';
 
 export type Demo = {
@@ -121,11 +121,15 @@ export async function signedInState(baseURL: string, role: Role) {
   }
 }
 
-export type MailedLinks = { invitation: string; reset: string };
+export type MailedLinks = { invitation: string; reset: string; confirmEmail: string };
+
+/** For pages that need no mailed link. */
+export const noLinks: MailedLinks = { invitation: '', reset: '', confirmEmail: '' };
 
 /**
- * Paths of a live invitation and a live password-reset link, as their mails give them. A new
- * account of their own sends both, so reruns never run into the demo owner's invitation limit.
+ * Paths of a live invitation, a live password-reset link and a live link confirming a new
+ * e-mail address, as their mails give them. A new account of their own sends them, so reruns
+ * never run into the demo owner's invitation limit. (Opening a link's page does not use it.)
  */
 export async function mailedLinks(baseURL: string): Promise<MailedLinks> {
   const { api, email } = await signUpThroughApi(baseURL, 'Wren Alder', 'links');
@@ -142,10 +146,17 @@ export async function mailedLinks(baseURL: string): Promise<MailedLinks> {
       email: invitee,
       role: 'crew',
     });
+    const movedTo = uniqueEmail('moved');
+    await post(api, baseURL, '/api/me/email', { email: movedTo, currentPassword: password });
     await post(api, baseURL, '/api/auth/password-reset', { email });
     const invitation = await waitForMail(api, invitee, /invited to a build on Headroom/);
     const reset = await waitForMail(api, email, /Set a new Headroom password/);
-    return { invitation: linkTo(invitation, '/invite/'), reset: linkTo(reset, '/reset-password/') };
+    const confirmEmail = await waitForMail(api, movedTo, /Confirm your new Headroom e-mail/);
+    return {
+      invitation: linkTo(invitation, '/invite/'),
+      reset: linkTo(reset, '/reset-password/'),
+      confirmEmail: linkTo(confirmEmail, '/confirm-email/'),
+    };
   } finally {
     await api.dispose();
   }

@@ -6,7 +6,7 @@
  */
 import { expect, test, type BrowserContext, type Locator, type Page } from '@playwright/test';
 import type { Role } from '@shared/permissions';
-import { ensureDemo, signedInState, type Demo } from './demo';
+import { ensureDemo, noLinks, signedInState, type Demo } from './demo';
 import { postJson, signUpThroughApi } from './helpers';
 import { joinByInvitation } from './mail';
 import { opener, pages, settle } from './pages';
@@ -364,7 +364,7 @@ test.describe('every dialog of the demo build', () => {
         );
       }
       const page = await (await contexts.get(role)!).newPage();
-      await page.goto(check.path({ ...demo, links: { invitation: '', reset: '' } }));
+      await page.goto(check.path({ ...demo, links: noLinks }));
       await settle(page);
       await expectDialogKeyboard(page, opener(page, check), check.dialog!.name);
       await page.close();

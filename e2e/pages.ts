@@ -48,6 +48,7 @@ export const pages: readonly PageCheck[] = [
   { name: 'forgot password', path: () => paths.auth.forgotPassword.getHref(), roles: guest },
   { name: 'reset password', path: (c) => c.links.reset, roles: guest },
   { name: 'invitation', path: (c) => c.links.invitation, roles: guest },
+  { name: 'confirm e-mail', path: (c) => c.links.confirmEmail, roles: guest },
   { name: 'page not found', path: () => '/no-such-page', roles: guest },
   { name: 'public build page', path: (c) => paths.shared.page.getHref(c.shareToken), roles: guest },
   { name: 'public build sheet', path: (c) => paths.shared.sheet.getHref(c.shareToken), roles: guest },
