@@ -1,7 +1,8 @@
 import type { Budget, BudgetLine, PartCategory, PartStatus } from '@shared/schemas/parts';
 import { coreOwedCents, partTotalCents, type PartMoney } from './cost';
 
-type BudgetPart = PartMoney & {
+/** What the budget reads of a part: its money, stage and the dates it is ordered by. */
+export type BudgetPart = PartMoney & {
   id: string;
   name: string;
   category: PartCategory;

@@ -1,26 +1,8 @@
 /** The budget's read of the parts: their money, stage and dates, and nothing else. */
 import type { Knex } from 'knex';
 import { namedRows } from '@server/lib/named-query';
-import type { PartCategory, PartStatus } from '@shared/schemas/parts';
+import type { BudgetPart } from '@shared/ledger/budget';
 import { isoUtc } from './parts.repository';
-
-/** What the budget reads of each part. */
-export type PartMoneyRecord = {
-  id: string;
-  name: string;
-  category: PartCategory;
-  status: PartStatus;
-  quantity: number;
-  unitPriceCents: number;
-  labourCents: number;
-  shippingCents: number;
-  taxCents: number;
-  coreChargeCents: number;
-  coreRefundCents: number;
-  orderedOn: string | null;
-  receivedOn: string | null;
-  createdAt: string;
-};
 
 /**
  * The budget's read: only the columns it sums and orders by, created_at already as the
@@ -38,5 +20,5 @@ const moneySql = `select p.id, p.name, p.category, p.status, p.quantity,
   order by p.category, p.created_at, p.name, p.id`;
 
 export async function listPartMoney(knex: Knex, buildId: string) {
-  return namedRows<PartMoneyRecord>(knex, 'parts-money', moneySql, [buildId]);
+  return namedRows<BudgetPart>(knex, 'parts-money', moneySql, [buildId]);
 }
